@@ -1,0 +1,81 @@
+import "server-only";
+import fs from "node:fs";
+import path from "node:path";
+import { randomBytes } from "node:crypto";
+import { betterAuth } from "better-auth";
+import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { nextCookies } from "better-auth/next-js";
+import { dataDir, getDb, type Db } from "@/db/client";
+import { accounts, sessions, users, verifications } from "@/db/schema";
+import { eq } from "drizzle-orm";
+
+export function appUrl(): string {
+  return process.env.BETTER_AUTH_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
+}
+
+/** A secret from the environment, or one made once and kept in the data folder. */
+function secret(): string {
+  if (process.env.BETTER_AUTH_SECRET) return process.env.BETTER_AUTH_SECRET;
+  if (process.env.DB_MEMORY === "1" || process.env.DATABASE_URL) {
+    const g = globalThis as { __ratecourtSecret?: string };
+    return (g.__ratecourtSecret ??= randomBytes(32).toString("hex"));
+  }
+  const file = path.join(dataDir(), "auth-secret");
+  if (!fs.existsSync(file)) {
+    fs.mkdirSync(dataDir(), { recursive: true });
+    fs.writeFileSync(file, randomBytes(32).toString("hex"), { mode: 0o600 });
+  }
+  return fs.readFileSync(file, "utf8").trim();
+}
+
+function trustedOrigins(base: string): string[] {
+  const url = new URL(base);
+  const port = url.port ? `:${url.port}` : "";
+  return [base, `${url.protocol}//localhost${port}`, `${url.protocol}//127.0.0.1${port}`];
+}
+
+function createAuth(db: Db) {
+  const baseURL = appUrl();
+  return betterAuth({
+    baseURL,
+    secret: secret(),
+    trustedOrigins: trustedOrigins(baseURL),
+    database: drizzleAdapter(db, {
+      provider: "pg",
+      schema: { user: users, session: sessions, account: accounts, verification: verifications },
+    }),
+    // Accounts are made by an administrator on the People page, never by signing up.
+    emailAndPassword: { enabled: true, disableSignUp: true, minPasswordLength: 8 },
+    session: { expiresIn: 60 * 60 * 12, updateAge: 60 * 60 },
+    rateLimit: {
+      enabled: true,
+      window: 60,
+      max: 200,
+      customRules: { "/sign-in/email": { window: 60, max: 20 } },
+    },
+    advanced: { database: { generateId: () => crypto.randomUUID() } },
+    databaseHooks: {
+      session: {
+        create: {
+          // A deactivated account gets no new session, whichever way sign-in is attempted.
+          before: async (session) => {
+            const [user] = await db.select({ active: users.active }).from(users).where(eq(users.id, session.userId));
+            return user?.active ? { data: session } : false;
+          },
+        },
+      },
+    },
+    // Must stay last: it sets cookies from server actions.
+    plugins: [nextCookies()],
+  });
+}
+
+export type Auth = ReturnType<typeof createAuth>;
+
+const KEY = Symbol.for("ratecourt.auth");
+const holder = globalThis as { [KEY]?: Promise<Auth> };
+
+export function getAuth(): Promise<Auth> {
+  holder[KEY] ??= getDb().then(createAuth);
+  return holder[KEY];
+}

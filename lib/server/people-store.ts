@@ -1,0 +1,58 @@
+import "server-only";
+import { hashPassword } from "better-auth/crypto";
+import { eq, inArray } from "drizzle-orm";
+import type { Queryable } from "@/db/client";
+import { accounts, organisations, userRoles, users, type RoleName } from "@/db/schema";
+
+export interface NewUserRow {
+  name: string;
+  email: string;
+  password: string;
+  organisationId: string;
+  roles: RoleName[];
+  approvalLimit?: number | null;
+}
+
+/** Writes a user with a password credential, the way better-auth's e-mail sign-in expects it. */
+export async function insertUser(tx: Queryable, input: NewUserRow) {
+  const [user] = await tx
+    .insert(users)
+    .values({
+      name: input.name,
+      email: input.email.toLowerCase(),
+      emailVerified: true,
+      organisationId: input.organisationId,
+      approvalLimit: input.approvalLimit ?? null,
+    })
+    .returning();
+  await tx.insert(accounts).values({
+    accountId: user.id,
+    providerId: "credential",
+    userId: user.id,
+    password: await hashPassword(input.password),
+  });
+  if (input.roles.length > 0) {
+    await tx.insert(userRoles).values(input.roles.map((role) => ({ userId: user.id, role })));
+  }
+  return user;
+}
+
+/** A user with organisation and roles, or null. */
+export async function loadUser(db: Queryable, userId: string) {
+  const [row] = await db
+    .select({ user: users, organisation: organisations })
+    .from(users)
+    .innerJoin(organisations, eq(organisations.id, users.organisationId))
+    .where(eq(users.id, userId));
+  if (!row) return null;
+  const roles = await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, userId));
+  return { ...row.user, organisation: row.organisation, roles: roles.map((r) => r.role).sort() };
+}
+
+export async function rolesByUser(db: Queryable, userIds: string[]) {
+  const map = new Map<string, RoleName[]>();
+  if (userIds.length === 0) return map;
+  const rows = await db.select().from(userRoles).where(inArray(userRoles.userId, userIds));
+  for (const row of rows) map.set(row.userId, [...(map.get(row.userId) ?? []), row.role].sort());
+  return map;
+}

@@ -1,0 +1,61 @@
+import "server-only";
+import { headers as nextHeaders } from "next/headers";
+import { eq } from "drizzle-orm";
+import { defineAbilityFor, type Actor, type AppAbility } from "@/policies";
+import { getDb } from "@/db/client";
+import { declarations } from "@/db/schema";
+import { getAuth } from "./auth";
+import { loadUser } from "./people-store";
+import { ForbiddenError, UnauthorizedError } from "./errors";
+
+export interface Viewer {
+  actor: Actor;
+  ability: AppAbility;
+  name: string;
+  email: string;
+  organisationName: string;
+}
+
+/** Who is asking, with roles and declarations read from the database on every request. */
+export async function getViewer(requestHeaders?: Headers): Promise<Viewer | null> {
+  const auth = await getAuth();
+  const h = requestHeaders ?? (await nextHeaders());
+  const session = await auth.api.getSession({ headers: h });
+  if (!session) return null;
+  const db = await getDb();
+  const user = await loadUser(db, session.user.id);
+  if (!user || !user.active) return null;
+  const decl = await db.select().from(declarations).where(eq(declarations.userId, user.id));
+  const actor: Actor = {
+    id: user.id,
+    organisationId: user.organisationId,
+    organisationKind: user.organisation.kind,
+    roles: user.roles,
+    active: user.active,
+    approvalLimit: user.approvalLimit,
+    declarations: decl.map((d) => ({ tenderId: d.tenderId, conflictedVendorOrgIds: d.conflictedOrgIds })),
+  };
+  return {
+    actor,
+    ability: defineAbilityFor(actor),
+    name: user.name,
+    email: user.email,
+    organisationName: user.organisation.name,
+  };
+}
+
+export async function requireViewer(requestHeaders?: Headers): Promise<Viewer> {
+  const viewer = await getViewer(requestHeaders);
+  if (!viewer) throw new UnauthorizedError();
+  return viewer;
+}
+
+/** The one gate: throws ForbiddenError unless the viewer's abilities allow the action on the subject. */
+export function authorize(
+  viewer: Viewer,
+  action: Parameters<AppAbility["can"]>[0],
+  subject: Parameters<AppAbility["can"]>[1],
+  message?: string,
+): void {
+  if (!viewer.ability.can(action, subject)) throw new ForbiddenError(message);
+}

@@ -1,0 +1,23 @@
+import type { Config } from "tailwindcss";
+
+// Ratecourt's look: calm slate ground, a deep teal accent, verdict colours that also differ by shape.
+export default {
+  content: ["./app/**/*.{ts,tsx}", "./lib/**/*.{ts,tsx}"],
+  theme: {
+    extend: {
+      fontFamily: {
+        sans: ["var(--font-sans)", "system-ui", "sans-serif"],
+      },
+      colors: {
+        ink: { DEFAULT: "#1c2430", soft: "#4a5568", faint: "#8a94a6" },
+        paper: { DEFAULT: "#f7f8fa", raised: "#ffffff", sunk: "#eef1f5" },
+        accent: { DEFAULT: "#0f5e6b", soft: "#dcefF1", strong: "#0a434c" },
+        verdict: {
+          impossible: "#b42318",
+          evidence: "#b26a00",
+          plausible: "#1f7a3a",
+        },
+      },
+    },
+  },
+} satisfies Config;
