@@ -1,0 +1,84 @@
+import { mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
+import path from "node:path";
+
+// Mail the local fake SMTP server received; the Mailroom page (development only) lists it.
+export type CapturedMail = {
+  id: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string | null;
+  /** ISO 8601, so the same shape survives the file backend and props to client components. */
+  receivedAt: string;
+};
+
+export const MAX_CAPTURED_MAIL = 500;
+
+/**
+ * When set, captured mail lives in this JSON file instead of process memory. The fake SMTP
+ * server may run in the process that starts Next while pages render in another one; both
+ * inherit this variable from startLocalServices and so read and write the same list.
+ */
+export const MAIL_CAPTURE_FILE_ENV = "MAIL_CAPTURE_FILE";
+
+// Next.js can load this module twice in one process; one list must serve both copies.
+const STORE_KEY = Symbol.for("ratecourt.mail.captured");
+type Store = { messages: CapturedMail[] };
+
+function memoryStore(): Store {
+  const holder = globalThis as typeof globalThis & { [STORE_KEY]?: Store };
+  holder[STORE_KEY] ??= { messages: [] };
+  return holder[STORE_KEY];
+}
+
+function captureFile(): string | undefined {
+  return process.env[MAIL_CAPTURE_FILE_ENV] || undefined;
+}
+
+function readFromFile(file: string): CapturedMail[] {
+  try {
+    const parsed: unknown = JSON.parse(readFileSync(file, "utf8"));
+    return Array.isArray(parsed) ? (parsed as CapturedMail[]) : [];
+  } catch {
+    // Missing or half-written file: an empty mailroom is the honest answer.
+    return [];
+  }
+}
+
+function writeToFile(file: string, messages: CapturedMail[]): void {
+  mkdirSync(path.dirname(file), { recursive: true });
+  const temporary = `${file}.${process.pid}.tmp`;
+  writeFileSync(temporary, JSON.stringify(messages));
+  renameSync(temporary, file);
+}
+
+/** Oldest first, as stored. */
+function readAll(): CapturedMail[] {
+  const file = captureFile();
+  return file ? readFromFile(file) : memoryStore().messages;
+}
+
+export function recordCapturedMail(message: CapturedMail): void {
+  const file = captureFile();
+  const messages = [...readAll(), message].slice(-MAX_CAPTURED_MAIL);
+  if (file) writeToFile(file, messages);
+  else memoryStore().messages = messages;
+}
+
+/** Newest first. Returns copies: callers cannot change the store by accident. */
+export function listCapturedMail(): CapturedMail[] {
+  return readAll()
+    .map((message) => ({ ...message, to: [...message.to] }))
+    .reverse();
+}
+
+export function getCapturedMail(id: string): CapturedMail | undefined {
+  return listCapturedMail().find((message) => message.id === id);
+}
+
+export function clearCapturedMail(): void {
+  const file = captureFile();
+  if (file) rmSync(file, { force: true });
+  memoryStore().messages = [];
+}

@@ -1,0 +1,23 @@
+// The fake S3 server is imported from "./fake-s3" directly, so route handlers never bundle it.
+export {
+  DEFAULT_S3_BUCKET,
+  DEFAULT_S3_PORT,
+  deleteObject,
+  ensureBucket,
+  getObject,
+  getStorageConfig,
+  isObjectNotFound,
+  ObjectNotFoundError,
+  putObject,
+  type StorageConfig,
+} from "./object-store";
+export {
+  checkPdfUpload,
+  detectExecutable,
+  MAX_UPLOAD_BYTES,
+  sanitizeFileName,
+  sha256Hex,
+  sniffPdf,
+  type ExecutableKind,
+  type PdfUploadCheck,
+} from "./files";
