@@ -46,6 +46,14 @@ function createAuth(db: Db) {
     }),
     // Accounts are made by an administrator on the People page, never by signing up.
     emailAndPassword: { enabled: true, disableSignUp: true, minPasswordLength: 8 },
+    // Our own columns on better-auth's user table; never taken from a client.
+    user: {
+      additionalFields: {
+        organisationId: { type: "string", required: true, input: false },
+        active: { type: "boolean", required: false, defaultValue: true, input: false },
+        approvalLimit: { type: "number", required: false, input: false },
+      },
+    },
     session: { expiresIn: 60 * 60 * 12, updateAge: 60 * 60 },
     rateLimit: {
       enabled: true,
@@ -76,6 +84,11 @@ const KEY = Symbol.for("ratecourt.auth");
 const holder = globalThis as { [KEY]?: Promise<Auth> };
 
 export function getAuth(): Promise<Auth> {
-  holder[KEY] ??= getDb().then(createAuth);
+  holder[KEY] ??= getDb()
+    .then(createAuth)
+    .catch((error) => {
+      holder[KEY] = undefined;
+      throw error;
+    });
   return holder[KEY];
 }

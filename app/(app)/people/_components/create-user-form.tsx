@@ -1,0 +1,67 @@
+"use client";
+
+import { useState, useTransition } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { createUserSchema, type CreateUserInput } from "@/lib/validation/people";
+import { ROLES as ROLE_NAMES } from "@/policies/vocabulary";
+import { createUserAction, type FormResult } from "../actions";
+
+interface Org { id: string; name: string; kind: "buyer" | "vendor" }
+
+export function CreateUserForm({ organisations }: { organisations: Org[] }) {
+  const [result, setResult] = useState<FormResult>({});
+  const [pending, startTransition] = useTransition();
+  const { register, handleSubmit, formState, reset, setError } = useForm<CreateUserInput>({
+    resolver: zodResolver(createUserSchema),
+    defaultValues: { name: "", email: "", password: "", organisationId: "", roles: [], approvalLimit: null },
+  });
+  const errors = formState.errors;
+  const submit = handleSubmit((values) =>
+    startTransition(async () => {
+      const outcome = await createUserAction(values);
+      setResult(outcome);
+      if (outcome.ok) reset();
+      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) {
+        setError(field as keyof CreateUserInput, { message: messages[0] });
+      }
+    }),
+  );
+  const err = (name: keyof CreateUserInput) =>
+    errors[name]?.message ? <p className="mt-1 text-xs text-verdict-impossible">{String(errors[name]?.message)}</p> : null;
+
+  return (
+    <form onSubmit={submit} className="panel space-y-3" aria-label="New account" noValidate>
+      <h2>New account</h2>
+      {result.message ? (
+        <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>{result.message}</p>
+      ) : null}
+      <div><label className="label" htmlFor="nu-name">Name</label><input id="nu-name" className="field" {...register("name")} />{err("name")}</div>
+      <div><label className="label" htmlFor="nu-email">E-mail</label><input id="nu-email" type="email" className="field" {...register("email")} />{err("email")}</div>
+      <div><label className="label" htmlFor="nu-password">First password</label><input id="nu-password" type="password" className="field" autoComplete="new-password" {...register("password")} />{err("password")}</div>
+      <div>
+        <label className="label" htmlFor="nu-org">Organisation</label>
+        <select id="nu-org" className="field" {...register("organisationId")}>
+          <option value="">Choose…</option>
+          {organisations.map((o) => <option key={o.id} value={o.id}>{o.name}</option>)}
+        </select>
+        {err("organisationId")}
+      </div>
+      <fieldset>
+        <legend className="label">Roles</legend>
+        <div className="flex flex-wrap gap-3 text-sm">
+          {ROLE_NAMES.map((role) => (
+            <label key={role} className="inline-flex items-center gap-1"><input type="checkbox" value={role} {...register("roles")} /> {role}</label>
+          ))}
+        </div>
+        {err("roles")}
+      </fieldset>
+      <div>
+        <label className="label" htmlFor="nu-limit">Approval limit (approvers)</label>
+        <input id="nu-limit" type="number" min={0} step="1000" className="field" {...register("approvalLimit", { setValueAs: (v) => (v === "" || v === null ? null : Number(v)) })} />
+        {err("approvalLimit")}
+      </div>
+      <button type="submit" className="btn" disabled={pending}>{pending ? "Creating…" : "Create account"}</button>
+    </form>
+  );
+}

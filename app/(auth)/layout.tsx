@@ -1,0 +1,16 @@
+import { Cautions } from "@/app/_components/cautions";
+import { Logo } from "@/app/_components/logo";
+
+export default function SignedOutLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <div className="flex min-h-screen flex-col">
+      <header className="border-b border-ink-faint/20 bg-paper-raised px-6 py-3">
+        <Logo />
+      </header>
+      <main className="flex flex-1 items-start justify-center px-4 py-16">{children}</main>
+      <footer className="border-t border-ink-faint/20 px-6 py-4">
+        <Cautions />
+      </footer>
+    </div>
+  );
+}

@@ -1,0 +1,18 @@
+import type { AppAbility } from "@/policies";
+
+export interface NavItem {
+  href: string;
+  label: string;
+}
+
+/** The main navigation, from the same abilities the server enforces (hiding only; the server still checks). */
+export function navFor(ability: AppAbility, options: { mailroom: boolean }): NavItem[] {
+  const items: NavItem[] = [{ href: "/desk", label: "Desk" }];
+  if (ability.can("read", "Tender")) items.push({ href: "/tenders", label: "Tenders" });
+  if (ability.can("mark", "Claim")) items.push({ href: "/review", label: "Review bench" });
+  if (ability.can("use", "Bounds")) items.push({ href: "/explorer", label: "Bound explorer" });
+  if (ability.can("manage", "User")) items.push({ href: "/people", label: "People" });
+  if (options.mailroom && ability.can("use", "Mailroom")) items.push({ href: "/mailroom", label: "Mailroom" });
+  items.push({ href: "/memo-check", label: "Memo check" });
+  return items;
+}

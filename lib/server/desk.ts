@@ -1,0 +1,36 @@
+import "server-only";
+import type { Viewer } from "./session";
+import { listTenders, type TenderWithInvites } from "./tenders";
+
+export interface DeskSection {
+  title: string;
+  empty: string;
+  tenders: TenderWithInvites[];
+}
+
+/** What waits for the signed-in person, one section per role they hold. */
+export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
+  const roles = viewer.actor.roles;
+  const visible = viewer.ability.can("read", "Tender") ? await listTenders(viewer) : [];
+  const inState = (...states: string[]) => visible.filter((t) => states.includes(t.state));
+  const sections: DeskSection[] = [];
+  if (roles.includes("buyer")) {
+    sections.push({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id) });
+    sections.push({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open") });
+    sections.push({ title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tenders: inState("commercial") });
+  }
+  if (roles.includes("engineer")) {
+    sections.push({ title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tenders: inState("technical") });
+  }
+  if (roles.includes("approver")) {
+    sections.push({ title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tenders: inState("approval") });
+  }
+  if (roles.includes("vendor")) {
+    sections.push({ title: "Tenders you are invited to", empty: "No open invitation.", tenders: inState("open") });
+    sections.push({ title: "Under evaluation or decided", empty: "Nothing under evaluation.", tenders: inState("technical", "commercial", "approval", "awarded") });
+  }
+  if (roles.includes("admin")) {
+    sections.push({ title: "Tenders in progress", empty: "No tender in progress.", tenders: inState("open", "technical", "commercial", "approval") });
+  }
+  return sections;
+}

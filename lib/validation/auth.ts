@@ -1,0 +1,7 @@
+import { z } from "zod";
+
+export const signInSchema = z.object({
+  email: z.email("Enter an e-mail address.").max(254),
+  password: z.string().min(1, "Enter your password.").max(200),
+});
+export type SignInInput = z.infer<typeof signInSchema>;

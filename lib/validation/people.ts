@@ -1,0 +1,40 @@
+import { z } from "zod";
+import { ROLE_NAMES } from "@/db/schema";
+
+const INTERNAL_ROLES = ["admin", "buyer", "engineer", "approver"] as const;
+
+export const roleListSchema = z
+  .array(z.enum(ROLE_NAMES))
+  .min(1, "Choose at least one role.")
+  .refine((roles) => !roles.includes("vendor") || roles.length === 1, "A vendor user holds the vendor role only.");
+
+export const createUserSchema = z.object({
+  name: z.string().trim().min(2, "Enter the person's name.").max(120),
+  email: z.email("Enter an e-mail address.").max(254),
+  password: z.string().min(8, "At least 8 characters.").max(200),
+  organisationId: z.string().min(1, "Choose an organisation."),
+  roles: roleListSchema,
+  approvalLimit: z.number().nonnegative("Must be zero or more.").max(1e12).nullable().optional(),
+});
+export type CreateUserInput = z.infer<typeof createUserSchema>;
+
+export const setRolesSchema = z.object({ roles: roleListSchema });
+export const setActiveSchema = z.object({ active: z.boolean() });
+export const setApprovalLimitSchema = z.object({
+  approvalLimit: z.number().nonnegative("Must be zero or more.").max(1e12).nullable(),
+});
+export const updateUserSchema = z
+  .object({
+    roles: roleListSchema.optional(),
+    active: z.boolean().optional(),
+    approvalLimit: z.number().nonnegative("Must be zero or more.").max(1e12).nullable().optional(),
+  })
+  .refine((v) => Object.keys(v).length > 0, "Send roles, active or approvalLimit.");
+export type UpdateUserInput = z.infer<typeof updateUserSchema>;
+
+export const createOrganisationSchema = z.object({
+  name: z.string().trim().min(2, "Enter the organisation's name.").max(160),
+  country: z.string().trim().length(2, "Two-letter country code.").toUpperCase().optional(),
+});
+
+export { INTERNAL_ROLES };
