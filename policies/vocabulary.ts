@@ -1,0 +1,87 @@
+/**
+ * The words of the permission table: who, what they do, and to what.
+ * Every list is one exported constant so that the tests can walk all of it.
+ */
+
+export const ROLES = ["admin", "buyer", "engineer", "approver", "vendor"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ACTIONS = [
+  "manage", // CASL's wildcard: admin on the people subjects only
+  "read",
+  "list",
+  "create",
+  "update",
+  "delete",
+  "open", // a tender: draft -> open
+  "cancel",
+  "submit",
+  "withdraw",
+  "declare", // conflict of interest, on a tender
+  "mark", // an engineer's mark on a claim
+  "record", // lab error counts
+  "post", // a message in a clarification thread
+  "sign", // the technical evaluation
+  "openEnvelopes",
+  "recommend",
+  "approve",
+  "return",
+  "export",
+  "verify", // a memo fingerprint
+  "assignRoles",
+  "deactivate",
+  "use", // a tool: the bound explorer, the mailroom
+] as const;
+export type Action = (typeof ACTIONS)[number];
+
+export const SUBJECTS = [
+  "Organisation",
+  "User",
+  "ApprovalLimit",
+  "Ledger",
+  "Tender",
+  "Offer",
+  "Envelope",
+  "Claim",
+  "Document",
+  "Mark",
+  "Thread",
+  "EvidenceRun",
+  "Declaration",
+  "TechnicalSignoff",
+  "Score",
+  "Recommendation",
+  "Approval",
+  "Memo",
+  "MemoCheck",
+  "Mailroom",
+  "Bounds",
+] as const;
+export type SubjectType = (typeof SUBJECTS)[number];
+
+export const TENDER_STATES = [
+  "draft",
+  "open",
+  "technical",
+  "commercial",
+  "approval",
+  "awarded",
+  "cancelled",
+] as const;
+export type TenderState = (typeof TENDER_STATES)[number];
+
+/** States from which a tender may still be cancelled (anything before the award). */
+export const CANCELLABLE_STATES = ["draft", "open", "technical", "commercial", "approval"] as const;
+
+/**
+ * The sealed commercial envelope. These names are the fields of the Envelope subject and,
+ * when an Offer carries its envelope embedded, of the Offer subject too.
+ */
+export const ENVELOPE_FIELDS = [
+  "unitPrice",
+  "currency",
+  "leadTimeWeeks",
+  "warrantyMonths",
+  "priceBreaks",
+] as const;
+export type EnvelopeField = (typeof ENVELOPE_FIELDS)[number];
