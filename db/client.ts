@@ -2,7 +2,7 @@ import "server-only";
 import fs from "node:fs";
 import path from "node:path";
 import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
-import * as schema from "./schema";
+import * as schema from "./schema/index";
 import { seedDemoData } from "./seed";
 
 export type Db = PgDatabase<PgQueryResultHKT, typeof schema>;

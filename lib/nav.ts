@@ -9,7 +9,7 @@ export interface NavItem {
 export function navFor(ability: AppAbility, options: { mailroom: boolean }): NavItem[] {
   const items: NavItem[] = [{ href: "/desk", label: "Desk" }];
   if (ability.can("read", "Tender")) items.push({ href: "/tenders", label: "Tenders" });
-  if (ability.can("mark", "Claim")) items.push({ href: "/review", label: "Review bench" });
+  if (ability.can("declare", "Tender")) items.push({ href: "/review", label: "Review bench" });
   if (ability.can("use", "Bounds")) items.push({ href: "/explorer", label: "Bound explorer" });
   if (ability.can("manage", "User")) items.push({ href: "/people", label: "People" });
   if (options.mailroom && ability.can("use", "Mailroom")) items.push({ href: "/mailroom", label: "Mailroom" });

@@ -9,6 +9,7 @@ export default defineConfig({
   test: {
     include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts"],
     environment: "node",
+    setupFiles: ["tests/support/setup.ts"],
     testTimeout: 60_000,
     hookTimeout: 120_000,
     pool: "forks",

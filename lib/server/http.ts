@@ -1,5 +1,6 @@
 import "server-only";
 import type { ZodType } from "zod";
+import { ForbiddenError as CaslForbidden } from "@casl/ability";
 import { describeZodError, fieldErrorsOf } from "@/lib/validation/messages";
 import { AppError, InputError } from "./errors";
 
@@ -26,6 +27,7 @@ export function errorResponse(error: unknown): Response {
   if (error instanceof AppError) {
     return Response.json({ error: error.message, fieldErrors: error.fieldErrors }, { status: error.status });
   }
+  if (error instanceof CaslForbidden) return Response.json({ error: error.message }, { status: 403 });
   console.error(error);
   return Response.json({ error: "Something went wrong on the server." }, { status: 500 });
 }

@@ -7,7 +7,7 @@ import type { CreateUserInput, UpdateUserInput } from "@/lib/validation/people";
 import { appendLedger } from "./ledger";
 import { insertUser, loadUser, rolesByUser } from "./people-store";
 import { authorize, type Viewer } from "./session";
-import { ConflictError, InputError, NotFoundError } from "./errors";
+import { InputError, NotFoundError } from "./errors";
 
 const actorOf = (viewer: Viewer) => ({ id: viewer.actor.id, label: viewer.name });
 
@@ -87,17 +87,12 @@ export async function updateUser(viewer: Viewer, userId: string, input: UpdateUs
   const target = await loadUser(db, userId);
   if (!target) throw new NotFoundError("No such user.");
   const subject = asSubject("User", { id: target.id, organisationId: target.organisationId });
-  const self = target.id === viewer.actor.id;
   if (input.roles) {
     authorize(viewer, "assignRoles", subject);
     checkRolesFit(target.organisation.kind, input.roles);
-    if (self && target.roles.includes("admin") && !input.roles.includes("admin")) {
-      throw new ConflictError("You cannot remove your own administrator role.");
-    }
   }
   if (input.active !== undefined) {
     authorize(viewer, "deactivate", subject);
-    if (self && !input.active) throw new ConflictError("You cannot deactivate your own account.");
   }
   if (input.approvalLimit !== undefined) authorize(viewer, "update", subject);
 

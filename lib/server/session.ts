@@ -57,5 +57,8 @@ export function authorize(
   subject: Parameters<AppAbility["can"]>[1],
   message?: string,
 ): void {
-  if (!viewer.ability.can(action, subject)) throw new ForbiddenError(message);
+  if (viewer.ability.can(action, subject)) return;
+  // The policy's own reason, where a rule gives one, tells the person why.
+  const reason = viewer.ability.relevantRuleFor(action, subject)?.reason;
+  throw new ForbiddenError(message ?? reason);
 }

@@ -1,7 +1,6 @@
 import { z } from "zod";
-import { ROLE_NAMES } from "@/db/schema";
+import { ROLES as ROLE_NAMES } from "@/policies/vocabulary";
 
-const INTERNAL_ROLES = ["admin", "buyer", "engineer", "approver"] as const;
 
 export const roleListSchema = z
   .array(z.enum(ROLE_NAMES))
@@ -37,4 +36,3 @@ export const createOrganisationSchema = z.object({
   country: z.string().trim().length(2, "Two-letter country code.").toUpperCase().optional(),
 });
 
-export { INTERNAL_ROLES };

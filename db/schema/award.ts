@@ -1,0 +1,82 @@
+import { index, integer, jsonb, numeric, pgTable, text, uniqueIndex } from "drizzle-orm/pg-core";
+import { id, createdAt, updatedAt } from "./columns";
+import { users } from "./people";
+import { tenders } from "./tenders";
+import { offers } from "./offers";
+
+/** Value bands: how many approvals a recommendation of this value needs, and the least limit each approver holds. */
+export const approvalBands = pgTable("approval_bands", {
+  id: id(),
+  currency: text("currency").notNull(),
+  minValue: numeric("min_value", { precision: 16, scale: 2, mode: "number" }).notNull(),
+  maxValue: numeric("max_value", { precision: 16, scale: 2, mode: "number" }),
+  approvalsNeeded: integer("approvals_needed").notNull(),
+  minApproverLimit: numeric("min_approver_limit", { precision: 16, scale: 2, mode: "number" }).notNull(),
+  updatedAt: updatedAt(),
+});
+
+export const RECOMMENDATION_STATUSES = ["pending", "returned", "approved", "superseded"] as const;
+export type RecommendationStatus = (typeof RECOMMENDATION_STATUSES)[number];
+
+export const recommendations = pgTable(
+  "recommendations",
+  {
+    id: id(),
+    tenderId: text("tender_id")
+      .notNull()
+      .references(() => tenders.id),
+    offerId: text("offer_id")
+      .notNull()
+      .references(() => offers.id),
+    quantity: integer("quantity").notNull(),
+    value: numeric("value", { precision: 16, scale: 2, mode: "number" }).notNull(),
+    currency: text("currency").notNull(),
+    justification: text("justification").notNull(),
+    status: text("status").$type<RecommendationStatus>().notNull().default("pending"),
+    /** The band rule in force when it was submitted: later changes to the bands never apply to it. */
+    approvalsNeeded: integer("approvals_needed"),
+    minApproverLimit: numeric("min_approver_limit", { precision: 16, scale: 2, mode: "number" }),
+    scoreSheet: jsonb("score_sheet").$type<Record<string, unknown>>(),
+    preparedBy: text("prepared_by")
+      .notNull()
+      .references(() => users.id),
+    preparedAt: createdAt(),
+  },
+  (t) => [index("recommendations_tender_idx").on(t.tenderId)],
+);
+
+export const approvals = pgTable(
+  "approvals",
+  {
+    id: id(),
+    recommendationId: text("recommendation_id")
+      .notNull()
+      .references(() => recommendations.id),
+    tenderId: text("tender_id")
+      .notNull()
+      .references(() => tenders.id),
+    approverId: text("approver_id")
+      .notNull()
+      .references(() => users.id),
+    decision: text("decision").$type<"approved" | "returned">().notNull(),
+    comment: text("comment").notNull().default(""),
+    decidedAt: createdAt(),
+  },
+  (t) => [uniqueIndex("approvals_once_idx").on(t.recommendationId, t.approverId)],
+);
+
+export const memos = pgTable("memos", {
+  id: id(),
+  identifier: text("identifier").notNull().unique(),
+  tenderId: text("tender_id")
+    .notNull()
+    .unique()
+    .references(() => tenders.id),
+  recommendationId: text("recommendation_id")
+    .notNull()
+    .references(() => recommendations.id),
+  sha256: text("sha256").notNull().unique(),
+  storageKey: text("storage_key").notNull(),
+  size: integer("size").notNull(),
+  createdAt: createdAt(),
+});

@@ -1,0 +1,116 @@
+import { doublePrecision, index, pgTable, primaryKey, text } from "drizzle-orm/pg-core";
+import { id, createdAt } from "./columns";
+import { organisations, users } from "./people";
+import { tenders } from "./tenders";
+import { claims } from "./offers";
+
+export const MARKS = ["accepted", "rejected-impossible", "evidence-requested", "clarification-requested"] as const;
+export type MarkKind = (typeof MARKS)[number];
+
+/** Every mark is kept; a claim's current mark is its latest. */
+export const marks = pgTable(
+  "marks",
+  {
+    id: id(),
+    claimId: text("claim_id")
+      .notNull()
+      .references(() => claims.id),
+    tenderId: text("tender_id")
+      .notNull()
+      .references(() => tenders.id),
+    vendorOrgId: text("vendor_org_id")
+      .notNull()
+      .references(() => organisations.id),
+    mark: text("mark").$type<MarkKind>().notNull(),
+    comment: text("comment").notNull().default(""),
+    markedBy: text("marked_by")
+      .notNull()
+      .references(() => users.id),
+    markedAt: createdAt(),
+  },
+  (t) => [index("marks_claim_idx").on(t.claimId)],
+);
+
+export const threads = pgTable(
+  "threads",
+  {
+    id: id(),
+    tenderId: text("tender_id")
+      .notNull()
+      .references(() => tenders.id),
+    vendorOrgId: text("vendor_org_id")
+      .notNull()
+      .references(() => organisations.id),
+    claimId: text("claim_id").references(() => claims.id),
+    subject: text("subject").notNull(),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [index("threads_tender_idx").on(t.tenderId, t.vendorOrgId)],
+);
+
+export const threadMessages = pgTable(
+  "thread_messages",
+  {
+    id: id(),
+    threadId: text("thread_id")
+      .notNull()
+      .references(() => threads.id),
+    authorId: text("author_id")
+      .notNull()
+      .references(() => users.id),
+    authorLabel: text("author_label").notNull(),
+    body: text("body").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("thread_messages_thread_idx").on(t.threadId)],
+);
+
+export const EVIDENCE_STATUSES = ["verified", "contradicted", "inconclusive"] as const;
+export type EvidenceStatus = (typeof EVIDENCE_STATUSES)[number];
+
+/** A lab run: x errors in N bits or frames at a stated channel condition. */
+export const evidenceRuns = pgTable(
+  "evidence_runs",
+  {
+    id: id(),
+    claimId: text("claim_id")
+      .notNull()
+      .references(() => claims.id),
+    tenderId: text("tender_id")
+      .notNull()
+      .references(() => tenders.id),
+    vendorOrgId: text("vendor_org_id")
+      .notNull()
+      .references(() => organisations.id),
+    channelValue: doublePrecision("channel_value").notNull(),
+    unit: text("unit").$type<"bits" | "frames">().notNull(),
+    trials: doublePrecision("trials").notNull(),
+    errors: doublePrecision("errors").notNull(),
+    confidence: doublePrecision("confidence").notNull(),
+    lower: doublePrecision("lower").notNull(),
+    upper: doublePrecision("upper").notNull(),
+    status: text("status").$type<EvidenceStatus>().notNull(),
+    errorFreeTrialsNeeded: doublePrecision("error_free_trials_needed"),
+    source: text("source").$type<"manual" | "csv">().notNull().default("manual"),
+    note: text("note").notNull().default(""),
+    recordedBy: text("recorded_by")
+      .notNull()
+      .references(() => users.id),
+    recordedAt: createdAt(),
+  },
+  (t) => [index("evidence_claim_idx").on(t.claimId)],
+);
+
+export const technicalSignoffs = pgTable("technical_signoffs", {
+  tenderId: text("tender_id")
+    .primaryKey()
+    .references(() => tenders.id),
+  signedBy: text("signed_by")
+    .notNull()
+    .references(() => users.id),
+  statement: text("statement").notNull(),
+  signedAt: createdAt(),
+});

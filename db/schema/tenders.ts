@@ -1,0 +1,88 @@
+import { sql } from "drizzle-orm";
+import { index, integer, jsonb, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import type { TenderState } from "@/policies/vocabulary";
+import { id, createdAt, updatedAt } from "./columns";
+import { organisations, users } from "./people";
+
+export { TENDER_STATES } from "@/policies/vocabulary";
+export type { TenderState };
+
+export type ChannelModel = "bsc" | "bec" | "biawgn";
+/** One channel condition the buyer cares about: p for bsc, e for bec, Eb/N0 in dB for biawgn. */
+export interface OperatingPoint {
+  label: string;
+  value: number;
+}
+export interface ScoringWeights {
+  technical: number;
+  evidence: number;
+  price: number;
+  leadTime: number;
+  warranty: number;
+}
+
+export const tenders = pgTable(
+  "tenders",
+  {
+    id: id(),
+    reference: text("reference").notNull().unique(),
+    title: text("title").notNull(),
+    description: text("description").notNull().default(""),
+    state: text("state").$type<TenderState>().notNull().default("draft"),
+    channelModel: text("channel_model").$type<ChannelModel>().notNull(),
+    operatingPoints: jsonb("operating_points").$type<OperatingPoint[]>().notNull(),
+    targetMetric: text("target_metric").$type<"bler" | "ber">().notNull(),
+    targetValue: numeric("target_value", { mode: "number" }).notNull(),
+    maxFrameBits: integer("max_frame_bits"),
+    quantity: integer("quantity").notNull(),
+    currency: text("currency").notNull(),
+    weights: jsonb("weights").$type<ScoringWeights>().notNull(),
+    impossibleRule: text("impossible_rule").$type<"disqualify" | "penalty">().notNull().default("disqualify"),
+    impossiblePenalty: numeric("impossible_penalty", { mode: "number" }).notNull().default(0),
+    closesAt: timestamp("closes_at", { withTimezone: true }).notNull(),
+    closesZone: text("closes_zone").notNull().default("UTC"),
+    openedAt: timestamp("opened_at", { withTimezone: true }),
+    technicalSignedAt: timestamp("technical_signed_at", { withTimezone: true }),
+    envelopesOpenedAt: timestamp("envelopes_opened_at", { withTimezone: true }),
+    awardedAt: timestamp("awarded_at", { withTimezone: true }),
+    cancelReason: text("cancel_reason"),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("tenders_state_idx").on(t.state)],
+);
+
+export const tenderInvitations = pgTable(
+  "tender_invitations",
+  {
+    tenderId: text("tender_id")
+      .notNull()
+      .references(() => tenders.id),
+    organisationId: text("organisation_id")
+      .notNull()
+      .references(() => organisations.id),
+    invitedAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.tenderId, t.organisationId] })],
+);
+
+/** Conflict-of-interest declarations: one per person and tender, listing the vendors they are conflicted with. */
+export const declarations = pgTable(
+  "declarations",
+  {
+    id: id(),
+    tenderId: text("tender_id")
+      .notNull()
+      .references(() => tenders.id),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id),
+    conflictedOrgIds: jsonb("conflicted_org_ids").$type<string[]>().notNull().default(sql`'[]'::jsonb`),
+    statement: text("statement").notNull().default(""),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("declarations_tender_user_idx").on(t.tenderId, t.userId)],
+);
