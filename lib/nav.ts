@@ -6,10 +6,11 @@ export interface NavItem {
 }
 
 /** The main navigation, from the same abilities the server enforces (hiding only; the server still checks). */
-export function navFor(ability: AppAbility, options: { mailroom: boolean }): NavItem[] {
+export function navFor(ability: AppAbility, roles: readonly string[], options: { mailroom: boolean }): NavItem[] {
   const items: NavItem[] = [{ href: "/desk", label: "Desk" }];
   if (ability.can("read", "Tender")) items.push({ href: "/tenders", label: "Tenders" });
-  if (ability.can("declare", "Tender")) items.push({ href: "/review", label: "Review bench" });
+  // Engineers reach their bench before declaring on any tender; the bench asks for the declaration.
+  if (roles.includes("engineer")) items.push({ href: "/review", label: "Review bench" });
   if (ability.can("use", "Bounds")) items.push({ href: "/explorer", label: "Bound explorer" });
   if (ability.can("manage", "User")) items.push({ href: "/people", label: "People" });
   if (options.mailroom && ability.can("use", "Mailroom")) items.push({ href: "/mailroom", label: "Mailroom" });

@@ -8,7 +8,7 @@ import { signOutAction } from "./actions";
 
 export default async function SignedInLayout({ children }: { children: React.ReactNode }) {
   const viewer = await pageViewer();
-  const items = navFor(viewer.ability, { mailroom: mailroomEnabled() });
+  const items = navFor(viewer.ability, viewer.actor.roles, { mailroom: mailroomEnabled() });
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-ink-faint/20 bg-paper-raised">

@@ -1,0 +1,30 @@
+import { expect, type Page } from "@playwright/test";
+
+export const PASSWORD = "ratecourt-demo";
+
+export const ACCOUNTS = {
+  admin: "admin@tarnwell.example",
+  buyer: "buyer@tarnwell.example",
+  engineer: "engineer@tarnwell.example",
+  approver: "approver@tarnwell.example",
+  director: "director@tarnwell.example",
+  kestrelink: "sales@kestrelink.example",
+  marram: "offers@marram.example",
+  oxbow: "bids@oxbow.example",
+  quillfield: "tenders@quillfield.example",
+} as const;
+
+export async function signIn(page: Page, email: string, password = PASSWORD) {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("heading", { name: "Desk", level: 1 })).toBeVisible();
+}
+
+export async function signOut(page: Page) {
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page.getByRole("heading", { name: "Sign in" })).toBeVisible();
+}
+
+export const nav = (page: Page) => page.getByRole("navigation", { name: "Main" });

@@ -1,0 +1,54 @@
+import { defineConfig } from "@playwright/test";
+import path from "node:path";
+
+const root = path.resolve(import.meta.dirname, "../..");
+const port = Number(process.env.E2E_PORT ?? 3100);
+const baseURL = `http://localhost:${port}`;
+const dataDir = path.join(root, ".data", "e2e");
+
+export default defineConfig({
+  testDir: import.meta.dirname,
+  testMatch: "**/*.spec.ts",
+  workers: 1,
+  fullyParallel: false,
+  retries: process.env.CI ? 1 : 0,
+  timeout: 90_000,
+  expect: { timeout: 15_000 },
+  reporter: process.env.CI ? [["list"]] : [["list"]],
+  outputDir: path.join(root, "test-results"),
+  use: {
+    baseURL,
+    trace: "retain-on-failure",
+    launchOptions: {
+      // Debian's chromium; the project never downloads a browser.
+      executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+      args: [
+        "--no-sandbox",
+        "--headless",
+        "--disable-gpu",
+        "--disable-quic",
+        "--no-first-run",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+      ],
+    },
+  },
+  webServer: {
+    // Browser tests run against a production build on a fresh demo database of their own.
+    command: `rm -rf "${dataDir}" && npx next build && npx next start -p ${port}`,
+    cwd: root,
+    url: `${baseURL}/sign-in`,
+    timeout: 600_000,
+    reuseExistingServer: false,
+    stdout: "pipe",
+    stderr: "pipe",
+    env: {
+      DATA_DIR: dataDir,
+      PORT: String(port),
+      BETTER_AUTH_URL: baseURL,
+      AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
+      NEXT_TELEMETRY_DISABLED: "1",
+    },
+  },
+});
