@@ -2,6 +2,8 @@ import { count, sql } from "drizzle-orm";
 import type { Db, Queryable } from "./client";
 import { organisations, tenderInvitations, tenders, type RoleName } from "./schema";
 import { insertUser } from "@/lib/server/people-store";
+import { seedDemoOffers } from "./seed-offers";
+import { seedDemoReview } from "./seed-review";
 import { appendLedger } from "@/lib/server/ledger";
 
 // Everything below is invented for the demonstration: no real company, person or figure.
@@ -51,6 +53,15 @@ export const DEMO_USERS: {
 
 const DAY = 86_400_000;
 
+/** What later parts of the seed need to know about what came before. */
+export interface DemoContext {
+  orgIds: Record<OrgKey, string>;
+  userIds: Record<string, string>;
+  /** gauges: in technical evaluation with four offers; weirs: open for offers; rain: a draft. */
+  tenderIds: { gauges: string; weirs: string; rain: string };
+  now: number;
+}
+
 /** Fills an empty database with the demo scenario; does nothing when organisations exist. */
 export async function seedDemoData(db: Db): Promise<boolean> {
   return db.transaction(async (tx) => {
@@ -86,62 +97,90 @@ async function insertDemo(tx: Queryable) {
 
   const buyer = { id: userIds.buyer, label: "Ines Calloway" };
   const now = Date.now();
-  const [open] = await tx
-    .insert(tenders)
-    .values({
-      reference: "RC-2027-001",
-      title: "River-level gauge radios",
-      description:
-        "Sub-GHz telemetry radios for 4,000 river-level gauges. Hard-decision receivers; frames of at most 2,048 bits to keep latency low.",
-      channelModel: "bsc",
-      operatingPoints: [
-        { label: "Clear weather", value: 1e-3 },
-        { label: "Storm fade", value: 5e-3 },
-      ],
-      targetMetric: "bler",
-      targetValue: 1e-4,
-      maxFrameBits: 2048,
-      quantity: 4000,
-      currency: "EUR",
-      weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
-      impossibleRule: "disqualify",
-      closesAt: new Date(now + 21 * DAY),
-      closesZone: "Europe/London",
-      openedAt: new Date(now - 3 * DAY),
-      state: "open",
-      createdBy: buyer.id,
-    })
-    .returning();
-  await tx
-    .insert(tenderInvitations)
-    .values((["kestrelink", "marram", "oxbow", "quillfield"] as const).map((k) => ({ tenderId: open.id, organisationId: orgIds[k] })));
-  await appendLedger(tx, { tenderId: open.id, actor: buyer, action: "tender.created", subjectType: "Tender", subjectId: open.id, data: { reference: open.reference } });
-  await appendLedger(tx, { tenderId: open.id, actor: buyer, action: "tender.opened", subjectType: "Tender", subjectId: open.id, data: { invited: 4 } });
+  const vendors = ["kestrelink", "marram", "oxbow", "quillfield"] as const;
 
-  const [draft] = await tx
-    .insert(tenders)
-    .values({
-      reference: "RC-2027-002",
-      title: "Rain-gauge uplink radios, phase 2",
-      description: "Soft-decision uplink for hill-top rain gauges; two link-budget cases.",
-      channelModel: "biawgn",
-      operatingPoints: [
-        { label: "Nominal link", value: 3 },
-        { label: "Edge of coverage", value: 2 },
-      ],
-      targetMetric: "ber",
-      targetValue: 1e-6,
-      maxFrameBits: 4096,
-      quantity: 1200,
-      currency: "EUR",
-      weights: { technical: 45, evidence: 10, price: 30, leadTime: 10, warranty: 5 },
-      impossibleRule: "penalty",
-      impossiblePenalty: 25,
-      closesAt: new Date(now + 45 * DAY),
-      closesZone: "Europe/London",
-      createdBy: buyer.id,
-    })
-    .returning();
-  await tx.insert(tenderInvitations).values([{ tenderId: draft.id, organisationId: orgIds.oxbow }, { tenderId: draft.id, organisationId: orgIds.quillfield }]);
-  await appendLedger(tx, { tenderId: draft.id, actor: buyer, action: "tender.created", subjectType: "Tender", subjectId: draft.id, data: { reference: draft.reference } });
+  const gauges = await insertTender(tx, buyer, vendors.map((v) => orgIds[v]), {
+    reference: "RC-2027-001",
+    title: "River-level gauge radios",
+    description:
+      "Sub-GHz telemetry radios for 4,000 river-level gauges. Hard-decision receivers; frames of at most 2,048 bits to keep latency low.",
+    channelModel: "bsc",
+    operatingPoints: [
+      { label: "Clear weather", value: 1e-3 },
+      { label: "Storm fade", value: 5e-3 },
+    ],
+    targetMetric: "bler",
+    targetValue: 1e-4,
+    maxFrameBits: 2048,
+    quantity: 4000,
+    currency: "EUR",
+    weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
+    impossibleRule: "disqualify",
+    openedAt: new Date(now - 30 * DAY),
+    closesAt: new Date(now - 2 * DAY),
+    closesZone: "Europe/London",
+    state: "technical",
+  });
+
+  const weirs = await insertTender(tx, buyer, vendors.map((v) => orgIds[v]), {
+    reference: "RC-2027-003",
+    title: "Weir telemetry links",
+    description: "Radios for flow gauges at weirs, hard-decision, longer frames allowed.",
+    channelModel: "bsc",
+    operatingPoints: [{ label: "Typical path", value: 2e-3 }],
+    targetMetric: "bler",
+    targetValue: 1e-5,
+    maxFrameBits: 8192,
+    quantity: 600,
+    currency: "EUR",
+    weights: { technical: 40, evidence: 10, price: 35, leadTime: 10, warranty: 5 },
+    impossibleRule: "penalty",
+    impossiblePenalty: 20,
+    openedAt: new Date(now - 5 * DAY),
+    closesAt: new Date(now + 14 * DAY),
+    closesZone: "Europe/London",
+    state: "open",
+  });
+
+  const rain = await insertTender(tx, buyer, [orgIds.oxbow, orgIds.quillfield], {
+    reference: "RC-2027-002",
+    title: "Rain-gauge uplink radios, phase 2",
+    description: "Soft-decision uplink for hill-top rain gauges; two link-budget cases.",
+    channelModel: "biawgn",
+    operatingPoints: [
+      { label: "Nominal link", value: 3 },
+      { label: "Edge of coverage", value: 2 },
+    ],
+    targetMetric: "ber",
+    targetValue: 1e-6,
+    maxFrameBits: 4096,
+    quantity: 1200,
+    currency: "EUR",
+    weights: { technical: 45, evidence: 10, price: 30, leadTime: 10, warranty: 5 },
+    impossibleRule: "penalty",
+    impossiblePenalty: 25,
+    closesAt: new Date(now + 45 * DAY),
+    closesZone: "Europe/London",
+    state: "draft",
+  });
+
+  const ctx: DemoContext = { orgIds, userIds, tenderIds: { gauges, weirs, rain }, now };
+  await seedDemoOffers(tx, ctx);
+  await seedDemoReview(tx, ctx);
+}
+
+type TenderValues = Omit<typeof tenders.$inferInsert, "createdBy">;
+
+/** A demo tender with its invitations and the ledger entries its state implies. */
+async function insertTender(tx: Queryable, buyer: { id: string; label: string }, invited: string[], values: TenderValues) {
+  const [row] = await tx.insert(tenders).values({ ...values, createdBy: buyer.id }).returning();
+  await tx.insert(tenderInvitations).values(invited.map((organisationId) => ({ tenderId: row.id, organisationId })));
+  const entry = (action: string, data: Record<string, unknown> = {}) =>
+    appendLedger(tx, { tenderId: row.id, actor: buyer, action, subjectType: "Tender", subjectId: row.id, data });
+  await entry("tender.created", { reference: row.reference });
+  if (row.state !== "draft") await entry("tender.opened", { invited: invited.length });
+  if (row.state === "technical") {
+    await appendLedger(tx, { tenderId: row.id, actor: null, action: "tender.closed", subjectType: "Tender", subjectId: row.id, data: {} });
+  }
+  return row.id;
 }

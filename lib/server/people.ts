@@ -6,10 +6,8 @@ import { organisations, sessions, userRoles, users, type RoleName } from "@/db/s
 import type { CreateUserInput, UpdateUserInput } from "@/lib/validation/people";
 import { appendLedger } from "./ledger";
 import { insertUser, loadUser, rolesByUser } from "./people-store";
-import { authorize, type Viewer } from "./session";
+import { authorize, ledgerActor, type Viewer } from "./session";
 import { InputError, NotFoundError } from "./errors";
-
-const actorOf = (viewer: Viewer) => ({ id: viewer.actor.id, label: viewer.name });
 
 /** People and their organisations, for the People page. Never includes password material. */
 export async function listPeople(viewer: Viewer) {
@@ -71,7 +69,7 @@ export async function createUser(viewer: Viewer, input: CreateUserInput) {
   return db.transaction(async (tx) => {
     const user = await insertUser(tx, { ...input, email });
     await appendLedger(tx, {
-      actor: actorOf(viewer),
+      actor: ledgerActor(viewer),
       action: "user.created",
       subjectType: "User",
       subjectId: user.id,
@@ -97,7 +95,7 @@ export async function updateUser(viewer: Viewer, userId: string, input: UpdateUs
   if (input.approvalLimit !== undefined) authorize(viewer, "update", subject);
 
   await db.transaction(async (tx) => {
-    const actor = actorOf(viewer);
+    const actor = ledgerActor(viewer);
     if (input.roles) {
       const roles = [...new Set(input.roles)].sort();
       await tx.delete(userRoles).where(eq(userRoles.userId, userId));
@@ -125,7 +123,7 @@ export async function createOrganisation(viewer: Viewer, input: { name: string; 
   if (taken) throw new InputError("An organisation of that name exists.", { name: ["Already in use."] });
   return db.transaction(async (tx) => {
     const [org] = await tx.insert(organisations).values({ name: input.name, kind: "vendor", country: input.country ?? null }).returning();
-    await appendLedger(tx, { actor: actorOf(viewer), action: "organisation.created", subjectType: "Organisation", subjectId: org.id, data: { name: org.name } });
+    await appendLedger(tx, { actor: ledgerActor(viewer), action: "organisation.created", subjectType: "Organisation", subjectId: org.id, data: { name: org.name } });
     return org;
   });
 }

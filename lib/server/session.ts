@@ -62,3 +62,6 @@ export function authorize(
   const reason = viewer.ability.relevantRuleFor(action, subject)?.reason;
   throw new ForbiddenError(message ?? reason);
 }
+
+/** The viewer as the ledger names them. */
+export const ledgerActor = (viewer: Viewer) => ({ id: viewer.actor.id, label: viewer.name });
