@@ -12,6 +12,7 @@ const sans = localFont({
 export const metadata: Metadata = {
   title: { default: "Ratecourt", template: "%s · Ratecourt" },
   description: "Tenders for radio modules, with every coding claim checked against the limits of channel coding.",
+  icons: { icon: "/favicon.svg" },
 };
 
 export default function RootLayout({ children }: { children: React.ReactNode }) {
