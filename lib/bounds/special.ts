@@ -100,7 +100,7 @@ export function qInvLog(lnEps: number): number {
 export const LOG10_ZERO = -Number.MAX_VALUE;
 export function toLog10(lnValue: number): number {
   if (lnValue === -Infinity) return LOG10_ZERO;
-  return lnValue * LOG10E;
+  return lnValue * LOG10E + 0; // + 0 turns -0 into 0
 }
 
 /**
