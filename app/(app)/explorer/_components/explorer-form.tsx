@@ -1,0 +1,55 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState, useTransition } from "react";
+import { EXPLORER_DEFAULTS, type ExplorerView } from "@/lib/validation/explorer";
+
+const PARAMETER = { bsc: "Raw BER p", bec: "Erasure probability e", biawgn: "Eb/N0 (dB)" } as const;
+
+/** The explorer's inputs; applying them writes the view into the address so it can be shared. */
+export function ExplorerForm({ view }: { view: ExplorerView }) {
+  const router = useRouter();
+  const [pending, startTransition] = useTransition();
+  const [model, setModel] = useState(view.model);
+  const [values, setValues] = useState({ x: String(view.x), n: String(view.n), k: String(view.k), target: String(view.target) });
+  const set = (key: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement>) => setValues({ ...values, [key]: e.target.value });
+  const apply = (next = values, nextModel = model) =>
+    startTransition(() => router.push(`/explorer?${new URLSearchParams({ model: nextModel, ...next }).toString()}`, { scroll: false }));
+
+  return (
+    <form
+      className="panel flex flex-wrap items-end gap-4"
+      aria-label="Channel and code"
+      onSubmit={(e) => {
+        e.preventDefault();
+        apply();
+      }}
+    >
+      <div>
+        <label className="label" htmlFor="ex-model">Channel</label>
+        <select
+          id="ex-model"
+          className="field"
+          value={model}
+          onChange={(e) => {
+            const next = e.target.value as ExplorerView["model"];
+            const d = EXPLORER_DEFAULTS[next];
+            const nextValues = { x: String(d.x), n: String(d.n), k: String(d.k), target: values.target };
+            setModel(next);
+            setValues(nextValues);
+            apply(nextValues, next);
+          }}
+        >
+          <option value="bsc">Hard decision (BSC)</option>
+          <option value="bec">Erasures (BEC)</option>
+          <option value="biawgn">Soft decision (BI-AWGN)</option>
+        </select>
+      </div>
+      <div className="w-40"><label className="label" htmlFor="ex-x">{PARAMETER[model]}</label><input id="ex-x" className="field" inputMode="decimal" value={values.x} onChange={set("x")} /></div>
+      <div className="w-32"><label className="label" htmlFor="ex-n">n (bits)</label><input id="ex-n" className="field" inputMode="numeric" value={values.n} onChange={set("n")} /></div>
+      <div className="w-32"><label className="label" htmlFor="ex-k">k (bits)</label><input id="ex-k" className="field" inputMode="numeric" value={values.k} onChange={set("k")} /></div>
+      <div className="w-32"><label className="label" htmlFor="ex-target">Target BLER</label><input id="ex-target" className="field" inputMode="decimal" value={values.target} onChange={set("target")} /></div>
+      <button type="submit" className="btn" disabled={pending}>{pending ? "Computing…" : "Show"}</button>
+    </form>
+  );
+}

@@ -1,0 +1,61 @@
+import type { Metadata } from "next";
+import { Cautions } from "@/app/_components/cautions";
+import { ChannelChart, RateChart } from "@/app/_components/bound-charts";
+import { VerdictBadge } from "@/app/_components/verdict-badge";
+import { buildBoundCharts } from "@/lib/explorer";
+import { formatSci } from "@/lib/format";
+import { pageViewer, orPage } from "@/lib/server/pages";
+import { authorize } from "@/lib/server/session";
+import { describeZodError } from "@/lib/validation/messages";
+import { EXPLORER_DEFAULTS, explorerSchema } from "@/lib/validation/explorer";
+import { ExplorerForm } from "./_components/explorer-form";
+import { BoundNumbers } from "./_components/bound-numbers";
+
+export const metadata: Metadata = { title: "Bound explorer" };
+
+export default async function ExplorerPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const viewer = await pageViewer();
+  await orPage(Promise.resolve().then(() => authorize(viewer, "use", "Bounds")));
+  const raw = await searchParams;
+  const parsed = explorerSchema.safeParse(raw);
+  const view = parsed.success
+    ? parsed.data
+    : { model: "bsc" as const, ...EXPLORER_DEFAULTS.bsc, target: 1e-4 };
+  const charts = buildBoundCharts(view);
+  return (
+    <div className="space-y-5">
+      <div>
+        <h1>Bound explorer</h1>
+        <p className="text-sm text-ink-soft">
+          What any code of length n carrying k bits can do on a channel: the least possible block error rate, what a random
+          code is guaranteed to reach, and the normal approximation. The view lives in the address: copy it to share.
+        </p>
+      </div>
+      {!parsed.success ? (
+        <p role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
+          {describeZodError(parsed.error)}. Showing the default view instead.
+        </p>
+      ) : null}
+      <ExplorerForm view={view} />
+      <section className="panel space-y-2" aria-label="Verdict for this point">
+        <div className="flex flex-wrap items-center gap-3">
+          <VerdictBadge verdict={charts.result.verdict} />
+          <span className="text-sm">
+            Rate {charts.result.rate.toFixed(4)} bits per channel use, capacity {charts.result.capacity.toFixed(4)}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
+          </span>
+        </div>
+        <ul className="list-disc space-y-1 pl-5 text-sm">
+          {charts.result.findings.map((f) => (
+            <li key={f.code}>{f.message} <span className="text-xs text-ink-faint">({f.source})</span></li>
+          ))}
+        </ul>
+      </section>
+      <div className="grid gap-5 lg:grid-cols-2">
+        <section className="panel"><h2>Block error rate against the channel</h2><ChannelChart charts={charts} /></section>
+        <section className="panel"><h2>Best rate against block length at BLER {formatSci(view.target)}</h2><RateChart charts={charts} /></section>
+      </div>
+      <BoundNumbers result={charts.result} />
+      <Cautions />
+    </div>
+  );
+}

@@ -1,0 +1,45 @@
+import {
+  channelCurve,
+  ebn0ToEsn0,
+  evaluateClaim,
+  rateCurve,
+  type ChannelCurvePoint,
+  type ClaimResult,
+  type RateCurvePoint,
+} from "@/lib/bounds";
+
+export type ChannelModel = "bsc" | "bec" | "biawgn";
+
+export interface BoundView {
+  model: ChannelModel;
+  /** p, e, or Eb/N0 in dB. */
+  x: number;
+  n: number;
+  k: number;
+  /** Target block error rate. */
+  target: number;
+}
+
+export interface BoundCharts {
+  view: BoundView;
+  result: ClaimResult;
+  channel: ChannelCurvePoint[];
+  rate: RateCurvePoint[];
+}
+
+const channelOf = (model: ChannelModel, x: number) =>
+  model === "bsc" ? { model, p: x } : model === "bec" ? { model, e: x } : { model, ebn0Db: x };
+
+/** Everything the bound charts plot for one code and channel: the verdict, BLER against the channel, best rate against n. */
+export function buildBoundCharts(view: BoundView): BoundCharts {
+  const result = evaluateClaim({
+    channel: channelOf(view.model, view.x),
+    code: { n: view.n, k: view.k },
+    target: { metric: "bler", value: view.target },
+  } as Parameters<typeof evaluateClaim>[0]);
+  // The charts span the claim's own point as well as the waterfall.
+  const channel = channelCurve({ model: view.model, n: view.n, k: view.k, points: 48 });
+  const x = view.model === "biawgn" ? ebn0ToEsn0(view.x, view.k / view.n) : view.x;
+  const rate = rateCurve({ model: view.model, x, targetBler: view.target, nMin: 16, nMax: Math.max(10_000, view.n * 4), points: 28 });
+  return { view, result, channel, rate };
+}

@@ -1,0 +1,25 @@
+import { expect, test } from "@playwright/test";
+import { ACCOUNTS, signIn } from "./helpers";
+
+test("the Bound explorer keeps its view in the address and judges the point", async ({ page }) => {
+  await signIn(page, ACCOUNTS.engineer);
+  // Rate 0.95 at p = 5e-3 is beyond capacity (1 - h2(0.005) is about 0.954 only asymptotically, and n is short).
+  await page.goto("/explorer?model=bsc&x=0.005&n=2048&k=1946&target=0.000001");
+  await expect(page.getByRole("heading", { name: "Bound explorer" })).toBeVisible();
+  await expect(page.getByRole("region", { name: "Verdict for this point" }).locator("[data-verdict]")).toHaveAttribute("data-verdict", "impossible");
+  await expect(page.getByRole("figure", { name: "Block error rate against the channel" }).locator("svg").first()).toBeVisible();
+  await expect(page.getByRole("figure", { name: "Best rate against block length" }).locator("svg").first()).toBeVisible();
+
+  // A gentler code on the same channel: the form writes the new view into the address.
+  await page.getByLabel("k (bits)").fill("1024");
+  await page.getByRole("button", { name: "Show" }).click();
+  await expect(page).toHaveURL(/k=1024/);
+  await expect(page.getByRole("region", { name: "Verdict for this point" }).locator("[data-verdict]")).toHaveAttribute("data-verdict", "plausible");
+  await expect(page.getByRole("note", { name: "Cautions" }).first()).toBeVisible();
+});
+
+test("a bad view in the address gets a message, not an error page", async ({ page }) => {
+  await signIn(page, ACCOUNTS.buyer);
+  await page.goto("/explorer?model=bsc&x=0.9&n=100&k=200");
+  await expect(page.getByRole("alert").filter({ hasText: "k must be at most n" })).toBeVisible();
+});
