@@ -1,16 +1,18 @@
 import "server-only";
-import { asc, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, lte } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { tenderInvitations, tenders } from "@/db/schema";
-import { listLedger } from "./ledger";
+import { organisations, tenderInvitations, tenders } from "@/db/schema";
+import { appendLedger, listLedger } from "./ledger";
 import { authorize, type Viewer } from "./session";
 import { NotFoundError } from "./errors";
 
 export type TenderRow = typeof tenders.$inferSelect;
 export type TenderWithInvites = TenderRow & { invitedOrgIds: string[] };
+/** A tender as it leaves the server: invitations only of organisations the viewer may read. */
+export type TenderView = TenderWithInvites & { invited: { id: string; name: string }[] };
 
-async function withInvites(db: Queryable, rows: TenderRow[]): Promise<TenderWithInvites[]> {
+export async function withInvites(db: Queryable, rows: TenderRow[]): Promise<TenderWithInvites[]> {
   if (rows.length === 0) return [];
   const invites = await db
     .select()
@@ -25,10 +27,37 @@ async function withInvites(db: Queryable, rows: TenderRow[]): Promise<TenderWith
 export const tenderSubject = (t: TenderWithInvites) =>
   asSubject("Tender", { id: t.id, state: t.state, createdBy: t.createdBy, invitedOrgIds: t.invitedOrgIds });
 
+/**
+ * Closing on read: every open tender whose closing time has come moves to technical evaluation,
+ * with a ledger entry by the system. Cheap when nothing is due (one indexed query). Call it
+ * before anything that depends on a tender being open (reads, and accepting an offer).
+ */
+export async function closeDueTenders(db: Queryable, now = new Date()): Promise<number> {
+  const due = and(eq(tenders.state, "open"), lte(tenders.closesAt, now));
+  const [any] = await db.select({ id: tenders.id }).from(tenders).where(due).limit(1);
+  if (!any) return 0;
+  return db.transaction(async (tx) => {
+    // The state test in the update itself means two requests never close one tender twice.
+    const closed = await tx.update(tenders).set({ state: "technical" }).where(due).returning();
+    for (const t of closed) {
+      await appendLedger(tx, {
+        tenderId: t.id,
+        actor: null,
+        action: "tender.closed",
+        subjectType: "Tender",
+        subjectId: t.id,
+        data: { reference: t.reference, closesAt: t.closesAt.toISOString(), closesZone: t.closesZone, to: "technical" },
+      });
+    }
+    return closed.length;
+  });
+}
+
 /** The tenders this viewer may read, newest first. */
 export async function listTenders(viewer: Viewer): Promise<TenderWithInvites[]> {
   authorize(viewer, "read", "Tender");
   const db = await getDb();
+  await closeDueTenders(db);
   const rows = await withInvites(db, await db.select().from(tenders).orderBy(desc(tenders.createdAt), asc(tenders.reference)));
   return rows.filter((t) => viewer.ability.can("read", tenderSubject(t)));
 }
@@ -36,11 +65,42 @@ export async function listTenders(viewer: Viewer): Promise<TenderWithInvites[]> 
 /** One tender; 404 when it does not exist, 403 when this viewer may not see it. */
 export async function getTender(viewer: Viewer, id: string): Promise<TenderWithInvites> {
   const db = await getDb();
+  await closeDueTenders(db);
   const [row] = await db.select().from(tenders).where(eq(tenders.id, id));
   if (!row) throw new NotFoundError("No such tender.");
   const [tender] = await withInvites(db, [row]);
   authorize(viewer, "read", tenderSubject(tender), "You are not invited to this tender.");
   return tender;
+}
+
+/** Strips the invitations down to the organisations this viewer may read: a vendor sees only its own. */
+async function viewsOf(viewer: Viewer, list: TenderWithInvites[]): Promise<TenderView[]> {
+  const ids = [...new Set(list.flatMap((t) => t.invitedOrgIds))];
+  const db = await getDb();
+  const orgs = ids.length ? await db.select().from(organisations).where(inArray(organisations.id, ids)) : [];
+  const readable = new Map(
+    orgs
+      .filter((o) => viewer.ability.can("read", asSubject("Organisation", { id: o.id, kind: o.kind })))
+      .map((o) => [o.id, o.name]),
+  );
+  return list.map((t) => {
+    const invited = t.invitedOrgIds
+      .filter((id) => readable.has(id))
+      .map((id) => ({ id, name: readable.get(id)! }))
+      .sort((a, b) => a.name.localeCompare(b.name));
+    return { ...t, invitedOrgIds: invited.map((o) => o.id), invited };
+  });
+}
+
+/** listTenders, fit to send out (API, pages that show invitations). */
+export async function listTenderViews(viewer: Viewer): Promise<TenderView[]> {
+  return viewsOf(viewer, await listTenders(viewer));
+}
+
+/** getTender, fit to send out. */
+export async function getTenderView(viewer: Viewer, id: string): Promise<TenderView> {
+  const [view] = await viewsOf(viewer, [await getTender(viewer, id)]);
+  return view;
 }
 
 export async function getTenderLedger(viewer: Viewer, tenderId: string) {

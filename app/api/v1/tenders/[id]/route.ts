@@ -1,7 +1,17 @@
-import { jsonRoute } from "@/lib/server/http";
+import { jsonRoute, readJson } from "@/lib/server/http";
 import { requireViewer } from "@/lib/server/session";
-import { getTender } from "@/lib/server/tenders";
+import { updateTender } from "@/lib/server/tender-lifecycle";
+import { getTenderView } from "@/lib/server/tenders";
+import { tenderPatchSchema } from "@/lib/validation/tender";
 
-export const GET = jsonRoute(async (request, { params }: { params: Promise<{ id: string }> }) =>
-  getTender(await requireViewer(request.headers), (await params).id),
+type Context = { params: Promise<{ id: string }> };
+
+export const GET = jsonRoute(async (request, { params }: Context) =>
+  getTenderView(await requireViewer(request.headers), (await params).id),
 );
+
+export const PATCH = jsonRoute(async (request, { params }: Context) => {
+  const viewer = await requireViewer(request.headers);
+  const patch = await readJson(request, tenderPatchSchema);
+  return updateTender(viewer, (await params).id, patch);
+});

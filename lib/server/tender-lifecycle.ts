@@ -1,0 +1,181 @@
+import "server-only";
+import { and, eq, inArray, like, sql } from "drizzle-orm";
+import { asSubject } from "@/policies";
+import { getDb, type Queryable } from "@/db/client";
+import { organisations, tenderInvitations, tenders } from "@/db/schema";
+import { changedFields, draftInput, draftValues } from "@/lib/tenders/draft";
+import { cancellationNotice, invitationNotice } from "@/lib/tenders/notices";
+import { nextReference } from "@/lib/tenders/reference";
+import { editProblem, moveProblem, openingProblems } from "@/lib/tenders/states";
+import { tenderInputSchema, type CancelTenderInput, type TenderInput, type TenderPatch } from "@/lib/validation/tender";
+import { describeZodError, fieldErrorsOf } from "@/lib/validation/messages";
+import { appUrl } from "./auth";
+import { appendLedger } from "./ledger";
+import { addressesOf, addressesWithRole, notify } from "./notify";
+import { authorize, ledgerActor, type Viewer } from "./session";
+import { getTender, tenderSubject, withInvites, type TenderWithInvites } from "./tenders";
+import { ConflictError, InputError } from "./errors";
+
+// Serialises reference numbering so that two drafts never take the same sequence.
+const REFERENCE_LOCK = 72_011_950;
+
+/** Invitations go to vendor organisations only. */
+async function checkInvitations(db: Queryable, ids: string[]) {
+  if (ids.length === 0) return;
+  const found = await db.select().from(organisations).where(inArray(organisations.id, ids));
+  const vendors = new Set(found.filter((o) => o.kind === "vendor").map((o) => o.id));
+  if (ids.some((id) => !vendors.has(id))) {
+    throw new InputError("Only vendor organisations can be invited.", { invitedOrgIds: ["Choose vendor organisations only."] });
+  }
+}
+
+async function reload(db: Queryable, id: string): Promise<TenderWithInvites> {
+  const [row] = await db.select().from(tenders).where(eq(tenders.id, id));
+  return (await withInvites(db, [row]))[0];
+}
+
+/** A new draft, numbered RC-<year>-<sequence>, created by the buyer. */
+export async function createTender(viewer: Viewer, input: TenderInput): Promise<TenderWithInvites> {
+  authorize(viewer, "create", asSubject("Tender", { id: "", state: "draft", createdBy: viewer.actor.id, invitedOrgIds: input.invitedOrgIds }));
+  const db = await getDb();
+  await checkInvitations(db, input.invitedOrgIds);
+  const id = await db.transaction(async (tx) => {
+    await tx.execute(sql`select pg_advisory_xact_lock(${REFERENCE_LOCK})`);
+    const year = new Date().getUTCFullYear();
+    const taken = await tx.select({ reference: tenders.reference }).from(tenders).where(like(tenders.reference, `RC-${year}-%`));
+    const reference = nextReference(taken.map((t) => t.reference), year);
+    const [row] = await tx.insert(tenders).values({ ...draftValues(input), reference, state: "draft", createdBy: viewer.actor.id }).returning();
+    if (input.invitedOrgIds.length) {
+      await tx.insert(tenderInvitations).values(input.invitedOrgIds.map((organisationId) => ({ tenderId: row.id, organisationId })));
+    }
+    await appendLedger(tx, {
+      tenderId: row.id,
+      actor: ledgerActor(viewer),
+      action: "tender.created",
+      subjectType: "Tender",
+      subjectId: row.id,
+      data: { reference, title: row.title, invitedOrgIds: [...input.invitedOrgIds].sort() },
+    });
+    return row.id;
+  });
+  return reload(db, id);
+}
+
+/**
+ * Changes a draft. The role is checked first (403), then the state (409: locked once open),
+ * then the record; the merged draft is checked whole, so a partial change cannot break it.
+ */
+export async function updateTender(viewer: Viewer, id: string, patch: TenderPatch): Promise<TenderWithInvites> {
+  const tender = await getTender(viewer, id);
+  authorize(viewer, "update", "Tender", "Only the buying team edits tenders.");
+  const locked = editProblem(tender.state);
+  if (locked) throw new ConflictError(locked);
+  authorize(viewer, "update", tenderSubject(tender));
+
+  const before = draftInput(tender);
+  const parsed = tenderInputSchema.safeParse({ ...before, ...patch });
+  if (!parsed.success) throw new InputError(describeZodError(parsed.error), fieldErrorsOf(parsed.error));
+  const after = parsed.data;
+  const db = await getDb();
+  await checkInvitations(db, after.invitedOrgIds);
+  const changes = changedFields(before, after);
+  if (Object.keys(changes).length === 0) return tender;
+
+  await db.transaction(async (tx) => {
+    const updated = await tx
+      .update(tenders)
+      .set(draftValues(after))
+      .where(and(eq(tenders.id, id), eq(tenders.state, "draft")))
+      .returning({ id: tenders.id });
+    if (updated.length === 0) throw new ConflictError("The tender left the draft state meanwhile: nothing was changed.");
+    if (changes.invitedOrgIds) {
+      await tx.delete(tenderInvitations).where(eq(tenderInvitations.tenderId, id));
+      if (after.invitedOrgIds.length) {
+        await tx.insert(tenderInvitations).values(after.invitedOrgIds.map((organisationId) => ({ tenderId: id, organisationId })));
+      }
+    }
+    await appendLedger(tx, {
+      tenderId: id,
+      actor: ledgerActor(viewer),
+      action: "tender.updated",
+      subjectType: "Tender",
+      subjectId: id,
+      data: { reference: tender.reference, fields: Object.keys(changes).sort(), changes },
+    });
+  });
+  return reload(db, id);
+}
+
+/** Draft -> open: locks requirements and weights, and invites the vendors by e-mail. */
+export async function openTender(viewer: Viewer, id: string): Promise<TenderWithInvites> {
+  const tender = await getTender(viewer, id);
+  authorize(viewer, "open", "Tender", "Only the buying team opens tenders.");
+  const problems = openingProblems(tender, new Date());
+  if (problems.length) throw new ConflictError(`The tender cannot open yet. ${problems.join(" ")}`);
+  authorize(viewer, "open", tenderSubject(tender));
+
+  const db = await getDb();
+  const opened = await db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(tenders)
+      .set({ state: "open", openedAt: new Date() })
+      .where(and(eq(tenders.id, id), eq(tenders.state, "draft")))
+      .returning();
+    if (!row) throw new ConflictError("The tender is no longer a draft.");
+    await appendLedger(tx, {
+      tenderId: id,
+      actor: ledgerActor(viewer),
+      action: "tender.opened",
+      subjectType: "Tender",
+      subjectId: id,
+      data: {
+        reference: row.reference,
+        invitedOrgIds: [...tender.invitedOrgIds].sort(),
+        closesAt: row.closesAt.toISOString(),
+        closesZone: row.closesZone,
+        weights: row.weights,
+      },
+    });
+    return row;
+  });
+
+  const addresses = await addressesOf(db, tender.invitedOrgIds);
+  const notice = invitationNotice(opened, appUrl());
+  notify(addresses.map((address) => ({ to: [address], ...notice })));
+  return reload(db, id);
+}
+
+/** Any state before the award -> cancelled, with the reason told to the vendors and the buying team. */
+export async function cancelTender(viewer: Viewer, id: string, input: CancelTenderInput): Promise<TenderWithInvites> {
+  const tender = await getTender(viewer, id);
+  authorize(viewer, "cancel", "Tender", "Only the buying team cancels tenders.");
+  const problem = moveProblem(tender.state, "cancelled");
+  if (problem) throw new ConflictError(problem);
+  authorize(viewer, "cancel", tenderSubject(tender));
+
+  const db = await getDb();
+  const cancelled = await db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(tenders)
+      .set({ state: "cancelled", cancelReason: input.reason })
+      .where(and(eq(tenders.id, id), eq(tenders.state, tender.state)))
+      .returning();
+    if (!row) throw new ConflictError("The tender changed state meanwhile: try again.");
+    await appendLedger(tx, {
+      tenderId: id,
+      actor: ledgerActor(viewer),
+      action: "tender.cancelled",
+      subjectType: "Tender",
+      subjectId: id,
+      data: { reference: row.reference, from: tender.state, reason: input.reason },
+    });
+    return row;
+  });
+
+  // Vendors heard of the tender only if it was opened; a cancelled draft concerns the buying team alone.
+  const vendors = tender.state === "draft" ? [] : await addressesOf(db, tender.invitedOrgIds);
+  const team = await addressesWithRole(db, "buyer");
+  const notice = cancellationNotice(cancelled, input.reason, appUrl());
+  notify([...new Set([...vendors, ...team])].map((address) => ({ to: [address], ...notice })));
+  return reload(db, id);
+}

@@ -1,0 +1,89 @@
+import type { tenders } from "@/db/schema";
+import type { TenderInput } from "@/lib/validation/tender";
+import { canonicalJson } from "@/lib/ledger/chain";
+import { closingInstant, closingLocal, DEFAULT_ZONE } from "./closing";
+
+type TenderRow = typeof tenders.$inferSelect;
+/** The columns a buyer writes in a draft. */
+export type DraftValues = Pick<
+  TenderRow,
+  | "title" | "description" | "channelModel" | "operatingPoints" | "targetMetric" | "targetValue" | "maxFrameBits"
+  | "quantity" | "currency" | "weights" | "impossibleRule" | "impossiblePenalty" | "closesAt" | "closesZone"
+>;
+
+/** The columns of a draft from the form's values; the closing time becomes a UTC instant. */
+export function draftValues(input: TenderInput): DraftValues {
+  return {
+    title: input.title,
+    description: input.description,
+    channelModel: input.channelModel,
+    operatingPoints: input.operatingPoints.map((p) => ({ label: p.label, value: p.value })),
+    targetMetric: input.targetMetric,
+    targetValue: input.targetValue,
+    maxFrameBits: input.maxFrameBits ?? null,
+    quantity: input.quantity,
+    currency: input.currency,
+    weights: { ...input.weights },
+    impossibleRule: input.impossibleRule,
+    impossiblePenalty: input.impossibleRule === "penalty" ? input.impossiblePenalty : 0,
+    closesAt: closingInstant(input.closesLocal, input.closesZone),
+    closesZone: input.closesZone,
+  };
+}
+
+/** The form's values for a stored tender (to edit it, or to merge a partial change into it). */
+export function draftInput(row: DraftValues & { invitedOrgIds: string[] }): TenderInput {
+  return {
+    title: row.title,
+    description: row.description,
+    channelModel: row.channelModel,
+    operatingPoints: row.operatingPoints.map((p) => ({ label: p.label, value: p.value })),
+    targetMetric: row.targetMetric,
+    targetValue: row.targetValue,
+    maxFrameBits: row.maxFrameBits,
+    quantity: row.quantity,
+    currency: row.currency,
+    weights: { ...row.weights },
+    impossibleRule: row.impossibleRule,
+    impossiblePenalty: row.impossiblePenalty,
+    closesLocal: closingLocal(row.closesAt, row.closesZone),
+    closesZone: row.closesZone,
+    invitedOrgIds: [...row.invitedOrgIds],
+  };
+}
+
+/** A new form's starting values: one week ahead at noon, the usual weights. */
+export function blankDraftInput(now: Date): TenderInput {
+  const inAWeek = closingLocal(new Date(now.getTime() + 7 * 86_400_000), DEFAULT_ZONE).slice(0, 10);
+  return {
+    title: "",
+    description: "",
+    channelModel: "bsc",
+    operatingPoints: [{ label: "", value: 1e-3 }],
+    targetMetric: "bler",
+    targetValue: 1e-4,
+    maxFrameBits: null,
+    quantity: 1,
+    currency: "EUR",
+    weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
+    impossibleRule: "disqualify",
+    impossiblePenalty: 0,
+    closesLocal: `${inAWeek}T12:00`,
+    closesZone: DEFAULT_ZONE,
+    invitedOrgIds: [],
+  };
+}
+
+// Invitations are a set; jsonb reorders object keys: neither counts as a change.
+const isStringList = (value: unknown): value is string[] => Array.isArray(value) && value.every((v) => typeof v === "string");
+const comparable = (value: unknown): string =>
+  value instanceof Date ? value.toISOString() : canonicalJson(isStringList(value) ? [...value].sort() : value);
+
+/** The fields whose value differs, each with its old and new value, for the ledger. */
+export function changedFields<T extends object>(before: T, after: T): Partial<Record<keyof T, { from: unknown; to: unknown }>> {
+  const changes: Partial<Record<keyof T, { from: unknown; to: unknown }>> = {};
+  for (const key of Object.keys(after) as (keyof T)[]) {
+    if (comparable(before[key]) !== comparable(after[key])) changes[key] = { from: before[key], to: after[key] };
+  }
+  return changes;
+}

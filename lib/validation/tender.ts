@@ -1,0 +1,98 @@
+import { z } from "zod";
+import { isValidZone, LOCAL_DATE_TIME, localTimeExists } from "@/lib/tenders/closing";
+
+export const CHANNEL_MODELS = ["bsc", "bec", "biawgn"] as const;
+export type ChannelModelName = (typeof CHANNEL_MODELS)[number];
+
+/** The channel condition each model accepts at an operating point, with its words for the form. */
+export const CONDITION_RANGES: Record<ChannelModelName, { min: number; max: number; minOpen: boolean; maxOpen: boolean; words: string }> = {
+  bsc: { min: 0, max: 0.5, minOpen: true, maxOpen: false, words: "raw BER p must be above 0 and at most 0.5" },
+  bec: { min: 0, max: 1, minOpen: true, maxOpen: true, words: "erasure probability e must be between 0 and 1" },
+  biawgn: { min: -5, max: 20, minOpen: false, maxOpen: false, words: "Eb/N0 must be from -5 to 20 dB" },
+};
+
+export function conditionInRange(model: ChannelModelName, value: number): boolean {
+  const r = CONDITION_RANGES[model];
+  if (!Number.isFinite(value)) return false;
+  const aboveMin = r.minOpen ? value > r.min : value >= r.min;
+  const belowMax = r.maxOpen ? value < r.max : value <= r.max;
+  return aboveMin && belowMax;
+}
+
+const num = (what: string) => z.number({ error: `Enter ${what} as a number.` });
+
+export const operatingPointSchema = z.object({
+  label: z.string().trim().min(1, "Name the operating point.").max(80),
+  value: num("the channel condition"),
+});
+
+export const WEIGHT_KEYS = ["technical", "evidence", "price", "leadTime", "warranty"] as const;
+
+export const weightsSchema = z
+  .object(Object.fromEntries(WEIGHT_KEYS.map((k) => [k, num("the weight").min(0, "Weights are zero or more.").max(1000)])) as Record<(typeof WEIGHT_KEYS)[number], z.ZodNumber>)
+  .refine((w) => WEIGHT_KEYS.reduce((sum, k) => sum + w[k], 0) > 0, "At least one weight must be above zero.");
+
+/** The fields of a tender's requirements, each checked alone (the PATCH body is any part of it). */
+export const tenderFieldsSchema = z.object({
+  title: z.string().trim().min(3, "Give the tender a title.").max(160),
+  description: z.string().trim().max(4000),
+  channelModel: z.enum(CHANNEL_MODELS, { error: "Choose a channel model." }),
+  operatingPoints: z.array(operatingPointSchema).max(12, "At most 12 operating points."),
+  targetMetric: z.enum(["bler", "ber"], { error: "Choose BLER or BER." }),
+  targetValue: num("the residual error").gt(0, "Must be above 0.").lt(1, "Must be below 1."),
+  maxFrameBits: z.number().int("Whole bits.").positive("Must be at least 1 bit.").max(10_000_000).nullable(),
+  quantity: num("the quantity").int("A whole number of units.").positive("At least one unit.").max(100_000_000),
+  currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, "Three letters (ISO 4217), e.g. EUR."),
+  weights: weightsSchema,
+  impossibleRule: z.enum(["disqualify", "penalty"], { error: "Choose what a confirmed impossible claim costs." }),
+  impossiblePenalty: num("the penalty").min(0, "Zero or more points.").max(100, "At most 100 points."),
+  closesLocal: z.string().regex(LOCAL_DATE_TIME, "Enter the closing date and time."),
+  closesZone: z.string().refine(isValidZone, "Choose a time zone."),
+  invitedOrgIds: z.array(z.string().min(1)).max(50).refine((ids) => new Set(ids).size === ids.length, "Each organisation once."),
+});
+
+type Fields = z.infer<typeof tenderFieldsSchema>;
+
+/** The checks that read several fields at once. */
+function crossChecks(value: Fields, ctx: z.RefinementCtx) {
+  value.operatingPoints.forEach((point, i) => {
+    if (!conditionInRange(value.channelModel, point.value)) {
+      ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "value"], message: `Out of range: ${CONDITION_RANGES[value.channelModel].words}.` });
+    }
+  });
+  const labels = value.operatingPoints.map((p) => p.label.toLowerCase());
+  labels.forEach((label, i) => {
+    if (labels.indexOf(label) !== i) ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "label"], message: "Each operating point needs its own name." });
+  });
+  if (value.impossibleRule === "penalty" && value.impossiblePenalty <= 0) {
+    ctx.addIssue({ code: "custom", path: ["impossiblePenalty"], message: "A penalty needs some points." });
+  }
+  if (LOCAL_DATE_TIME.test(value.closesLocal) && isValidZone(value.closesZone) && !localTimeExists(value.closesLocal, value.closesZone)) {
+    ctx.addIssue({ code: "custom", path: ["closesLocal"], message: "That time does not exist in this zone (the clocks go forward)." });
+  }
+}
+
+/** A whole draft, as the form and POST /api/v1/tenders send it; the optional parts have defaults. */
+export const tenderInputSchema = tenderFieldsSchema
+  .extend({
+    description: tenderFieldsSchema.shape.description.default(""),
+    maxFrameBits: tenderFieldsSchema.shape.maxFrameBits.default(null),
+    impossibleRule: tenderFieldsSchema.shape.impossibleRule.default("disqualify"),
+    impossiblePenalty: tenderFieldsSchema.shape.impossiblePenalty.default(0),
+    invitedOrgIds: tenderFieldsSchema.shape.invitedOrgIds.default([]),
+  })
+  .superRefine(crossChecks);
+export type TenderInput = z.infer<typeof tenderInputSchema>;
+/** What the form holds before parsing (the currency may still be lower case). */
+export type TenderFormValues = z.input<typeof tenderInputSchema>;
+
+/** PATCH: any of the fields, no defaults; the server checks the merged draft with tenderInputSchema. */
+export const tenderPatchSchema = tenderFieldsSchema
+  .partial()
+  .refine((v) => Object.keys(v).length > 0, "Send at least one field to change.");
+export type TenderPatch = z.infer<typeof tenderPatchSchema>;
+
+export const cancelTenderSchema = z.object({
+  reason: z.string().trim().min(10, "Say why, in at least 10 characters.").max(2000),
+});
+export type CancelTenderInput = z.infer<typeof cancelTenderSchema>;
