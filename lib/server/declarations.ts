@@ -1,0 +1,71 @@
+import "server-only";
+import { and, eq, inArray } from "drizzle-orm";
+import { asSubject } from "@/policies";
+import { getDb } from "@/db/client";
+import { declarations, organisations } from "@/db/schema";
+import type { DeclarationInput } from "@/lib/validation/review";
+import { ConflictError, InputError } from "./errors";
+import { appendLedger } from "./ledger";
+import { authorize, ledgerActor, type Viewer } from "./session";
+import { getTender, tenderSubject } from "./tenders";
+
+/** The viewer's own declaration on a tender, or null. */
+export async function getDeclaration(viewer: Viewer, tenderId: string) {
+  const db = await getDb();
+  const [row] = await db
+    .select()
+    .from(declarations)
+    .where(and(eq(declarations.tenderId, tenderId), eq(declarations.userId, viewer.actor.id)));
+  if (!row) return null;
+  authorize(viewer, "read", asSubject("Declaration", { tenderId, userId: row.userId }));
+  return row;
+}
+
+/** The invited vendors, by name, that a declaration may name. */
+export async function listDeclarableVendors(viewer: Viewer, tenderId: string) {
+  const tender = await getTender(viewer, tenderId);
+  if (tender.invitedOrgIds.length === 0) return [];
+  const db = await getDb();
+  return db
+    .select({ id: organisations.id, name: organisations.name })
+    .from(organisations)
+    .where(inArray(organisations.id, tender.invitedOrgIds))
+    .orderBy(organisations.name);
+}
+
+/**
+ * Records a conflict-of-interest declaration: once per person and tender, never changed. Until it
+ * exists the person sees no offer of the tender; a named vendor stays hidden from them after it.
+ */
+export async function createDeclaration(viewer: Viewer, tenderId: string, input: DeclarationInput) {
+  const tender = await getTender(viewer, tenderId);
+  authorize(viewer, "declare", tenderSubject(tender), "Engineers and approvers declare on tenders past their draft.");
+  authorize(viewer, "create", asSubject("Declaration", { tenderId, userId: viewer.actor.id }));
+  const named = [...new Set(input.conflictedOrgIds)];
+  const strangers = named.filter((id) => !tender.invitedOrgIds.includes(id));
+  if (strangers.length > 0) {
+    throw new InputError("Name only vendors invited to this tender.", { conflictedOrgIds: ["Not an invited vendor."] });
+  }
+  const db = await getDb();
+  const vendors = await listDeclarableVendors(viewer, tenderId);
+  return db.transaction(async (tx) => {
+    const [existing] = await tx
+      .select({ id: declarations.id })
+      .from(declarations)
+      .where(and(eq(declarations.tenderId, tenderId), eq(declarations.userId, viewer.actor.id)));
+    if (existing) throw new ConflictError("You have already declared on this tender; a declaration cannot be changed.");
+    const [row] = await tx
+      .insert(declarations)
+      .values({ tenderId, userId: viewer.actor.id, conflictedOrgIds: named, statement: input.statement })
+      .returning();
+    await appendLedger(tx, {
+      tenderId,
+      actor: ledgerActor(viewer),
+      action: "declaration.made",
+      subjectType: "Declaration",
+      subjectId: row.id,
+      data: { conflicts: vendors.filter((v) => named.includes(v.id)).map((v) => v.name), statement: input.statement },
+    });
+    return row;
+  });
+}

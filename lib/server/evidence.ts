@@ -1,0 +1,134 @@
+import "server-only";
+import { and, asc, eq } from "drizzle-orm";
+import { asSubject } from "@/policies";
+import { getDb, type Queryable } from "@/db/client";
+import { claims, evidenceRuns, offers, organisations } from "@/db/schema";
+import type { EvidenceResult } from "@/lib/bounds";
+import { assessRun, type EvidenceUnit } from "@/lib/review/evidence";
+import { validateEvidenceRows, type CsvClaim, type CsvReport } from "@/lib/review/csv";
+import type { EvidenceRunInput } from "@/lib/validation/review";
+import { ConflictError, InputError } from "./errors";
+import { appendLedger } from "./ledger";
+import { loadClaim, type LoadedClaim } from "./review";
+import { authorize, ledgerActor, type Viewer } from "./session";
+
+type ClaimRow = typeof claims.$inferSelect;
+const runSubject = (c: Pick<ClaimRow, "id" | "tenderId" | "vendorOrgId">) =>
+  asSubject("EvidenceRun", { claimId: c.id, tenderId: c.tenderId, vendorOrgId: c.vendorOrgId });
+
+export interface NewRun {
+  channelValue: number;
+  unit: EvidenceUnit;
+  trials: number;
+  errors: number;
+  confidence: number;
+  note?: string;
+}
+
+/** Stores one assessed run; the caller's transaction also writes the ledger entry. */
+export async function insertEvidenceRun(
+  tx: Queryable,
+  claim: Pick<ClaimRow, "id" | "tenderId" | "vendorOrgId">,
+  run: NewRun,
+  result: EvidenceResult,
+  by: { userId: string; source: "manual" | "csv" },
+) {
+  const [row] = await tx
+    .insert(evidenceRuns)
+    .values({
+      claimId: claim.id,
+      tenderId: claim.tenderId,
+      vendorOrgId: claim.vendorOrgId,
+      channelValue: run.channelValue,
+      unit: run.unit,
+      trials: run.trials,
+      errors: run.errors,
+      confidence: run.confidence,
+      lower: result.lower,
+      upper: result.upper,
+      status: result.status,
+      errorFreeTrialsNeeded: result.status === "contradicted" ? null : result.errorFreeTrialsNeeded,
+      source: by.source,
+      note: run.note ?? "",
+      recordedBy: by.userId,
+    })
+    .returning();
+  return { ...row, additionalTrialsNeeded: result.additionalTrialsNeeded };
+}
+
+/** Lab runs are recorded while the tender is in technical evaluation, by an engineer declared on it. */
+async function claimForRecording(viewer: Viewer, claimId: string): Promise<LoadedClaim> {
+  const loaded = await loadClaim(viewer, claimId);
+  authorize(viewer, "record", runSubject(loaded.claim), "Only an engineer who has declared on this tender records lab runs.");
+  if (loaded.tender.state !== "technical") throw new ConflictError("Lab runs are recorded only during technical evaluation.");
+  return loaded;
+}
+
+export async function listEvidence(viewer: Viewer, claimId: string) {
+  const { claim } = await loadClaim(viewer, claimId);
+  authorize(viewer, "read", runSubject(claim), "Lab runs belong to the buying team.");
+  const db = await getDb();
+  return db.select().from(evidenceRuns).where(eq(evidenceRuns.claimId, claimId)).orderBy(asc(evidenceRuns.recordedAt));
+}
+
+/** One run typed in by an engineer, with its Clopper-Pearson status against the claim. */
+export async function recordEvidence(viewer: Viewer, claimId: string, input: EvidenceRunInput) {
+  const { claim } = await claimForRecording(viewer, claimId);
+  const assessed = assessRun(claim, input);
+  if (!assessed.ok) throw new InputError(assessed.message, { [assessed.field]: [assessed.message] });
+  const db = await getDb();
+  return db.transaction(async (tx) => {
+    const run = await insertEvidenceRun(tx, claim, input, assessed.result, { userId: viewer.actor.id, source: "manual" });
+    await appendLedger(tx, {
+      tenderId: claim.tenderId,
+      actor: ledgerActor(viewer),
+      action: "evidence.recorded",
+      subjectType: "EvidenceRun",
+      subjectId: run.id,
+      data: { claimId, unit: input.unit, trials: input.trials, errors: input.errors, confidence: input.confidence, status: run.status },
+    });
+    return run;
+  });
+}
+
+export interface ImportOutcome extends Omit<CsvReport, "valid"> {
+  stored: { line: number; id: string; claimId: string; status: string; upper: number }[];
+}
+
+/**
+ * Many runs from a lab's CSV file. Rows name their claim (claim_id, or vendor and point) or fall
+ * to the claim imported on; valid rows are stored together in one transaction, the rest reported.
+ */
+export async function importEvidence(viewer: Viewer, claimId: string, csv: string): Promise<ImportOutcome> {
+  const { claim } = await claimForRecording(viewer, claimId);
+  const db = await getDb();
+  const rows = await db
+    .select({ claim: claims, vendorName: organisations.name })
+    .from(claims)
+    .innerJoin(offers, eq(offers.id, claims.offerId))
+    .innerJoin(organisations, eq(organisations.id, claims.vendorOrgId))
+    .where(and(eq(claims.tenderId, claim.tenderId), eq(offers.status, "submitted")));
+  const recordable: CsvClaim[] = rows
+    .filter((r) => viewer.ability.can("record", runSubject(r.claim)))
+    .map(({ claim: c, vendorName }) => ({ ...c, vendorName }));
+  const report = validateEvidenceRows(csv, recordable, claimId);
+  if (report.fileErrors.length > 0) throw new InputError(report.fileErrors.join(" "), { csv: report.fileErrors });
+  const byId = new Map(rows.map((r) => [r.claim.id, r.claim]));
+  const stored = report.valid.length === 0 ? [] : await db.transaction(async (tx) => {
+    const out: ImportOutcome["stored"] = [];
+    for (const row of report.valid) {
+      const run = await insertEvidenceRun(tx, byId.get(row.claimId)!, row, row.result, { userId: viewer.actor.id, source: "csv" });
+      out.push({ line: row.line, id: run.id, claimId: row.claimId, status: run.status, upper: run.upper });
+    }
+    await appendLedger(tx, {
+      tenderId: claim.tenderId,
+      actor: ledgerActor(viewer),
+      action: "evidence.imported",
+      subjectType: "EvidenceRun",
+      subjectId: null,
+      data: { stored: out.length, rejected: report.rejected.length, claims: [...new Set(out.map((r) => r.claimId))] },
+    });
+    return out;
+  });
+  return { stored, rejected: report.rejected, fileErrors: [] };
+}

@@ -1,0 +1,82 @@
+import { and, eq, inArray } from "drizzle-orm";
+import type { Db } from "@/db/client";
+import { claims, offers, organisations, tenders, users } from "@/db/schema";
+import { evaluateClaim } from "@/lib/bounds";
+
+export const VENDORS = ["kestrelink", "marram", "oxbow", "quillfield"] as const;
+export type VendorKey = (typeof VENDORS)[number];
+const NAMES: Record<VendorKey, string> = {
+  kestrelink: "Kestrelink Radio",
+  marram: "Marram Telemetry",
+  oxbow: "Oxbow Wireless",
+  quillfield: "Quillfield RF",
+};
+const EMAILS: Record<VendorKey, string> = {
+  kestrelink: "sales@kestrelink.example",
+  marram: "offers@marram.example",
+  oxbow: "bids@oxbow.example",
+  quillfield: "tenders@quillfield.example",
+};
+
+// Codes chosen with the engine: Kestrelink's storm-fade claim is beyond the converse, Marram's sits
+// between the converse and the RCU bound (needs evidence), Oxbow and Quillfield are comfortable.
+const CODES: Record<VendorKey, { n: number; k: number; bler: [number, number]; price: number }> = {
+  kestrelink: { n: 2048, k: 1900, bler: [1e-6, 1e-6], price: 38 },
+  marram: { n: 1024, k: 912, bler: [1e-6, 1e-4], price: 44 },
+  oxbow: { n: 1024, k: 512, bler: [1e-4, 1e-4], price: 51 },
+  quillfield: { n: 2048, k: 1536, bler: [1e-4, 1e-4], price: 47 },
+};
+
+export interface ReviewFixtures {
+  tenderId: string;
+  orgIds: Record<VendorKey, string>;
+  /** Claim ids per vendor, in operating-point order. */
+  claimIds: Record<VendorKey, string[]>;
+  /** Marram's claim that needs evidence (BLER at storm fade). */
+  evidenceClaimId: string;
+}
+
+/**
+ * The gauges tender's four offers. Uses the demo seed's offers when they exist; otherwise inserts
+ * them directly, with verdicts from the real engine.
+ */
+export async function reviewFixtures(db: Db): Promise<ReviewFixtures> {
+  const [tender] = await db.select().from(tenders).where(eq(tenders.reference, "RC-2027-001"));
+  const orgRows = await db.select().from(organisations).where(inArray(organisations.name, Object.values(NAMES)));
+  const orgIds = Object.fromEntries(VENDORS.map((v) => [v, orgRows.find((o) => o.name === NAMES[v])!.id])) as Record<VendorKey, string>;
+  const existing = await db.select({ id: claims.id }).from(claims).where(eq(claims.tenderId, tender.id));
+  if (existing.length === 0) {
+    for (const vendor of VENDORS) {
+      const code = CODES[vendor];
+      const [submitter] = await db.select().from(users).where(eq(users.email, EMAILS[vendor]));
+      const [offer] = await db
+        .insert(offers)
+        .values({
+          tenderId: tender.id, vendorOrgId: orgIds[vendor], version: 1, moduleName: `${NAMES[vendor]} G-${code.n}`,
+          partNumber: `${vendor.slice(0, 3).toUpperCase()}-${code.n}`, codeFamily: "LDPC", decision: "hard", n: code.n, k: code.k,
+          rate: code.k / code.n, overhead: code.n / code.k - 1, unitPrice: code.price, currency: "EUR", leadTimeWeeks: 8,
+          warrantyMonths: 24, priceBreaks: [{ minQuantity: 2000, unitPrice: code.price - 2 }], submittedBy: submitter.id,
+        })
+        .returning();
+      for (const [pointIndex, point] of tender.operatingPoints.entries()) {
+        const value = code.bler[pointIndex];
+        const result = evaluateClaim({ channel: { model: "bsc", p: point.value }, code: { n: code.n, k: code.k }, target: { metric: "bler", value } });
+        await db.insert(claims).values({
+          offerId: offer.id, tenderId: tender.id, vendorOrgId: orgIds[vendor], pointIndex, pointLabel: point.label,
+          channelValue: point.value, metric: "bler", value, verdict: result.verdict, result, engineVersion: result.engineVersion,
+        });
+      }
+    }
+  }
+  const rows = await db
+    .select({ claim: claims })
+    .from(claims)
+    .innerJoin(offers, eq(offers.id, claims.offerId))
+    .where(and(eq(claims.tenderId, tender.id), eq(offers.status, "submitted")))
+    .orderBy(claims.pointIndex);
+  const claimIds = Object.fromEntries(
+    VENDORS.map((v) => [v, rows.filter((r) => r.claim.vendorOrgId === orgIds[v]).map((r) => r.claim.id)]),
+  ) as Record<VendorKey, string[]>;
+  const needs = rows.find((r) => r.claim.vendorOrgId === orgIds.marram && r.claim.verdict === "needs-evidence");
+  return { tenderId: tender.id, orgIds, claimIds, evidenceClaimId: needs?.claim.id ?? claimIds.marram[0] };
+}
