@@ -1,0 +1,24 @@
+import { readFile } from "node:fs/promises";
+import path from "node:path";
+
+// The app's own font, shipped with it as an npm package (static weights: WOFF 1, which
+// fontkit subsets into a TrueType font that PDF readers accept; WOFF 2 does not subset).
+const FONT_DIR = ["node_modules", "@fontsource", "inter", "files"];
+export const FONT_FILES = {
+  regular: "inter-latin-400-normal.woff",
+  bold: "inter-latin-600-normal.woff",
+} as const;
+
+const cache = new Map<string, Promise<Uint8Array>>();
+
+/** The bytes of one weight of the memo font, read once per process. */
+export function fontBytes(weight: keyof typeof FONT_FILES): Promise<Uint8Array> {
+  const file = path.join(process.cwd(), ...FONT_DIR, FONT_FILES[weight]);
+  let bytes = cache.get(file);
+  if (!bytes) {
+    bytes = readFile(file).then((buffer) => new Uint8Array(buffer));
+    bytes.catch(() => cache.delete(file));
+    cache.set(file, bytes);
+  }
+  return bytes;
+}
