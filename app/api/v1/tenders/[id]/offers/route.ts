@@ -1,0 +1,16 @@
+import { jsonRoute, readJson } from "@/lib/server/http";
+import { listOffers, submitOffer } from "@/lib/server/offers";
+import { requireViewer } from "@/lib/server/session";
+import { offerSchema } from "@/lib/validation/offer";
+
+type Context = { params: Promise<{ id: string }> };
+
+/** The current offer of each vendor the viewer may read, envelope fields stripped by the policies. */
+export const GET = jsonRoute(async (request, { params }: Context) => listOffers(await requireViewer(request.headers), (await params).id));
+
+/** Submits or resubmits the signed-in vendor's offer; answers with its claims and computed verdicts. */
+export const POST = jsonRoute(async (request, { params }: Context) => {
+  const viewer = await requireViewer(request.headers);
+  const input = await readJson(request, offerSchema);
+  return Response.json(await submitOffer(viewer, (await params).id, input), { status: 201 });
+});

@@ -1,0 +1,72 @@
+// Maps an offer's code and one claim, at one operating point of its tender, to the engine's claim input.
+import type { ClaimInput, ClaimResult } from "@/lib/bounds";
+
+export type ChannelModel = "bsc" | "bec" | "biawgn";
+export type ClaimMetric = "bler" | "ber" | "ncg";
+
+/** The code as an offer states it: n and k, or a rate, or an overhead (n may accompany either). */
+export interface OfferCode {
+  n?: number | null;
+  k?: number | null;
+  rate?: number | null;
+  overhead?: number | null;
+}
+
+export interface OfferClaim {
+  metric: ClaimMetric;
+  /** A BER or BLER, or the net coding gain in dB for "ncg". */
+  value: number;
+  /** For "ncg": the output BER at which the gain is stated. */
+  ncgOutputBer?: number | null;
+}
+
+const given = (value: number | null | undefined): value is number => value !== null && value !== undefined;
+
+/** The engine's code object: exactly the forms the offer gave, nothing invented. */
+export function engineCode(code: OfferCode): ClaimInput["code"] {
+  const out: ClaimInput["code"] = {};
+  if (given(code.n)) out.n = code.n;
+  if (given(code.k)) out.k = code.k;
+  else if (given(code.rate)) out.rate = code.rate;
+  else if (given(code.overhead)) out.overhead = code.overhead;
+  return out;
+}
+
+/**
+ * bsc -> p, bec -> e, biawgn -> Eb/N0 in dB, taken from the operating point. A net coding gain
+ * claim names its own channel (the raw BER the gain implies at its output BER), so the engine
+ * gets the gain and the output BER instead of the point's value.
+ */
+export function claimInputFor(model: ChannelModel, pointValue: number, code: OfferCode, claim: OfferClaim): ClaimInput {
+  const engine = engineCode(code);
+  if (claim.metric === "ncg") {
+    if (model === "bec") throw new RangeError("A net coding gain is not stated for an erasure channel.");
+    return {
+      channel: { model, ncgDb: claim.value },
+      code: engine,
+      target: { metric: "ber", value: claim.ncgOutputBer ?? Number.NaN },
+    };
+  }
+  const channel: ClaimInput["channel"] =
+    model === "bsc" ? { model, p: pointValue } : model === "bec" ? { model, e: pointValue } : { model, ebn0Db: pointValue };
+  return { channel, code: engine, target: { metric: claim.metric, value: claim.value } };
+}
+
+const SEVERITY_ORDER = ["violation", "gap", "support", "info"] as const;
+
+/** The finding an engineer reads first: a violation, else a gap, else what supports the claim. */
+export function keyFinding(result: Pick<ClaimResult, "findings">): ClaimResult["findings"][number] | null {
+  for (const severity of SEVERITY_ORDER) {
+    const found = result.findings.find((f) => f.severity === severity);
+    if (found) return found;
+  }
+  return null;
+}
+
+/** The code's rate whichever way it was stated, or null when nothing was. */
+export function codeRate(code: OfferCode): number | null {
+  if (given(code.n) && given(code.k) && code.n > 0) return code.k / code.n;
+  if (given(code.rate)) return code.rate;
+  if (given(code.overhead)) return 1 / (1 + code.overhead);
+  return null;
+}

@@ -1,0 +1,193 @@
+import "server-only";
+import { and, asc, eq, inArray } from "drizzle-orm";
+import { asSubject, pickPermitted } from "@/policies";
+import { getDb, type Queryable } from "@/db/client";
+import { claims, offers, organisations } from "@/db/schema";
+import type { ClaimResult } from "@/lib/bounds";
+import { currentVersion, documentRecord, evaluateOffer, keyFinding, nextVersion, offerRecord, submissionRefusal, verdictSummary, type EvaluatedClaim, type OfferTenderState } from "@/lib/offers";
+import type { OfferInput } from "@/lib/validation/offer";
+import { documentsFor, documentView, type DocumentRow } from "./documents";
+import { ConflictError, InputError, NotFoundError } from "./errors";
+import { appendLedger } from "./ledger";
+import { addressesOf, notify } from "./notify";
+import { authorize, ledgerActor, type Viewer } from "./session";
+import { getTender, type TenderWithInvites } from "./tenders";
+
+export type OfferRow = typeof offers.$inferSelect;
+export type ClaimRow = typeof claims.$inferSelect;
+
+const offerSubject = (row: OfferRow, tender: OfferTenderState) => asSubject("Offer", offerRecord(row, tender));
+
+/** One offer as this viewer may see it: envelope fields stripped by the policies, claims and documents filtered. */
+function viewOf(viewer: Viewer, tender: TenderWithInvites, row: OfferRow, vendorName: string, claimRows: ClaimRow[], docs: DocumentRow[]) {
+  const can = viewer.ability.can.bind(viewer.ability);
+  const own = (r: { vendorOrgId: string }) => r.vendorOrgId === row.vendorOrgId;
+  return {
+    ...pickPermitted(viewer.ability, "read", "Offer", offerRecord(row, tender)),
+    vendorName,
+    claims: claimRows
+      .filter((c) => c.offerId === row.id && can("read", asSubject("Claim", c)))
+      .sort((a, b) => a.pointIndex - b.pointIndex)
+      .map((c) => ({ ...c, keyFinding: keyFinding(c.result as unknown as ClaimResult) })),
+    documents: docs.filter((d) => own(d) && can("read", asSubject("Document", documentRecord(d)))).map(documentView),
+  };
+}
+export type OfferView = ReturnType<typeof viewOf>;
+
+async function assemble(viewer: Viewer, tender: TenderWithInvites, rows: OfferRow[]): Promise<OfferView[]> {
+  if (rows.length === 0) return [];
+  const db = await getDb();
+  const vendorIds = [...new Set(rows.map((r) => r.vendorOrgId))];
+  const [orgRows, claimRows, docs] = await Promise.all([
+    db.select({ id: organisations.id, name: organisations.name }).from(organisations).where(inArray(organisations.id, vendorIds)),
+    db.select().from(claims).where(inArray(claims.offerId, rows.map((r) => r.id))),
+    documentsFor(db, tender.id, vendorIds),
+  ]);
+  const names = new Map(orgRows.map((o) => [o.id, o.name]));
+  return rows.map((row) => viewOf(viewer, tender, row, names.get(row.vendorOrgId) ?? "", claimRows, docs));
+}
+
+async function versionsOf(db: Queryable, tenderId: string, vendorOrgId: string): Promise<OfferRow[]> {
+  return db.select().from(offers).where(and(eq(offers.tenderId, tenderId), eq(offers.vendorOrgId, vendorOrgId))).orderBy(asc(offers.version));
+}
+
+/** The current version of each vendor's offer that the viewer may read, with claims, verdicts and documents. */
+export async function listOffers(viewer: Viewer, tenderId: string): Promise<OfferView[]> {
+  const tender = await getTender(viewer, tenderId);
+  authorize(viewer, "list", "Offer", "Your role does not read offers.");
+  const db = await getDb();
+  const rows = await db.select().from(offers).where(eq(offers.tenderId, tenderId)).orderBy(asc(offers.submittedAt));
+  const byVendor = new Map<string, OfferRow[]>();
+  for (const r of rows) byVendor.set(r.vendorOrgId, [...(byVendor.get(r.vendorOrgId) ?? []), r]);
+  const current = [...byVendor.values()].map((versions) => currentVersion(versions)).filter((r): r is OfferRow => r !== null);
+  return assemble(viewer, tender, current.filter((r) => viewer.ability.can("read", offerSubject(r, tender))));
+}
+
+async function loadOffer(viewer: Viewer, offerId: string) {
+  const db = await getDb();
+  const [row] = await db.select().from(offers).where(eq(offers.id, offerId));
+  if (!row) throw new NotFoundError("No such offer.");
+  const tender = await getTender(viewer, row.tenderId);
+  authorize(viewer, "read", offerSubject(row, tender), "This offer is not yours to read.");
+  return { row, tender };
+}
+
+/** One version of an offer, with the list of versions the viewer may read (the vendor's history). */
+export async function getOffer(viewer: Viewer, offerId: string) {
+  const { row, tender } = await loadOffer(viewer, offerId);
+  const [view] = await assemble(viewer, tender, [row]);
+  const versions = (await versionsOf(await getDb(), row.tenderId, row.vendorOrgId))
+    .filter((v) => viewer.ability.can("read", offerSubject(v, tender)))
+    .map((v) => ({ id: v.id, version: v.version, status: v.status, submittedAt: v.submittedAt, withdrawnAt: v.withdrawnAt }));
+  return { ...view, versions };
+}
+
+/** The viewer's own organisation's current offer on a tender (for the Offer form), or null. */
+export async function getOwnOffer(viewer: Viewer, tenderId: string): Promise<OfferView | null> {
+  const tender = await getTender(viewer, tenderId);
+  const current = currentVersion(await versionsOf(await getDb(), tenderId, viewer.actor.organisationId));
+  if (!current || !viewer.ability.can("read", offerSubject(current, tender))) return null;
+  const [view] = await assemble(viewer, tender, [current]);
+  return view;
+}
+
+export interface OfferVersionInput {
+  tender: { id: string; reference: string };
+  vendorOrgId: string;
+  actor: { id: string; label: string };
+  input: OfferInput;
+  claims: EvaluatedClaim[];
+  at: Date;
+}
+
+/**
+ * Writes a new version inside the caller's transaction: the previous submitted version becomes
+ * superseded (kept, with its claims), the new one carries its claims and verdicts, and the ledger
+ * records the version and the verdicts, never a price. The demo seed uses it too.
+ */
+export async function writeOfferVersion(tx: Queryable, v: OfferVersionInput): Promise<OfferRow> {
+  const { input } = v;
+  const mine = and(eq(offers.tenderId, v.tender.id), eq(offers.vendorOrgId, v.vendorOrgId));
+  const version = nextVersion(await tx.select({ version: offers.version }).from(offers).where(mine));
+  await tx.update(offers).set({ status: "superseded" }).where(and(mine, eq(offers.status, "submitted")));
+  const [row] = await tx
+    .insert(offers)
+    .values({
+      tenderId: v.tender.id, vendorOrgId: v.vendorOrgId, version, status: "submitted",
+      moduleName: input.moduleName, partNumber: input.partNumber,
+      codeFamily: input.code.family, decision: input.code.decision,
+      n: input.code.n ?? null, k: input.code.k ?? null, rate: input.code.rate ?? null, overhead: input.code.overhead ?? null,
+      ...input.envelope, submittedBy: v.actor.id, submittedAt: v.at,
+    })
+    .returning();
+  await tx.insert(claims).values(
+    v.claims.map((c) => ({ ...c, result: c.result as unknown as Record<string, unknown>, offerId: row.id, tenderId: v.tender.id, vendorOrgId: v.vendorOrgId, evaluatedAt: v.at })),
+  );
+  await appendLedger(tx, {
+    tenderId: v.tender.id,
+    actor: v.actor,
+    action: "offer.submitted",
+    subjectType: "Offer",
+    subjectId: row.id,
+    data: {
+      version,
+      vendorOrgId: v.vendorOrgId,
+      module: `${input.moduleName} (${input.partNumber})`,
+      verdicts: v.claims.map((c) => ({ point: c.pointLabel, metric: c.metric, verdict: c.verdict })),
+      summary: verdictSummary(v.claims.map((c) => c.verdict)),
+      engineVersion: v.claims[0]?.engineVersion ?? null,
+    },
+  });
+  return row;
+}
+
+/** Submits (or resubmits) the viewer's organisation's offer while the tender is open and before it closes. */
+export async function submitOffer(viewer: Viewer, tenderId: string, input: OfferInput, now = new Date()): Promise<OfferView> {
+  const tender = await getTender(viewer, tenderId);
+  authorize(viewer, "submit", "Offer", "Only invited vendors submit offers.");
+  const refusal = submissionRefusal(tender, now);
+  if (refusal) throw new ConflictError(refusal);
+  const vendorOrgId = viewer.actor.organisationId;
+  const draft = { id: "new", tenderId, vendorOrgId, tenderState: tender.state, envelopeOpened: false };
+  authorize(viewer, "submit", asSubject("Offer", draft), "Your organisation may not submit to this tender.");
+  const evaluation = evaluateOffer(tender, input);
+  if (!evaluation.ok) throw new InputError("The offer does not fit this tender: check the highlighted fields.", evaluation.fieldErrors);
+
+  const db = await getDb();
+  const row = await db.transaction((tx) =>
+    writeOfferVersion(tx, { tender, vendorOrgId, actor: ledgerActor(viewer), input, claims: evaluation.claims, at: now }),
+  );
+  const summary = verdictSummary(evaluation.claims.map((c) => c.verdict));
+  notify({
+    to: await addressesOf(db, [vendorOrgId]),
+    subject: `${tender.reference}: offer version ${row.version} received`,
+    text: `Your offer to ${tender.reference} "${tender.title}" was received as version ${row.version}.\nVerdicts: ${summary.plausible} plausible, ${summary["needs-evidence"]} needing evidence, ${summary.impossible} impossible.\nYou may correct and resubmit it until the tender closes.`,
+  });
+  const [view] = await assemble(viewer, tender, [row]);
+  return view;
+}
+
+/** Withdraws the current version; it stays on record as withdrawn. */
+export async function withdrawOffer(viewer: Viewer, offerId: string, now = new Date()): Promise<OfferView> {
+  authorize(viewer, "withdraw", "Offer", "Only the vendor withdraws its offer.");
+  const { row, tender } = await loadOffer(viewer, offerId);
+  if (row.status === "withdrawn") throw new ConflictError("This offer is already withdrawn.");
+  if (row.status === "superseded") throw new ConflictError("This version was superseded by a newer one; withdraw the current version.");
+  const refusal = submissionRefusal(tender, now);
+  if (refusal) throw new ConflictError(refusal);
+  authorize(viewer, "withdraw", offerSubject(row, tender), "This offer is not yours to withdraw.");
+  const db = await getDb();
+  const updated = await db.transaction(async (tx) => {
+    const [changed] = await tx.update(offers).set({ status: "withdrawn", withdrawnAt: now }).where(and(eq(offers.id, row.id), eq(offers.status, "submitted"))).returning();
+    if (!changed) throw new ConflictError("This offer changed meanwhile; reload it.");
+    await appendLedger(tx, { tenderId: row.tenderId, actor: ledgerActor(viewer), action: "offer.withdrawn", subjectType: "Offer", subjectId: row.id, data: { version: row.version, vendorOrgId: row.vendorOrgId } });
+    return changed;
+  });
+  notify({
+    to: await addressesOf(db, [row.vendorOrgId]),
+    subject: `${tender.reference}: offer withdrawn`,
+    text: `Version ${row.version} of your offer to ${tender.reference} "${tender.title}" was withdrawn by ${viewer.name}. You may submit again until the tender closes.`,
+  });
+  const [view] = await assemble(viewer, tender, [updated]);
+  return view;
+}
