@@ -1,0 +1,28 @@
+import { z } from "zod";
+import { weightsSchema } from "./tender";
+
+export const JUSTIFICATION_MIN = 20;
+
+/** The buyer's recommendation of an award, as the form and POST /api/v1/tenders/[id]/recommendation send it. */
+export const recommendationSchema = z.object({
+  offerId: z.string({ error: "Choose the offer to award." }).trim().min(1, "Choose the offer to award."),
+  quantity: z
+    .number({ error: "Enter the quantity as a number." })
+    .int("A whole number of units.")
+    .positive("At least one unit.")
+    .max(100_000_000, "At most 100,000,000 units."),
+  value: z
+    .number({ error: "Enter the award value as a number." })
+    .positive("The award value must be above zero.")
+    .max(1e13, "The award value is too large.")
+    .refine((v) => Math.abs(Math.round(v * 100) - v * 100) < 1e-6, "At most two decimals (whole cents)."),
+  justification: z
+    .string({ error: "Write the justification." })
+    .trim()
+    .min(JUSTIFICATION_MIN, `Write at least ${JUSTIFICATION_MIN} characters of justification.`)
+    .max(5000, "At most 5,000 characters."),
+});
+export type RecommendationInput = z.infer<typeof recommendationSchema>;
+
+/** The what-if weights: the same rules as a tender's weights (zero or more, at least one above zero). */
+export const whatIfWeightsSchema = weightsSchema;
