@@ -114,5 +114,5 @@ export function esn0Where(f: (db: number) => number, guess?: number): number {
     if (f(DB_MAX) <= 0) return DB_MAX;
     if (f(DB_MIN) > 0) return DB_MIN;
   }
-  return solveIncreasing(f, lo, hi, 1e-10);
+  return solveIncreasing(f, lo, hi, 1e-9);
 }

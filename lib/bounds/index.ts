@@ -17,3 +17,4 @@ export * from "./evidence";
 export * from "./curves";
 export { h2, h2inv, logQ, qFunc, qInv, qInvLog, LOG10_ZERO, toLog10 } from "./special";
 export { sciLn, sci } from "./format";
+export { clearBoundsCaches } from "./sums";

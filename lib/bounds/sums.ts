@@ -192,3 +192,8 @@ export function ballVolumes(n: number): BallVolumes {
   }
   return b;
 }
+
+/** Drops the cached ball-volume tables (for cold-start benchmarks, or to free memory). */
+export function clearBoundsCaches(): void {
+  ballCache.clear();
+}

@@ -1,0 +1,40 @@
+// Benchmark runner: imports every bench module listed below, runs each case, prints a table of
+// medians. To add benches, export `benches: BenchCase[]` from a module and list it in MODULES.
+import type { BenchCase } from "./types";
+
+const MODULES = ["./bounds.bench.ts"];
+
+function quantile(sorted: number[], q: number): number {
+  return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
+}
+
+async function main() {
+  const rows: string[][] = [["case", "runs", "median ms", "p95 ms", "target"]];
+  let over = 0;
+  for (const m of MODULES) {
+    const { benches } = (await import(m)) as { benches: BenchCase[] };
+    for (const b of benches) {
+      for (let i = 0; i < (b.warmup ?? 2); i++) await b.run(i);
+      const times: number[] = [];
+      for (let i = 0; i < b.runs; i++) {
+        const t0 = performance.now();
+        await b.run(i + 1000);
+        times.push(performance.now() - t0);
+      }
+      times.sort((a, c) => a - c);
+      const median = quantile(times, 0.5);
+      if (b.targetMs !== undefined && median > b.targetMs) over++;
+      rows.push([b.name, String(b.runs), median.toFixed(2), quantile(times, 0.95).toFixed(2), b.targetMs === undefined ? "-" : `<= ${b.targetMs} ms`]);
+      process.stderr.write(`.`);
+    }
+  }
+  process.stderr.write("\n");
+  const widths = rows[0].map((_, j) => Math.max(...rows.map((r) => r[j].length)));
+  for (const [i, r] of rows.entries()) {
+    console.log(r.map((c, j) => (j === 0 ? c.padEnd(widths[j]) : c.padStart(widths[j]))).join("  "));
+    if (i === 0) console.log(widths.map((w) => "-".repeat(w)).join("  "));
+  }
+  if (over > 0) console.log(`\n${over} case(s) above target (medians; the machine is shared, rerun before concluding)`);
+}
+
+main();
