@@ -13,7 +13,12 @@ export default async function TendersPage() {
   const tenders = await orPage(listTenders(viewer));
   return (
     <div className="space-y-4">
-      <h1>Tenders</h1>
+      <div className="flex items-center justify-between gap-3">
+        <h1>Tenders</h1>
+        {viewer.ability.can("create", "Tender") ? (
+          <Link href="/tenders/new" className="btn no-underline hover:no-underline">New tender</Link>
+        ) : null}
+      </div>
       <div className="panel overflow-x-auto p-0">
         <table className="data-table">
           <thead>

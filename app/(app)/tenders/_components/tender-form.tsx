@@ -1,0 +1,115 @@
+"use client";
+
+import { useState, useTransition } from "react";
+import { FormProvider, useForm, useWatch, type Path } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { CHANNEL_LABELS } from "@/lib/format";
+import { CHANNEL_MODELS, tenderInputSchema, type TenderFormValues, type TenderInput } from "@/lib/validation/tender";
+import { createTenderAction, updateTenderAction, type TenderFormResult } from "../actions";
+import { errorAt, FieldError } from "./field-error";
+import { OperatingPointsFields } from "./operating-points-fields";
+import { WeightsFields } from "./weights-fields";
+
+interface Props {
+  /** Present when editing an existing draft. */
+  tenderId?: string;
+  defaults: TenderFormValues;
+  vendors: { id: string; name: string }[];
+  zones: string[];
+}
+
+const optionalNumber = (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v));
+// A lone checkbox gives a string or false, not a list: the schema always gets a list.
+const asList = (v: unknown): string[] => (Array.isArray(v) ? v : typeof v === "string" ? [v] : []);
+const schemaResolver = zodResolver(tenderInputSchema);
+const resolver: typeof schemaResolver = (values, context, options) =>
+  schemaResolver({ ...values, invitedOrgIds: asList(values.invitedOrgIds) }, context, options);
+
+/** The buyer's draft: the same zod schema checks it here and on the server. */
+export function TenderForm({ tenderId, defaults, vendors, zones }: Props) {
+  const [result, setResult] = useState<TenderFormResult>({});
+  const [pending, startTransition] = useTransition();
+  const methods = useForm<TenderFormValues, unknown, TenderInput>({ resolver, defaultValues: defaults });
+  const { register, handleSubmit, setError, control, formState } = methods;
+  const rule = useWatch({ control, name: "impossibleRule" });
+  const submit = handleSubmit((values) =>
+    startTransition(async () => {
+      const outcome = tenderId ? await updateTenderAction(tenderId, values) : await createTenderAction(values);
+      setResult(outcome);
+      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) {
+        setError(field as Path<TenderFormValues>, { message: messages[0] });
+      }
+    }),
+  );
+  const field = (name: Path<TenderFormValues>, label: string, input: React.ReactNode, hint?: string) => (
+    <div>
+      <label className="label" htmlFor={`t-${name}`}>{label}</label>
+      {input}
+      {hint ? <p className="mt-1 text-xs text-ink-faint">{hint}</p> : null}
+      <FieldError id={`t-${name}-error`} message={errorAt(formState.errors, name)} />
+    </div>
+  );
+  const invalid = (name: Path<TenderFormValues>) => ({ id: `t-${name}`, "aria-invalid": Boolean(errorAt(formState.errors, name)), "aria-describedby": `t-${name}-error` });
+
+  return (
+    <FormProvider {...methods}>
+      <form onSubmit={submit} className="panel space-y-5" aria-label={tenderId ? "Edit tender" : "New tender"} noValidate>
+        {result.message ? <p role="alert" className="text-sm text-verdict-impossible">{result.message}</p> : null}
+        <div className="grid gap-4 md:grid-cols-2">
+          {field("title", "Title", <input className="field" {...invalid("title")} {...register("title")} />)}
+          {field("channelModel", "Channel model", (
+            <select className="field" {...invalid("channelModel")} {...register("channelModel")}>
+              {CHANNEL_MODELS.map((m) => <option key={m} value={m}>{CHANNEL_LABELS[m].name}</option>)}
+            </select>
+          ))}
+        </div>
+        {field("description", "Description", <textarea rows={3} className="field" {...invalid("description")} {...register("description")} />)}
+        <OperatingPointsFields />
+        <div className="grid gap-4 md:grid-cols-3">
+          {field("targetMetric", "Residual error metric", (
+            <select className="field" {...invalid("targetMetric")} {...register("targetMetric")}>
+              <option value="bler">BLER (block error rate)</option>
+              <option value="ber">BER (bit error rate, after decoding)</option>
+            </select>
+          ))}
+          {field("targetValue", "Residual error at most", <input className="field tabular-nums" type="number" step="any" {...invalid("targetValue")} {...register("targetValue", { valueAsNumber: true })} />, "A probability, e.g. 1e-4.")}
+          {field("maxFrameBits", "Longest frame (bits)", <input className="field tabular-nums" type="number" min={1} step={1} {...invalid("maxFrameBits")} {...register("maxFrameBits", { setValueAs: optionalNumber })} />, "Leave empty for no limit.")}
+        </div>
+        <div className="grid gap-4 md:grid-cols-3">
+          {field("quantity", "Quantity (units)", <input className="field tabular-nums" type="number" min={1} step={1} {...invalid("quantity")} {...register("quantity", { valueAsNumber: true })} />)}
+          {field("currency", "Currency", <input className="field uppercase" maxLength={3} {...invalid("currency")} {...register("currency")} />, "ISO 4217, e.g. EUR.")}
+        </div>
+        <WeightsFields />
+        <fieldset className="grid gap-4 md:grid-cols-3">
+          <legend className="label">If a claim is confirmed impossible</legend>
+          <label className="inline-flex items-center gap-2 text-sm"><input type="radio" value="disqualify" {...register("impossibleRule")} /> Disqualify the offer</label>
+          <label className="inline-flex items-center gap-2 text-sm"><input type="radio" value="penalty" {...register("impossibleRule")} /> Deduct points</label>
+          {rule === "penalty"
+            ? field("impossiblePenalty", "Penalty (points)", <input className="field tabular-nums" type="number" min={0} max={100} step="any" {...invalid("impossiblePenalty")} {...register("impossiblePenalty", { valueAsNumber: true })} />)
+            : null}
+        </fieldset>
+        <div className="grid gap-4 md:grid-cols-2">
+          {field("closesLocal", "Closing date and time", <input className="field tabular-nums" type="datetime-local" {...invalid("closesLocal")} {...register("closesLocal")} />, "Local time in the zone beside it.")}
+          {field("closesZone", "Time zone", (
+            <select className="field" {...invalid("closesZone")} {...register("closesZone")}>
+              {zones.map((z) => <option key={z} value={z}>{z}</option>)}
+            </select>
+          ))}
+        </div>
+        <fieldset>
+          <legend className="label">Invited vendors</legend>
+          <div className="flex flex-wrap gap-4 text-sm">
+            {vendors.map((v) => (
+              <label key={v.id} className="inline-flex items-center gap-1.5"><input type="checkbox" value={v.id} {...register("invitedOrgIds")} /> {v.name}</label>
+            ))}
+            {vendors.length === 0 ? <span className="text-ink-soft">No vendor organisation exists yet.</span> : null}
+          </div>
+          <FieldError id="t-invited-error" message={errorAt(formState.errors, "invitedOrgIds")} />
+        </fieldset>
+        <button type="submit" className="btn" disabled={pending}>
+          {pending ? "Saving…" : tenderId ? "Save draft" : "Create draft"}
+        </button>
+      </form>
+    </FormProvider>
+  );
+}
