@@ -19,14 +19,8 @@ export function normalApproxLog2M(
 }
 
 /** The best rate the normal approximation gives, kept in the physical range [0, 1]. */
-export function normalApproxRate(
-  n: number,
-  capacity: number,
-  dispersion: number,
-  logEps: number,
-  withLogTerm = true,
-): number {
-  const r = normalApproxLog2M(n, capacity, dispersion, logEps, withLogTerm) / n;
+export function normalApproxRate(...args: Parameters<typeof normalApproxLog2M>): number {
+  const r = normalApproxLog2M(...args) / args[0];
   return Math.min(1, Math.max(0, r));
 }
 
