@@ -1,9 +1,11 @@
 import { assessEvidence, type EvidenceResult } from "@/lib/bounds";
 import type { ClaimMetric } from "@/db/schema/offers";
 import type { EvidenceStatus } from "@/db/schema/evaluation";
+import type { EvidenceSummary } from "./labels";
+
+export type { EvidenceSummary };
 
 export type EvidenceUnit = "bits" | "frames";
-export type EvidenceSummary = EvidenceStatus | "none";
 export const CONFIDENCES = [0.9, 0.95, 0.99] as const;
 
 interface ClaimForEvidence {
@@ -56,10 +58,3 @@ export function summariseEvidence(statuses: readonly EvidenceStatus[]): Evidence
   if (statuses.includes("verified")) return "verified";
   return "inconclusive";
 }
-
-export const EVIDENCE_LABELS: Record<EvidenceSummary, string> = {
-  none: "No lab run",
-  verified: "Verified",
-  contradicted: "Contradicted",
-  inconclusive: "Inconclusive",
-};

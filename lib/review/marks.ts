@@ -1,12 +1,5 @@
 import type { MarkKind } from "@/db/schema/evaluation";
 
-export const MARK_LABELS: Record<MarkKind, string> = {
-  accepted: "Accepted",
-  "rejected-impossible": "Rejected as impossible",
-  "evidence-requested": "Evidence requested",
-  "clarification-requested": "Clarification requested",
-};
-
 /** Every mark but a plain acceptance must say why: the vendor and the ledger read it. */
 export const commentRequired = (mark: MarkKind): boolean => mark !== "accepted";
 

@@ -4,7 +4,8 @@ import { asSubject, pickPermitted, tenderAccess, type ClaimRecord } from "@/poli
 import { getDb, type Queryable } from "@/db/client";
 import { claims, documents, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
 import { latestMarks } from "@/lib/review/marks";
-import { summariseEvidence, type EvidenceSummary } from "@/lib/review/evidence";
+import { summariseEvidence } from "@/lib/review/evidence";
+import type { EvidenceSummary } from "@/lib/review/labels";
 import type { ClaimQueueFilters } from "@/lib/validation/review";
 import { ForbiddenError, NotFoundError } from "./errors";
 import type { Viewer } from "./session";

@@ -1,0 +1,10 @@
+"use server";
+
+import { messageSchema } from "@/lib/validation/review";
+import { postMessage } from "@/lib/server/threads";
+import { runForm, type FormResult } from "../review/run-form";
+
+/** A message in a clarification thread, from either side; the page it was sent from is refreshed. */
+export async function postMessageAction(threadId: string, path: string, values: unknown): Promise<FormResult> {
+  return runForm(messageSchema, values, (viewer, input) => postMessage(viewer, String(threadId), input), [String(path), "/threads"], "Message sent.");
+}
