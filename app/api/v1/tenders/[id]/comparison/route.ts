@@ -1,0 +1,14 @@
+import { jsonRoute } from "@/lib/server/http";
+import { getComparison } from "@/lib/server/comparison";
+import { requireViewer } from "@/lib/server/session";
+
+type Context = { params: Promise<{ id: string }> };
+
+/**
+ * The Comparison: the scoring input (what the viewer may read) and the score sheet, recomputed now.
+ * Before the envelopes are opened it answers 200 without any price, lead time or warranty, and
+ * without totals or ranks; engineers and vendors get 403.
+ */
+export const GET = jsonRoute(async (request, { params }: Context) =>
+  getComparison(await requireViewer(request.headers), (await params).id),
+);
