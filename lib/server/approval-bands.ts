@@ -1,0 +1,80 @@
+import "server-only";
+import { asc, eq } from "drizzle-orm";
+import { getDb, type Queryable } from "@/db/client";
+import { approvalBands } from "@/db/schema";
+import { bandFor, bandGaps, bandProblems, describeBand, type BandRule } from "@/lib/approvals/bands";
+import type { ApprovalBandInput } from "@/lib/validation/approvals";
+import { InputError, NotFoundError } from "./errors";
+import { appendLedger } from "./ledger";
+import { authorize, ledgerActor, type Viewer } from "./session";
+
+export type ApprovalBandRow = typeof approvalBands.$inferSelect;
+
+async function allBands(db: Queryable): Promise<ApprovalBandRow[]> {
+  return db.select().from(approvalBands).orderBy(asc(approvalBands.currency), asc(approvalBands.minValue));
+}
+
+/**
+ * The band rule in force for an award value, or null when no band covers it. Call it when a
+ * recommendation enters approval and store the result on it: later band changes never apply.
+ */
+export async function bandRuleFor(db: Queryable, value: number, currency: string): Promise<BandRule | null> {
+  const band = bandFor(await allBands(db), value, currency);
+  return band && { approvalsNeeded: band.approvalsNeeded, minApproverLimit: band.minApproverLimit };
+}
+
+/** The bands, with the values each currency leaves uncovered. */
+export async function listApprovalBands(viewer: Viewer) {
+  authorize(viewer, "read", "ApprovalLimit", "Only admins, buyers and approvers read the approval limits.");
+  const bands = await allBands(await getDb());
+  const currencies = [...new Set(bands.map((b) => b.currency))];
+  return { bands, gaps: currencies.flatMap((currency) => bandGaps(bands, currency).map((gap) => ({ currency, ...gap }))) };
+}
+
+const bandFields = (b: Pick<ApprovalBandRow, "currency" | "minValue" | "maxValue" | "approvalsNeeded" | "minApproverLimit">) => ({
+  currency: b.currency,
+  minValue: b.minValue,
+  maxValue: b.maxValue,
+  approvalsNeeded: b.approvalsNeeded,
+  minApproverLimit: b.minApproverLimit,
+});
+
+/** Rejects a set of bands that overlap, naming the bands (nothing is written). */
+function assertNoOverlap(bands: Parameters<typeof bandProblems>[0]) {
+  const problems = bandProblems(bands);
+  if (problems.length) throw new InputError(problems.join(" "), { minValue: problems });
+}
+
+/** Adds, changes (id given) or removes (input null) one band; a ledger entry in the same transaction. */
+async function writeBand(viewer: Viewer, id: string | null, input: ApprovalBandInput | null) {
+  authorize(viewer, id === null ? "create" : input === null ? "delete" : "update", "ApprovalLimit", "Only an admin changes the approval limits.");
+  const db = await getDb();
+  return db.transaction(async (tx) => {
+    const bands = await allBands(tx);
+    const before = id === null ? null : bands.find((b) => b.id === id);
+    if (before === undefined) throw new NotFoundError("No such approval band.");
+    const others = bands.filter((b) => b.id !== id);
+    if (input) assertNoOverlap([...others, input]);
+    let row: ApprovalBandRow | null = null;
+    if (input && before) [row] = await tx.update(approvalBands).set(input).where(eq(approvalBands.id, before.id)).returning();
+    else if (input) [row] = await tx.insert(approvalBands).values(input).returning();
+    else await tx.delete(approvalBands).where(eq(approvalBands.id, before!.id));
+    const action = !before ? "approval-band.added" : input ? "approval-band.changed" : "approval-band.removed";
+    await appendLedger(tx, {
+      actor: ledgerActor(viewer),
+      action,
+      subjectType: "ApprovalLimit",
+      subjectId: row?.id ?? before!.id,
+      data: {
+        band: describeBand(input ?? before!),
+        ...(before ? { from: bandFields(before) } : {}),
+        ...(input ? { to: bandFields(input) } : {}),
+      },
+    });
+    return row;
+  });
+}
+
+export const createApprovalBand = (viewer: Viewer, input: ApprovalBandInput) => writeBand(viewer, null, input);
+export const updateApprovalBand = (viewer: Viewer, id: string, input: ApprovalBandInput) => writeBand(viewer, id, input);
+export const removeApprovalBand = (viewer: Viewer, id: string) => writeBand(viewer, id, null);

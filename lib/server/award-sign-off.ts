@@ -1,0 +1,86 @@
+import "server-only";
+import { asc, eq } from "drizzle-orm";
+import { asSubject } from "@/policies";
+import { getDb } from "@/db/client";
+import { approvals, memos, offers, organisations, users } from "@/db/schema";
+import { decisionProblem } from "@/lib/approvals/routing";
+import { standingsOf } from "@/lib/approvals/score-sheet";
+import { approvalRecord, eligibleApprovers, refusalFor, ruleFor } from "./approvals";
+import { loadScoringInput } from "./comparison";
+import { AppError } from "./errors";
+import { approvalsGiven } from "./memos";
+import { getCurrentRecommendation } from "./recommendations";
+import type { Viewer } from "./session";
+import { getTender, tenderSubject } from "./tenders";
+
+/**
+ * Everything the Sign-off tab shows this viewer: whether to declare first, the recommendation with
+ * its score standings (scores only, never another vendor's price), the verdicts per offer, the
+ * decisions so far, where it is routed, whether this viewer may decide, and the memo once issued.
+ */
+export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
+  const tender = await getTender(viewer, tenderId);
+  const db = await getDb();
+  const declared = viewer.actor.declarations.some((d) => d.tenderId === tenderId);
+  const canDeclare = !declared && viewer.ability.can("declare", tenderSubject(tender)) && viewer.actor.roles.includes("approver");
+  const summary = { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, currency: tender.currency, zone: tender.closesZone, awardedAt: tender.awardedAt };
+  const rec = await getCurrentRecommendation(db, tenderId);
+  const readsRec = rec !== null && viewer.ability.can("read", asSubject("Recommendation", { tenderId, preparedBy: rec.preparedBy, value: rec.value }));
+  if (!rec || !readsRec) return { tender: summary, declared, canDeclare, recommendation: null };
+
+  const rule = await ruleFor(db, rec).catch((error: unknown) => (error instanceof AppError ? null : Promise.reject(error)));
+  const [chosen] = await db
+    .select({ vendorName: organisations.name, moduleName: offers.moduleName, preparedBy: users.name })
+    .from(offers)
+    .innerJoin(organisations, eq(organisations.id, offers.vendorOrgId))
+    .innerJoin(users, eq(users.id, rec.preparedBy))
+    .where(eq(offers.id, rec.offerId));
+  const scoring = await loadScoringInput(db, viewer, tender);
+  const decisions = await db
+    .select({ id: approvals.id, recommendationId: approvals.recommendationId, name: users.name, decision: approvals.decision, comment: approvals.comment, decidedAt: approvals.decidedAt })
+    .from(approvals)
+    .innerJoin(users, eq(users.id, approvals.approverId))
+    .where(eq(approvals.tenderId, tenderId))
+    .orderBy(asc(approvals.decidedAt));
+  const given = await approvalsGiven(db, rec.id);
+  const mayAct = viewer.actor.roles.includes("approver");
+  const refusal = !mayAct ? null : rule ? refusalFor(viewer, tender, rec, rule) : "No approval band covers this value yet.";
+  const problem = decisionProblem({ tenderState: tender.state, pending: rec.status === "pending", approverId: viewer.actor.id, approvedBy: given.map((g) => g.approverId) });
+  const allowed = mayAct && !refusal && !problem && viewer.ability.can("approve", asSubject("Approval", approvalRecord(tender, rec)));
+  const [memo] = await db.select().from(memos).where(eq(memos.tenderId, tenderId));
+  const readsMemo = viewer.ability.can("read", asSubject("Memo", { tenderId }));
+
+  return {
+    tender: summary,
+    declared,
+    canDeclare,
+    recommendation: {
+      id: rec.id,
+      status: rec.status,
+      vendorName: chosen?.vendorName ?? "",
+      moduleName: chosen?.moduleName ?? "",
+      quantity: rec.quantity,
+      value: rec.value,
+      currency: rec.currency,
+      justification: rec.justification,
+      preparedBy: chosen?.preparedBy ?? "",
+      preparedAt: rec.preparedAt,
+      rule,
+      approvalsGiven: given.length,
+      standings: standingsOf(rec.scoreSheet).map(({ offerId: _o, ...s }) => s),
+    },
+    offers: scoring.offers.map((o) => ({
+      id: o.id,
+      vendorName: o.vendorName,
+      moduleName: o.moduleName,
+      claims: o.claims.map((c) => ({ id: c.id, point: scoring.tender.operatingPoints[c.pointIndex]?.label ?? `Point ${c.pointIndex + 1}`, metric: c.metric, value: c.value, verdict: c.verdict, mark: c.mark })),
+    })),
+    decisions,
+    routedTo: rule ? (await eligibleApprovers(db, tender, rec, rule)).map((u) => u.name) : [],
+    me: { mayAct, allowed, reason: refusal ?? (mayAct ? problem : null) },
+    memo: memo && readsMemo ? { identifier: memo.identifier, sha256: memo.sha256, size: memo.size, createdAt: memo.createdAt } : null,
+    canPreview: readsMemo,
+  };
+}
+
+export type AwardSignOff = Awaited<ReturnType<typeof getAwardSignOff>>;

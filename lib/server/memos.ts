@@ -1,0 +1,186 @@
+import "server-only";
+import { and, asc, eq, inArray } from "drizzle-orm";
+import { asSubject, defineAbilityFor } from "@/policies";
+import { getDb, type Queryable } from "@/db/client";
+import { approvals, claims, marks, memos, offers, organisations, tenders, users } from "@/db/schema";
+import { CAUTIONS } from "@/app/_components/cautions";
+import { memoDocument } from "@/lib/approvals/memo-content";
+import { memoIdentifier } from "@/lib/approvals/routing";
+import { renderMemo } from "@/lib/pdf/memo";
+import { latestMarks } from "@/lib/review/marks";
+import { getObject, isObjectNotFound, putObject, sha256Hex } from "@/lib/storage";
+import { ConflictError, ForbiddenError, NotFoundError } from "./errors";
+import { getCurrentRecommendation, type RecommendationRow } from "./recommendations";
+import { ensureLocalServices } from "./services";
+import { authorize, type Viewer } from "./session";
+import { getTender, type TenderRow } from "./tenders";
+
+export type MemoRow = typeof memos.$inferSelect;
+
+/** The approvals given to a recommendation, with the approvers' names, oldest first. */
+export async function approvalsGiven(db: Queryable, recommendationId: string) {
+  return db
+    .select({ id: approvals.id, approverId: approvals.approverId, name: users.name, decidedAt: approvals.decidedAt, comment: approvals.comment })
+    .from(approvals)
+    .innerJoin(users, eq(users.id, approvals.approverId))
+    .where(and(eq(approvals.recommendationId, recommendationId), eq(approvals.decision, "approved")))
+    .orderBy(asc(approvals.decidedAt), asc(users.name));
+}
+
+/** The tender's current offers with every claim and its latest mark: the record, not one viewer's view. */
+async function offersForMemo(db: Queryable, tenderId: string) {
+  const rows = await db
+    .select({ offer: offers, vendorName: organisations.name })
+    .from(offers)
+    .innerJoin(organisations, eq(organisations.id, offers.vendorOrgId))
+    .where(and(eq(offers.tenderId, tenderId), eq(offers.status, "submitted")))
+    .orderBy(asc(organisations.name));
+  const ids = rows.map((r) => r.offer.id);
+  const claimRows = ids.length ? await db.select().from(claims).where(inArray(claims.offerId, ids)).orderBy(asc(claims.pointIndex)) : [];
+  const claimIds = claimRows.map((c) => c.id);
+  const latest = latestMarks(claimIds.length ? await db.select().from(marks).where(inArray(marks.claimId, claimIds)) : []);
+  return rows.map(({ offer, vendorName }) => ({
+    ...offer,
+    vendorName,
+    claims: claimRows.filter((c) => c.offerId === offer.id).map((c) => ({ ...c, mark: latest.get(c.id)?.mark ?? null })),
+  }));
+}
+
+interface RenderOptions {
+  identifier: string;
+  draft: boolean;
+  issuedAt: Date;
+  approvals: { name: string; decidedAt: Date; comment: string }[];
+}
+
+/** Renders the memo of a recommendation from the database as it stands. */
+export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: RecommendationRow, options: RenderOptions): Promise<Uint8Array> {
+  const [buyer] = await db
+    .select({ name: organisations.name })
+    .from(users)
+    .innerJoin(organisations, eq(organisations.id, users.organisationId))
+    .where(eq(users.id, tender.createdBy));
+  const [preparer] = await db.select({ name: users.name }).from(users).where(eq(users.id, rec.preparedBy));
+  const offerList = await offersForMemo(db, tender.id);
+  const [chosen] = await db
+    .select({ moduleName: offers.moduleName, vendorName: organisations.name })
+    .from(offers)
+    .innerJoin(organisations, eq(organisations.id, offers.vendorOrgId))
+    .where(eq(offers.id, rec.offerId));
+  const document = memoDocument({
+    identifier: options.identifier,
+    draft: options.draft,
+    issuedAt: options.issuedAt,
+    zone: tender.closesZone,
+    buyerOrganisation: buyer?.name ?? "",
+    tender,
+    offers: offerList,
+    scoreSheet: rec.scoreSheet,
+    recommendation: { ...rec, vendorName: chosen?.vendorName ?? "", moduleName: chosen?.moduleName ?? "", preparedBy: preparer?.name ?? "", preparedAt: rec.preparedAt },
+    approvals: options.approvals,
+    approvalsNeeded: rec.approvalsNeeded ?? options.approvals.length,
+    cautions: CAUTIONS,
+  });
+  return renderMemo(document);
+}
+
+/**
+ * Renders the final memo once, stores it and records its fingerprint. Call inside the transaction
+ * that awards the tender; the object is written first, so a failed commit leaves at most an
+ * unreferenced object, never a memo row without its file.
+ */
+export async function issueMemo(tx: Queryable, tender: TenderRow, rec: RecommendationRow, issuedAt: Date): Promise<MemoRow> {
+  const identifier = memoIdentifier(tender.reference);
+  const given = await approvalsGiven(tx, rec.id);
+  const bytes = await renderMemoFor(tx, tender, rec, { identifier, draft: false, issuedAt, approvals: given });
+  await ensureLocalServices();
+  const stored = await putObject(`memos/${tender.id}/${identifier}.pdf`, bytes, "application/pdf");
+  const [row] = await tx
+    .insert(memos)
+    .values({ identifier, tenderId: tender.id, recommendationId: rec.id, sha256: stored.sha256, storageKey: stored.key, size: stored.size, createdAt: issuedAt })
+    .returning();
+  return row;
+}
+
+const memoSubject = (tenderId: string) => asSubject("Memo", { tenderId });
+
+/** A preview of the memo as it would read now, approvals so far included; never stored. */
+export async function previewMemo(viewer: Viewer, tenderId: string, now = new Date()) {
+  const tender = await getTender(viewer, tenderId);
+  authorize(viewer, "read", memoSubject(tenderId), "Only the buying team and approvers declared on this tender read its memo.");
+  const db = await getDb();
+  const rec = await getCurrentRecommendation(db, tenderId);
+  if (!rec) throw new ConflictError("There is no recommendation to preview yet.");
+  const given = await approvalsGiven(db, rec.id);
+  const identifier = `${tender.reference}-PREVIEW`;
+  return { fileName: `${identifier}.pdf`, bytes: await renderMemoFor(db, tender, rec, { identifier, draft: true, issuedAt: now, approvals: given }) };
+}
+
+/** The memo record of an awarded tender, or null before the award. */
+export async function getMemo(viewer: Viewer, tenderId: string): Promise<MemoRow | null> {
+  await getTender(viewer, tenderId);
+  authorize(viewer, "read", memoSubject(tenderId), "Only the buying team and approvers declared on this tender read its memo.");
+  const [row] = await (await getDb()).select().from(memos).where(eq(memos.tenderId, tenderId));
+  return row ?? null;
+}
+
+/** The stored memo file, exactly the bytes whose fingerprint was recorded. */
+export async function getMemoFile(viewer: Viewer, tenderId: string) {
+  const memo = await getMemo(viewer, tenderId);
+  if (!memo) throw new NotFoundError("This tender has no award memo yet.");
+  try {
+    await ensureLocalServices();
+    return { fileName: `${memo.identifier}.pdf`, bytes: await getObject(memo.storageKey), memo };
+  } catch (error) {
+    if (isObjectNotFound(error)) throw new NotFoundError("The memo file is missing from storage.");
+    throw error;
+  }
+}
+
+export type MemoCheckResult =
+  | { authentic: false; sha256: string }
+  | {
+      authentic: true;
+      sha256: string;
+      identifier: string;
+      tender: { reference: string; title: string };
+      awardedAt: string;
+      approvedBy: { name: string; at: string }[];
+    };
+
+/** Public: is this file (or fingerprint) an award memo Ratecourt issued? Says for which tender, approved by whom and when. */
+export async function checkMemo(viewer: Viewer | null, input: { bytes: Uint8Array } | { sha256: string }): Promise<MemoCheckResult> {
+  const ability = viewer?.ability ?? defineAbilityFor(null);
+  if (!ability.can("verify", "MemoCheck")) throw new ForbiddenError("Memo check is not available to this account.");
+  const sha256 = "bytes" in input ? sha256Hex(input.bytes) : input.sha256;
+  const db = await getDb();
+  const [row] = await db
+    .select({ memo: memos, reference: tenders.reference, title: tenders.title, awardedAt: tenders.awardedAt })
+    .from(memos)
+    .innerJoin(tenders, eq(tenders.id, memos.tenderId))
+    .where(eq(memos.sha256, sha256));
+  if (!row) return { authentic: false, sha256 };
+  const given = await approvalsGiven(db, row.memo.recommendationId);
+  return {
+    authentic: true,
+    sha256,
+    identifier: row.memo.identifier,
+    tender: { reference: row.reference, title: row.title },
+    awardedAt: (row.awardedAt ?? row.memo.createdAt).toISOString(),
+    approvedBy: given.map((a) => ({ name: a.name, at: a.decidedAt.toISOString() })),
+  };
+}
+
+
+/** A PDF response; inline for the preview, attachment for the download. */
+export function pdfResponse(bytes: Uint8Array, fileName: string, disposition: "inline" | "attachment", extra: Record<string, string> = {}): Response {
+  return new Response(Buffer.from(bytes), {
+    headers: {
+      "content-type": "application/pdf",
+      "content-length": String(bytes.length),
+      "content-disposition": `${disposition}; filename="${fileName.replace(/[^\w.-]/g, "_")}"`,
+      "cache-control": "private, no-store",
+      ...extra,
+    },
+  });
+}
