@@ -34,6 +34,22 @@ async function reload(db: Queryable, id: string): Promise<TenderWithInvites> {
   return (await withInvites(db, [row]))[0];
 }
 
+type TenderAction = "update" | "open" | "cancel";
+const VERBS: Record<TenderAction, string> = { update: "edits", open: "opens", cancel: "cancels" };
+
+/**
+ * The order of the checks for a change to a tender: seen at all (404/403), the role (403), the
+ * state (409, with the rule's words), then the record itself (403).
+ */
+async function tenderFor(viewer: Viewer, id: string, action: TenderAction, problemOf: (t: TenderWithInvites) => string | null) {
+  const tender = await getTender(viewer, id);
+  authorize(viewer, action, "Tender", `Only the buying team ${VERBS[action]} tenders.`);
+  const problem = problemOf(tender);
+  if (problem) throw new ConflictError(problem);
+  authorize(viewer, action, tenderSubject(tender));
+  return tender;
+}
+
 /** A new draft, numbered RC-<year>-<sequence>, created by the buyer. */
 export async function createTender(viewer: Viewer, input: TenderInput): Promise<TenderWithInvites> {
   authorize(viewer, "create", asSubject("Tender", { id: "", state: "draft", createdBy: viewer.actor.id, invitedOrgIds: input.invitedOrgIds }));
@@ -61,16 +77,9 @@ export async function createTender(viewer: Viewer, input: TenderInput): Promise<
   return reload(db, id);
 }
 
-/**
- * Changes a draft. The role is checked first (403), then the state (409: locked once open),
- * then the record; the merged draft is checked whole, so a partial change cannot break it.
- */
+/** Changes a draft (409 once open); the merged draft is checked whole, so a partial change cannot break it. */
 export async function updateTender(viewer: Viewer, id: string, patch: TenderPatch): Promise<TenderWithInvites> {
-  const tender = await getTender(viewer, id);
-  authorize(viewer, "update", "Tender", "Only the buying team edits tenders.");
-  const locked = editProblem(tender.state);
-  if (locked) throw new ConflictError(locked);
-  authorize(viewer, "update", tenderSubject(tender));
+  const tender = await tenderFor(viewer, id, "update", (t) => editProblem(t.state));
 
   const before = draftInput(tender);
   const parsed = tenderInputSchema.safeParse({ ...before, ...patch });
@@ -108,11 +117,10 @@ export async function updateTender(viewer: Viewer, id: string, patch: TenderPatc
 
 /** Draft -> open: locks requirements and weights, and invites the vendors by e-mail. */
 export async function openTender(viewer: Viewer, id: string): Promise<TenderWithInvites> {
-  const tender = await getTender(viewer, id);
-  authorize(viewer, "open", "Tender", "Only the buying team opens tenders.");
-  const problems = openingProblems(tender, new Date());
-  if (problems.length) throw new ConflictError(`The tender cannot open yet. ${problems.join(" ")}`);
-  authorize(viewer, "open", tenderSubject(tender));
+  const tender = await tenderFor(viewer, id, "open", (t) => {
+    const problems = openingProblems(t, new Date());
+    return problems.length ? `The tender cannot open yet. ${problems.join(" ")}` : null;
+  });
 
   const db = await getDb();
   const opened = await db.transaction(async (tx) => {
@@ -147,11 +155,7 @@ export async function openTender(viewer: Viewer, id: string): Promise<TenderWith
 
 /** Any state before the award -> cancelled, with the reason told to the vendors and the buying team. */
 export async function cancelTender(viewer: Viewer, id: string, input: CancelTenderInput): Promise<TenderWithInvites> {
-  const tender = await getTender(viewer, id);
-  authorize(viewer, "cancel", "Tender", "Only the buying team cancels tenders.");
-  const problem = moveProblem(tender.state, "cancelled");
-  if (problem) throw new ConflictError(problem);
-  authorize(viewer, "cancel", tenderSubject(tender));
+  const tender = await tenderFor(viewer, id, "cancel", (t) => moveProblem(t.state, "cancelled"));
 
   const db = await getDb();
   const cancelled = await db.transaction(async (tx) => {

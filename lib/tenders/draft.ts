@@ -11,20 +11,29 @@ export type DraftValues = Pick<
   | "quantity" | "currency" | "weights" | "impossibleRule" | "impossiblePenalty" | "closesAt" | "closesZone"
 >;
 
+type Shared = Omit<DraftValues, "maxFrameBits" | "impossiblePenalty" | "closesAt" | "closesZone">;
+
+/** The fields the form and the columns hold alike, copied so that neither shares arrays with the other. */
+function shared(from: Shared): Shared {
+  return {
+    title: from.title,
+    description: from.description,
+    channelModel: from.channelModel,
+    operatingPoints: from.operatingPoints.map((p) => ({ label: p.label, value: p.value })),
+    targetMetric: from.targetMetric,
+    targetValue: from.targetValue,
+    quantity: from.quantity,
+    currency: from.currency,
+    weights: { ...from.weights },
+    impossibleRule: from.impossibleRule,
+  };
+}
+
 /** The columns of a draft from the form's values; the closing time becomes a UTC instant. */
 export function draftValues(input: TenderInput): DraftValues {
   return {
-    title: input.title,
-    description: input.description,
-    channelModel: input.channelModel,
-    operatingPoints: input.operatingPoints.map((p) => ({ label: p.label, value: p.value })),
-    targetMetric: input.targetMetric,
-    targetValue: input.targetValue,
+    ...shared(input),
     maxFrameBits: input.maxFrameBits ?? null,
-    quantity: input.quantity,
-    currency: input.currency,
-    weights: { ...input.weights },
-    impossibleRule: input.impossibleRule,
     impossiblePenalty: input.impossibleRule === "penalty" ? input.impossiblePenalty : 0,
     closesAt: closingInstant(input.closesLocal, input.closesZone),
     closesZone: input.closesZone,
@@ -34,17 +43,8 @@ export function draftValues(input: TenderInput): DraftValues {
 /** The form's values for a stored tender (to edit it, or to merge a partial change into it). */
 export function draftInput(row: DraftValues & { invitedOrgIds: string[] }): TenderInput {
   return {
-    title: row.title,
-    description: row.description,
-    channelModel: row.channelModel,
-    operatingPoints: row.operatingPoints.map((p) => ({ label: p.label, value: p.value })),
-    targetMetric: row.targetMetric,
-    targetValue: row.targetValue,
+    ...shared(row),
     maxFrameBits: row.maxFrameBits,
-    quantity: row.quantity,
-    currency: row.currency,
-    weights: { ...row.weights },
-    impossibleRule: row.impossibleRule,
     impossiblePenalty: row.impossiblePenalty,
     closesLocal: closingLocal(row.closesAt, row.closesZone),
     closesZone: row.closesZone,
