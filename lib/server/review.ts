@@ -89,7 +89,7 @@ export interface QueueRow {
  * The Review bench queue: claims of current offers the viewer may read, in tenders under technical
  * evaluation (or in the one tender asked for), with their current mark and evidence status.
  */
-export async function listClaimQueue(viewer: Viewer, filters: ClaimQueueFilters): Promise<QueueRow[]> {
+export async function listClaimQueue(viewer: Viewer, filters: Partial<ClaimQueueFilters>): Promise<QueueRow[]> {
   if (filters.tenderId) await getTender(viewer, filters.tenderId);
   if (!viewer.ability.can("list", "Claim")) {
     // Engineers and approvers reach claims only through declarations: until then their queue is empty.

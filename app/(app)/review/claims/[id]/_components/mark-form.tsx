@@ -1,0 +1,57 @@
+"use client";
+
+import { useState, useTransition } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
+import { MARKS } from "@/db/schema/evaluation";
+import { MARK_LABELS } from "@/lib/review/labels";
+import { markSchema, type MarkInput } from "@/lib/validation/review";
+import type { FormResult } from "@/app/(app)/review/run-form";
+import { markClaimAction } from "@/app/(app)/review/actions";
+import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+
+export function MarkForm({ claimId }: { claimId: string }) {
+  const [result, setResult] = useState<FormResult>({});
+  const [pending, startTransition] = useTransition();
+  const { register, handleSubmit, watch, reset, setError, formState } = useForm<z.input<typeof markSchema>, unknown, MarkInput>({
+    resolver: zodResolver(markSchema),
+    defaultValues: { mark: "accepted", comment: "", subject: "" },
+  });
+  const chosen = watch("mark");
+  const submit = handleSubmit((values) =>
+    startTransition(async () => {
+      const outcome = await markClaimAction(claimId, values);
+      setResult(outcome);
+      if (outcome.ok) reset();
+      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) setError(field as keyof MarkInput, { message: messages[0] });
+    }),
+  );
+  const errors = formState.errors;
+  return (
+    <form onSubmit={submit} aria-label="Mark this claim" className="space-y-3 border-t border-ink-faint/20 pt-3" noValidate>
+      <fieldset>
+        <legend className="label">Mark</legend>
+        <div className="flex flex-wrap gap-4 text-sm">
+          {MARKS.map((m) => (
+            <label key={m} className="inline-flex items-center gap-1"><input type="radio" value={m} {...register("mark")} /> {MARK_LABELS[m]}</label>
+          ))}
+        </div>
+      </fieldset>
+      {chosen === "clarification-requested" ? (
+        <div>
+          <label className="label" htmlFor="mark-subject">Question subject</label>
+          <input id="mark-subject" className="field" {...register("subject")} />
+          <FieldError message={errors.subject?.message} />
+        </div>
+      ) : null}
+      <div>
+        <label className="label" htmlFor="mark-comment">{chosen === "clarification-requested" ? "Question to the vendor" : "Comment"}{chosen === "accepted" ? " (optional)" : ""}</label>
+        <textarea id="mark-comment" rows={3} className="field" {...register("comment")} />
+        <FieldError message={errors.comment?.message} />
+      </div>
+      <FormStatus result={result} />
+      <button type="submit" className="btn" disabled={pending}>{pending ? "Saving…" : "Record mark"}</button>
+    </form>
+  );
+}

@@ -1,0 +1,34 @@
+"use client";
+
+import { useState, useTransition } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { threadSchema, type ThreadInput } from "@/lib/validation/review";
+import type { FormResult } from "@/app/(app)/review/run-form";
+import { openThreadAction } from "@/app/(app)/review/actions";
+import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+
+/** A question to the vendor without changing the claim's mark. */
+export function OpenThreadForm({ claimId }: { claimId: string }) {
+  const [result, setResult] = useState<FormResult>({});
+  const [pending, startTransition] = useTransition();
+  const { register, handleSubmit, reset, formState } = useForm<ThreadInput>({ resolver: zodResolver(threadSchema), defaultValues: { subject: "", body: "" } });
+  const submit = handleSubmit((values) =>
+    startTransition(async () => {
+      const outcome = await openThreadAction(claimId, values);
+      setResult(outcome);
+      if (outcome.ok) reset();
+    }),
+  );
+  return (
+    <details className="border-t border-ink-faint/20 pt-3">
+      <summary className="cursor-pointer text-sm text-accent">Ask the vendor a question</summary>
+      <form onSubmit={submit} aria-label="Ask the vendor" className="mt-2 space-y-2" noValidate>
+        <div><label className="label" htmlFor="thread-subject">Subject</label><input id="thread-subject" className="field" {...register("subject")} /><FieldError message={formState.errors.subject?.message} /></div>
+        <div><label className="label" htmlFor="thread-body">Question</label><textarea id="thread-body" rows={3} className="field" {...register("body")} /><FieldError message={formState.errors.body?.message} /></div>
+        <FormStatus result={result} />
+        <button type="submit" className="btn-quiet" disabled={pending}>Send question</button>
+      </form>
+    </details>
+  );
+}
