@@ -4,6 +4,7 @@ import { organisations, tenderInvitations, tenders, type RoleName } from "./sche
 import { insertUser } from "@/lib/server/people-store";
 import { seedDemoOffers } from "./seed-offers";
 import { seedDemoReview } from "./seed-review";
+import { seedDemoApprovalBands } from "./seed-approvals";
 import { appendLedger } from "@/lib/server/ledger";
 
 // Everything below is invented for the demonstration: no real company, person or figure.
@@ -167,6 +168,7 @@ async function insertDemo(tx: Queryable) {
   const ctx: DemoContext = { orgIds, userIds, tenderIds: { gauges, weirs, rain }, now };
   await seedDemoOffers(tx, ctx);
   await seedDemoReview(tx, ctx);
+  await seedDemoApprovalBands(tx, ctx);
 }
 
 type TenderValues = Omit<typeof tenders.$inferInsert, "createdBy">;
