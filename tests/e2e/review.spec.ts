@@ -1,0 +1,119 @@
+import { expect, test, type Page } from "@playwright/test";
+import { ACCOUNTS, signIn, signOut } from "./helpers";
+
+// One journey through the technical evaluation of the gauges tender (RC-2027-001), in order:
+// the engineer declares, reviews, records a lab run, asks a question the vendor answers, marks
+// every claim and signs; the admin finds the e-mails in the Mailroom.
+test.describe.configure({ mode: "serial" });
+
+let tenderPath = "";
+
+async function markIfUnmarked(page: Page, href: string) {
+  await page.goto(href);
+  const current = page.getByRole("banner").or(page.locator("header")).getByText("Not marked");
+  if ((await current.count()) === 0) return;
+  const form = page.getByRole("form", { name: "Mark this claim" });
+  const impossible = (await page.locator('header [data-verdict="impossible"]').count()) > 0;
+  if (impossible) {
+    await form.getByLabel("Rejected as impossible").check();
+    await form.getByLabel("Comment").fill("Beyond the converse bound at this operating point.");
+  } else {
+    await form.getByLabel("Accepted").check();
+  }
+  await form.getByRole("button", { name: "Record mark" }).click();
+  await expect(form.getByRole("status")).toHaveText("Mark recorded.");
+}
+
+test("the engineer declares no conflict and sees the verdict badges", async ({ page }) => {
+  await signIn(page, ACCOUNTS.engineer);
+  await page.goto("/review");
+  const declare = page.getByRole("link", { name: "Declare to review RC-2027-001" });
+  await expect(declare).toBeVisible();
+  const href = await declare.getAttribute("href");
+  tenderPath = href!.replace(/\/review$/, "");
+  await declare.click();
+  const form = page.getByRole("form", { name: "Conflict-of-interest declaration" });
+  await form.getByLabel("No conflict").check();
+  await form.getByLabel("Statement").fill("I have no financial, family or employment ties to any invited vendor.");
+  await form.getByRole("button", { name: "Declare" }).click();
+  await expect(page.getByRole("region", { name: "Declaration" })).toContainText("You declared no conflict");
+
+  await page.goto("/review");
+  const grid = page.getByRole("region", { name: "Claims" });
+  await expect(grid.getByText("Impossible").first()).toBeVisible();
+  await expect(grid.getByText("Needs evidence").first()).toBeVisible();
+  await expect(grid.getByText("Plausible").first()).toBeVisible();
+  await page.getByLabel("Verdict").selectOption("needs-evidence");
+  await expect(page).toHaveURL(/verdict=needs-evidence/);
+  await expect(grid.getByText("Plausible")).toHaveCount(0);
+  await expect(page.getByRole("note", { name: "Cautions" }).first()).toBeVisible();
+});
+
+test("the engineer records a lab run and asks Marram a question", async ({ page }) => {
+  await signIn(page, ACCOUNTS.engineer);
+  await page.goto("/review?verdict=needs-evidence");
+  await page.getByRole("link", { name: /Open claim Marram Telemetry/ }).first().click();
+  await expect(page.getByRole("region", { name: "Findings" })).toBeVisible();
+  await expect(page.getByRole("region", { name: "Numbers" })).toContainText("Least possible BLER");
+
+  const run = page.getByRole("form", { name: "Record a lab run" });
+  await run.getByLabel("Sent").fill("3000000");
+  await run.getByLabel("Errors counted").fill("0");
+  await run.getByLabel("Confidence").selectOption("0.95");
+  await run.getByRole("button", { name: "Record run" }).click();
+  await expect(run.getByRole("status")).toHaveText("Lab run recorded.");
+  await expect(page.getByRole("table", { name: "Lab runs" }).getByRole("row")).toHaveCount(3); // header, seeded run, this one
+
+  const mark = page.getByRole("form", { name: "Mark this claim" });
+  await mark.getByLabel("Clarification requested").check();
+  await mark.getByLabel("Question subject").fill("Decoder iterations at storm fade");
+  await mark.getByLabel("Question to the vendor").fill("How many decoder iterations give this BLER at p = 5e-3?");
+  await mark.getByRole("button", { name: "Record mark" }).click();
+  await expect(mark.getByRole("status")).toHaveText("Mark recorded.");
+  await expect(page.getByRole("listitem", { name: "Thread: Decoder iterations at storm fade" })).toBeVisible();
+  await signOut(page);
+});
+
+test("Marram answers the question; another vendor does not see it", async ({ page }) => {
+  await signIn(page, ACCOUNTS.oxbow);
+  await page.goto(`${tenderPath}/review`);
+  await expect(page.getByText("Decoder iterations at storm fade")).toHaveCount(0);
+  await signOut(page);
+
+  await signIn(page, ACCOUNTS.marram);
+  await page.goto(`${tenderPath}/review`);
+  const questions = page.getByRole("region", { name: "Questions from the evaluators" });
+  await expect(questions).toContainText("How many decoder iterations");
+  const reply = questions.getByRole("form", { name: "Reply: Decoder iterations at storm fade" });
+  await reply.getByLabel("Reply").fill("Twenty iterations, layered schedule, 4-bit messages.");
+  await reply.getByRole("button", { name: "Send reply" }).click();
+  await expect(reply.getByRole("status")).toHaveText("Message sent.");
+  await expect(questions).toContainText("Twenty iterations");
+  await signOut(page);
+});
+
+test("the engineer marks every claim and signs the technical evaluation", async ({ page }) => {
+  await signIn(page, ACCOUNTS.engineer);
+  await page.goto(`${tenderPath}/review`);
+  const links = page.getByRole("region", { name: "Claims of this tender" }).getByRole("link", { name: /Open claim/ });
+  const hrefs = await links.evaluateAll((as) => as.map((a) => a.getAttribute("href")!));
+  expect(hrefs.length).toBeGreaterThanOrEqual(8);
+  for (const href of hrefs) await markIfUnmarked(page, href);
+
+  await page.goto(`${tenderPath}/review`);
+  const signoff = page.getByRole("region", { name: "Technical sign-off" });
+  await expect(signoff).toContainText(`${hrefs.length} of ${hrefs.length} claims marked`);
+  await signoff.getByLabel("Statement").fill("Every claim reviewed against the bounds and the lab evidence.");
+  await signoff.getByRole("button", { name: "Sign the technical evaluation" }).click();
+  await expect(signoff).toContainText("Signed on");
+  await expect(page.locator('[data-state="commercial"]')).toBeVisible();
+  await signOut(page);
+});
+
+test("the admin finds the thread and sign-off e-mails in the Mailroom", async ({ page }) => {
+  await signIn(page, ACCOUNTS.admin);
+  await page.goto("/mailroom");
+  await expect(page.getByRole("listitem", { name: /question from the evaluators: Decoder iterations/ }).first()).toBeVisible();
+  await expect(page.getByRole("listitem", { name: /vendor answer: Decoder iterations/ }).first()).toBeVisible();
+  await expect(page.getByRole("listitem", { name: /technical evaluation signed/ }).first()).toBeVisible();
+});
