@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import type { Queryable } from "./client";
-import type { DemoContext } from "./seed";
+import { DEMO_USERS, type DemoContext } from "./seed";
 import { tenders } from "./schema";
 import { evaluateOffer } from "@/lib/offers";
 import { writeOfferVersion } from "@/lib/server/offers";
@@ -85,7 +85,7 @@ export async function seedDemoOffers(tx: Queryable, ctx: DemoContext): Promise<v
     await writeOfferVersion(tx, {
       tender,
       vendorOrgId: ctx.orgIds[demo.vendor],
-      actor: { id: ctx.userIds[demo.vendor], label: demo.vendor },
+      actor: { id: ctx.userIds[demo.vendor], label: DEMO_USERS.find((u) => u.key === demo.vendor)?.name ?? demo.vendor },
       input: demo.offer,
       claims: evaluation.claims,
       at: new Date(tender.closesAt.getTime() - demo.daysBeforeClosing * DAY),

@@ -52,15 +52,20 @@ export function claimInputFor(model: ChannelModel, pointValue: number, code: Off
   return { channel, code: engine, target: { metric: claim.metric, value: claim.value } };
 }
 
-const SEVERITY_ORDER = ["violation", "gap", "support", "info"] as const;
-
-/** The finding an engineer reads first: a violation, else a gap, else what supports the claim. */
+/**
+ * The finding an engineer reads first: the first violation, else the first gap, else the last
+ * supporting finding (the engine lists capacity, then converse, then achievability, so for a
+ * plausible claim that is the bound that guarantees it).
+ */
 export function keyFinding(result: Pick<ClaimResult, "findings">): ClaimResult["findings"][number] | null {
-  for (const severity of SEVERITY_ORDER) {
-    const found = result.findings.find((f) => f.severity === severity);
-    if (found) return found;
-  }
-  return null;
+  const { findings } = result;
+  return (
+    findings.find((f) => f.severity === "violation") ??
+    findings.find((f) => f.severity === "gap") ??
+    findings.filter((f) => f.severity === "support").at(-1) ??
+    findings[0] ??
+    null
+  );
 }
 
 /** The code's rate whichever way it was stated, or null when nothing was. */

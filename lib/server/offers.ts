@@ -23,7 +23,11 @@ function viewOf(viewer: Viewer, tender: TenderWithInvites, row: OfferRow, vendor
   const can = viewer.ability.can.bind(viewer.ability);
   const own = (r: { vendorOrgId: string }) => r.vendorOrgId === row.vendorOrgId;
   return {
+    // The record is authorised before it gets here; the policies then decide field by field.
     ...pickPermitted(viewer.ability, "read", "Offer", offerRecord(row, tender)),
+    id: row.id,
+    version: row.version,
+    status: row.status,
     vendorName,
     claims: claimRows
       .filter((c) => c.offerId === row.id && can("read", asSubject("Claim", c)))

@@ -50,8 +50,8 @@ export const offerClaimSchema = z
   });
 
 export const priceBreakSchema = z.object({
-  minQuantity: z.number().int("A whole number of units.").min(1, "At least 1 unit."),
-  unitPrice: z.number().gt(0, "Must be above 0.").max(1e9),
+  minQuantity: z.number({ error: () => "Enter the quantity." }).int("A whole number of units.").min(1, "At least 1 unit."),
+  unitPrice: z.number({ error: () => "Enter the unit price." }).gt(0, "Must be above 0.").max(1e9),
 });
 
 export const envelopeSchema = z.object({

@@ -40,6 +40,16 @@ describe("claimInputFor: an offer's claim at a tender's operating point, as the 
     expect(result.verdict).toBe("impossible");
     expect(keyFinding(result)?.severity).toBe("violation");
   });
+
+  it("leads a plausible claim with the bound that guarantees it, and a doubtful one with its gap", () => {
+    const honest = evaluateClaim(claimInputFor("bsc", 1e-3, nk, { metric: "bler", value: 1e-5 }));
+    expect(honest.verdict).toBe("plausible");
+    expect(keyFinding(honest)?.code).toBe("within-achievability");
+    const doubtful = evaluateClaim(claimInputFor("bsc", 5e-3, { n: 1024, k: 901 }, { metric: "bler", value: 1e-5 }));
+    expect(doubtful.verdict).toBe("needs-evidence");
+    expect(keyFinding(doubtful)?.severity).toBe("gap");
+    expect(keyFinding({ findings: [] })).toBeNull();
+  });
 });
 
 const tender = {

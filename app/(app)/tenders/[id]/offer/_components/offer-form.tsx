@@ -1,0 +1,90 @@
+"use client";
+
+import { useState, useTransition } from "react";
+import { FormProvider, useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { errorAt, FieldError } from "@/app/(app)/tenders/_components/field-error";
+import type { ChannelModel } from "@/lib/offers";
+import { offerSchema, type OfferFormValues, type OfferInput } from "@/lib/validation/offer";
+import { submitOfferAction, type OfferFormResult } from "../actions";
+import { ClaimsFields, toNullable } from "./claims-fields";
+import { EnvelopeFields } from "./envelope-fields";
+
+interface Props {
+  tenderId: string;
+  model: ChannelModel;
+  points: { label: string; value: number }[];
+  defaults: OfferFormValues;
+  resubmission: boolean;
+}
+
+export function OfferForm({ tenderId, model, points, defaults, resubmission }: Props) {
+  const [result, setResult] = useState<OfferFormResult>({});
+  const [pending, startTransition] = useTransition();
+  const form = useForm<OfferFormValues, unknown, OfferInput>({ resolver: zodResolver(offerSchema), defaultValues: defaults });
+  const { register, handleSubmit, formState, setError } = form;
+  const err = (path: string) => errorAt(formState.errors, path);
+
+  const submit = handleSubmit((values) =>
+    startTransition(async () => {
+      const outcome = await submitOfferAction(tenderId, values);
+      setResult(outcome);
+      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) {
+        setError(field as keyof OfferFormValues, { message: messages[0] });
+      }
+    }),
+  );
+  const text = (name: "moduleName" | "partNumber" | "code.family", id: string, label: string) => (
+    <div>
+      <label className="label" htmlFor={id}>{label}</label>
+      <input id={id} className="field" aria-invalid={Boolean(err(name))} aria-describedby={`${id}-error`} {...register(name)} />
+      <FieldError id={`${id}-error`} message={err(name)} />
+    </div>
+  );
+  const codeNumber = (name: "n" | "k" | "rate" | "overhead", label: string) => (
+    <div>
+      <label className="label" htmlFor={`code-${name}`}>{label}</label>
+      <input id={`code-${name}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err(`code.${name}`))} aria-describedby={`code-${name}-error`} {...register(`code.${name}`, { setValueAs: toNullable })} />
+      <FieldError id={`code-${name}-error`} message={err(`code.${name}`)} />
+    </div>
+  );
+
+  return (
+    <FormProvider {...form}>
+      <form onSubmit={submit} className="panel space-y-5" aria-label="Offer form" noValidate>
+        {result.message ? (
+          <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>{result.message}</p>
+        ) : null}
+        <section className="grid gap-3 md:grid-cols-2" aria-label="Module">
+          {text("moduleName", "module-name", "Module name")}
+          {text("partNumber", "part-number", "Part number")}
+        </section>
+        <section className="space-y-3" aria-label="Code">
+          <h3>Forward error correction</h3>
+          <div className="grid gap-3 md:grid-cols-2">
+            {text("code.family", "code-family", "Code family (LDPC, BCH, RS, polar, turbo, convolutional…)")}
+            <div>
+              <label className="label" htmlFor="code-decision">Decoder input</label>
+              <select id="code-decision" className="field" {...register("code.decision")}>
+                <option value="hard">Hard decision</option>
+                <option value="soft">Soft decision</option>
+              </select>
+            </div>
+          </div>
+          <p className="text-xs text-ink-soft">Give n and k, or a code rate, or an overhead (n/k − 1); n may accompany a rate or an overhead.</p>
+          <div className="grid gap-3 md:grid-cols-4">
+            {codeNumber("n", "Block length n (bits)")}
+            {codeNumber("k", "Information bits k")}
+            {codeNumber("rate", "Code rate k/n")}
+            {codeNumber("overhead", "Overhead (e.g. 0.07)")}
+          </div>
+        </section>
+        <ClaimsFields model={model} points={points} />
+        <EnvelopeFields />
+        <button type="submit" className="btn" disabled={pending}>
+          {pending ? "Submitting…" : resubmission ? "Submit a new version" : "Submit offer"}
+        </button>
+      </form>
+    </FormProvider>
+  );
+}

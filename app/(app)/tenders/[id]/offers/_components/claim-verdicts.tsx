@@ -1,0 +1,60 @@
+import { VerdictBadge } from "@/app/_components/verdict-badge";
+import { formatCondition, formatSci } from "@/lib/format";
+import type { ChannelModel } from "@/lib/offers";
+import type { OfferView } from "@/lib/server/offers";
+
+type ClaimView = OfferView["claims"][number];
+interface Finding { code: string; severity: string; message: string; source: string }
+
+/** A claim as the trade states it: "BLER 1e-5", or a net coding gain with its output BER. */
+export function describeClaim(claim: Pick<ClaimView, "metric" | "value" | "ncgOutputBer">): string {
+  if (claim.metric === "ncg") return `NCG ${claim.value} dB at output BER ${formatSci(claim.ncgOutputBer ?? Number.NaN)}`;
+  return `${claim.metric.toUpperCase()} ${formatSci(claim.value)}`;
+}
+
+/**
+ * Each operating point's claim with its verdict and the finding that decided it; with `detail`,
+ * every finding and the published result behind it (what a vendor reads to correct a typo).
+ */
+export function ClaimVerdicts({ claims, model, detail = false }: { claims: ClaimView[]; model: ChannelModel; detail?: boolean }) {
+  if (claims.length === 0) return <p className="text-sm text-ink-soft">No claims to show.</p>;
+  return (
+    <table className="data-table">
+      <thead>
+        <tr>
+          <th>Operating point</th>
+          <th>Claim</th>
+          <th>Verdict</th>
+          <th>{detail ? "Findings" : "Key finding"}</th>
+        </tr>
+      </thead>
+      <tbody>
+        {claims.map((claim) => {
+          const findings = (claim.result as { findings?: Finding[] }).findings ?? [];
+          const shown = detail ? findings : claim.keyFinding ? [claim.keyFinding] : [];
+          return (
+            <tr key={claim.id} data-claim={claim.pointLabel}>
+              <td>
+                {claim.pointLabel}
+                <div className="text-xs text-ink-soft">{formatCondition(model, claim.channelValue)}</div>
+              </td>
+              <td className="tabular-nums whitespace-nowrap">{describeClaim(claim)}</td>
+              <td><VerdictBadge verdict={claim.verdict} /></td>
+              <td className="text-xs">
+                <ul className="space-y-1">
+                  {shown.map((f) => (
+                    <li key={f.code}>
+                      {f.message}
+                      {detail ? <span className="block text-ink-faint">{f.source}</span> : null}
+                    </li>
+                  ))}
+                </ul>
+                <span className="text-ink-faint">Engine {claim.engineVersion}</span>
+              </td>
+            </tr>
+          );
+        })}
+      </tbody>
+    </table>
+  );
+}
