@@ -2,14 +2,14 @@ import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { claims, evidenceRuns, offers, organisations } from "@/db/schema";
+import { claims, evidenceRuns, offers } from "@/db/schema";
 import type { EvidenceResult } from "@/lib/bounds";
 import { assessRun, type EvidenceUnit } from "@/lib/review/evidence";
 import { validateEvidenceRows, type CsvClaim, type CsvReport } from "@/lib/review/csv";
 import type { EvidenceRunInput } from "@/lib/validation/review";
 import { ConflictError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
-import { loadClaim, type LoadedClaim } from "./review";
+import { claimJoin, loadClaim, type LoadedClaim } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
 
 type ClaimRow = typeof claims.$inferSelect;
@@ -102,12 +102,7 @@ export interface ImportOutcome extends Omit<CsvReport, "valid"> {
 export async function importEvidence(viewer: Viewer, claimId: string, csv: string): Promise<ImportOutcome> {
   const { claim } = await claimForRecording(viewer, claimId);
   const db = await getDb();
-  const rows = await db
-    .select({ claim: claims, vendorName: organisations.name })
-    .from(claims)
-    .innerJoin(offers, eq(offers.id, claims.offerId))
-    .innerJoin(organisations, eq(organisations.id, claims.vendorOrgId))
-    .where(and(eq(claims.tenderId, claim.tenderId), eq(offers.status, "submitted")));
+  const rows = await claimJoin(db).where(and(eq(claims.tenderId, claim.tenderId), eq(offers.status, "submitted")));
   const recordable: CsvClaim[] = rows
     .filter((r) => viewer.ability.can("record", runSubject(r.claim)))
     .map(({ claim: c, vendorName }) => ({ ...c, vendorName }));

@@ -28,7 +28,8 @@ function refusal(viewer: Viewer, tenderId: string, vendorOrgId: string): Error {
 }
 
 const claimColumns = { claim: claims, offer: offers, vendorName: organisations.name, tender: tenders };
-const claimJoin = (db: Queryable) =>
+/** Claims with their offer, vendor name and tender: the one join the review reads through. */
+export const claimJoin = (db: Queryable) =>
   db
     .select(claimColumns)
     .from(claims)
