@@ -43,3 +43,15 @@ export function buildBoundCharts(view: BoundView): BoundCharts {
   const rate = rateCurve({ model: view.model, x, targetBler: view.target, nMin: 16, nMax: Math.max(10_000, view.n * 4), points: 28 });
   return { view, result, channel, rate };
 }
+
+/** The chart view of a stored verdict: its code and the channel the engine actually used (null without n and k). */
+export function boundViewOfResult(result: ClaimResult): BoundView | null {
+  const { n, k, channel, target } = result;
+  if (n == null || k == null || !Number.isInteger(k) || k < 1 || n < 2) return null;
+  const x =
+    channel.model === "bsc" ? channel.p
+    : channel.model === "bec" ? channel.e
+    : channel.ebn0Db ?? (channel.esn0Db == null ? undefined : channel.esn0Db - 10 * Math.log10(k / n));
+  if (x == null || !Number.isFinite(x) || x <= 0 && channel.model !== "biawgn") return null;
+  return { model: channel.model, x, n, k, target: Math.min(target.value, 0.49) };
+}

@@ -9,7 +9,7 @@ import { authorize } from "@/lib/server/session";
 import { describeZodError } from "@/lib/validation/messages";
 import { EXPLORER_DEFAULTS, explorerSchema } from "@/lib/validation/explorer";
 import { ExplorerForm } from "./_components/explorer-form";
-import { BoundNumbers } from "./_components/bound-numbers";
+import { ClaimFindings, ClaimNumbers } from "@/app/_components/claim-numbers";
 
 export const metadata: Metadata = { title: "Bound explorer" };
 
@@ -44,17 +44,13 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
             Rate {charts.result.rate.toFixed(4)} bits per channel use, capacity {charts.result.capacity.toFixed(4)}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
           </span>
         </div>
-        <ul className="list-disc space-y-1 pl-5 text-sm">
-          {charts.result.findings.map((f) => (
-            <li key={f.code}>{f.message} <span className="text-xs text-ink-faint">({f.source})</span></li>
-          ))}
-        </ul>
       </section>
+      <ClaimFindings result={charts.result} />
       <div className="grid gap-5 lg:grid-cols-2">
         <section className="panel"><h2>Block error rate against the channel</h2><ChannelChart charts={charts} /></section>
         <section className="panel"><h2>Best rate against block length at BLER {formatSci(view.target)}</h2><RateChart charts={charts} /></section>
       </div>
-      <BoundNumbers result={charts.result} />
+      <ClaimNumbers result={charts.result} />
       <Cautions />
     </div>
   );

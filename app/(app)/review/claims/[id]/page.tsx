@@ -12,7 +12,8 @@ import { orPage, pageViewer } from "@/lib/server/pages";
 import { getClaimDetail } from "@/lib/server/review";
 import { listThreads } from "@/lib/server/threads";
 import { ThreadList } from "@/app/(app)/threads/_components/thread-list";
-import { ClaimNumbers, ClaimFindings } from "./_components/claim-numbers";
+import { ClaimNumbers, ClaimFindings } from "@/app/_components/claim-numbers";
+import { ClaimCharts } from "./_components/claim-charts";
 import { EvidencePanel } from "./_components/evidence-panel";
 import { MarkForm } from "./_components/mark-form";
 import { OpenThreadForm } from "./_components/open-thread-form";
@@ -50,7 +51,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
 
       <ClaimFindings result={claim.result} />
       <ClaimNumbers result={claim.result} />
-      {/* Slot for the chart of this claim against the bounds (app/_components/bound-charts.tsx), to be wired by the lead. */}
+      <ClaimCharts result={claim.result} />
 
       <section className="panel" aria-label="Documents">
         <h2>Documents</h2>

@@ -1,0 +1,31 @@
+import { ChannelChart, RateChart } from "@/app/_components/bound-charts";
+import { claimResultSchema } from "@/lib/bounds";
+import { boundViewOfResult, buildBoundCharts } from "@/lib/explorer";
+
+/** The claim against the bounds at its own n and k, with the same charts as the Bound explorer. */
+export function ClaimCharts({ result }: { result: unknown }) {
+  const parsed = claimResultSchema.safeParse(result);
+  const view = parsed.success ? boundViewOfResult(parsed.data) : null;
+  if (!view) {
+    return (
+      <section className="panel" aria-label="Charts">
+        <h2>The claim against the bounds</h2>
+        <p className="mt-2 text-sm text-ink-soft">The offer states a rate without n and k, so only the asymptotic checks apply and there is no finite-length chart.</p>
+      </section>
+    );
+  }
+  const charts = buildBoundCharts(view);
+  const query = new URLSearchParams({ model: view.model, x: String(view.x), n: String(view.n), k: String(view.k), target: String(view.target) });
+  return (
+    <section className="panel space-y-3" aria-label="Charts">
+      <div className="flex items-baseline justify-between">
+        <h2>The claim against the bounds</h2>
+        <a href={`/explorer?${query}`} className="text-sm">Open in the Bound explorer</a>
+      </div>
+      <div className="grid gap-5 lg:grid-cols-2">
+        <ChannelChart charts={charts} />
+        <RateChart charts={charts} />
+      </div>
+    </section>
+  );
+}
