@@ -11,6 +11,7 @@ export function navFor(ability: AppAbility, roles: readonly string[], options: {
   if (ability.can("read", "Tender")) items.push({ href: "/tenders", label: "Tenders" });
   // Engineers reach their bench before declaring on any tender; the bench asks for the declaration.
   if (roles.includes("engineer")) items.push({ href: "/review", label: "Review bench" });
+  if (ability.can("list", "Thread")) items.push({ href: "/threads", label: "Clarifications" });
   if (ability.can("use", "Bounds")) items.push({ href: "/explorer", label: "Bound explorer" });
   if (ability.can("manage", "User")) items.push({ href: "/people", label: "People" });
   if (options.mailroom && ability.can("use", "Mailroom")) items.push({ href: "/mailroom", label: "Mailroom" });
