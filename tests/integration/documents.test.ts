@@ -30,17 +30,21 @@ beforeAll(async () => {
   services = await startLocalServices({ dataDir: folder, smtpPort: 0, s3Port: 0 });
   for (const o of await db.select().from(organisations)) orgIds[o.name] = o.id;
   [{ id: weirs }] = await db.select({ id: tenders.id }).from(tenders).where(eq(tenders.reference, "RC-2027-003"));
-  const oxbow = await signInAs("bids@oxbow.example");
+  oxbowOfferId = (await submitOxbow("Oxbow OW-Weir")).id;
+});
+
+/** Oxbow's honest offer to the weirs tender (one point, p = 2e-3). */
+async function submitOxbow(moduleName: string) {
   const body = {
-    moduleName: "Oxbow OW-Weir",
+    moduleName,
     partNumber: "OW-W1",
     code: { family: "LDPC", decision: "hard", n: 2048, k: 1536 },
     claims: [{ pointIndex: 0, metric: "bler", value: 1e-5 }],
     envelope: { unitPrice: 61, currency: "EUR", leadTimeWeeks: 9, warrantyMonths: 24, priceBreaks: [] },
   };
-  const response = await submitPost(request(`/api/v1/tenders/${weirs}/offers`, { method: "POST", headers: oxbow, body }), params({ id: weirs }));
-  oxbowOfferId = (await response.json()).id;
-});
+  const headers = await signInAs("bids@oxbow.example");
+  return (await submitPost(request(`/api/v1/tenders/${weirs}/offers`, { method: "POST", headers, body }), params({ id: weirs }))).json();
+}
 
 afterAll(async () => {
   await closeDb();
@@ -106,14 +110,7 @@ describe("uploading a PDF", () => {
 
   it("carries over to the next version of the offer", async () => {
     const oxbow = await signInAs("bids@oxbow.example");
-    const body = {
-      moduleName: "Oxbow OW-Weir rev B",
-      partNumber: "OW-W1B",
-      code: { family: "LDPC", decision: "hard", n: 2048, k: 1536 },
-      claims: [{ pointIndex: 0, metric: "bler", value: 1e-5 }],
-      envelope: { unitPrice: 60, currency: "EUR", leadTimeWeeks: 9, warrantyMonths: 24, priceBreaks: [] },
-    };
-    const second = await (await submitPost(request(`/api/v1/tenders/${weirs}/offers`, { method: "POST", headers: oxbow, body }), params({ id: weirs }))).json();
+    const second = await submitOxbow("Oxbow OW-Weir rev B");
     expect(second.version).toBe(2);
     expect(second.documents.map((d: { id: string }) => d.id)).toEqual([documentId]);
     const detail = await (await offerGet(request(`/api/v1/offers/${second.id}`, { headers: oxbow }), params({ id: second.id }))).json();
