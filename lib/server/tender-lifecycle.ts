@@ -19,14 +19,15 @@ import { ConflictError, InputError } from "./errors";
 // Serialises reference numbering so that two drafts never take the same sequence.
 const REFERENCE_LOCK = 72_011_950;
 
-/** Invitations go to vendor organisations only. */
-async function checkInvitations(db: Queryable, ids: string[]) {
-  if (ids.length === 0) return;
+/** Invitations go to vendor organisations only; their names, sorted, for the ledger. */
+async function checkInvitations(db: Queryable, ids: string[]): Promise<string[]> {
+  if (ids.length === 0) return [];
   const found = await db.select().from(organisations).where(inArray(organisations.id, ids));
-  const vendors = new Set(found.filter((o) => o.kind === "vendor").map((o) => o.id));
+  const vendors = new Map(found.filter((o) => o.kind === "vendor").map((o) => [o.id, o.name]));
   if (ids.some((id) => !vendors.has(id))) {
     throw new InputError("Only vendor organisations can be invited.", { invitedOrgIds: ["Choose vendor organisations only."] });
   }
+  return [...vendors.values()].sort();
 }
 
 async function reload(db: Queryable, id: string): Promise<TenderWithInvites> {
@@ -54,7 +55,7 @@ async function tenderFor(viewer: Viewer, id: string, action: TenderAction, probl
 export async function createTender(viewer: Viewer, input: TenderInput): Promise<TenderWithInvites> {
   authorize(viewer, "create", asSubject("Tender", { id: "", state: "draft", createdBy: viewer.actor.id, invitedOrgIds: input.invitedOrgIds }));
   const db = await getDb();
-  await checkInvitations(db, input.invitedOrgIds);
+  const invited = await checkInvitations(db, input.invitedOrgIds);
   const id = await db.transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(${REFERENCE_LOCK})`);
     const year = new Date().getUTCFullYear();
@@ -70,7 +71,7 @@ export async function createTender(viewer: Viewer, input: TenderInput): Promise<
       action: "tender.created",
       subjectType: "Tender",
       subjectId: row.id,
-      data: { reference, title: row.title, invitedOrgIds: [...input.invitedOrgIds].sort() },
+      data: { reference, title: row.title, invited, invitedOrgIds: [...input.invitedOrgIds].sort() },
     });
     return row.id;
   });
@@ -123,6 +124,7 @@ export async function openTender(viewer: Viewer, id: string): Promise<TenderWith
   });
 
   const db = await getDb();
+  const invited = await checkInvitations(db, tender.invitedOrgIds);
   const opened = await db.transaction(async (tx) => {
     const [row] = await tx
       .update(tenders)
@@ -138,6 +140,7 @@ export async function openTender(viewer: Viewer, id: string): Promise<TenderWith
       subjectId: id,
       data: {
         reference: row.reference,
+        invited,
         invitedOrgIds: [...tender.invitedOrgIds].sort(),
         closesAt: row.closesAt.toISOString(),
         closesZone: row.closesZone,

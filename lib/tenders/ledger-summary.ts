@@ -22,7 +22,8 @@ function short(value: unknown): string {
  */
 export function summariseLedgerData(data: Record<string, unknown>): string {
   const parts = Object.entries(data)
-    .filter(([key]) => key !== "reference")
+    // The reference is in the page's header; ids are for machines (names sit beside them).
+    .filter(([key]) => key !== "reference" && !key.endsWith("Ids"))
     .map(([key, value]) => `${key}: ${short(value)}`);
   const line = parts.join("; ");
   return line.length > MAX_LENGTH ? `${line.slice(0, MAX_LENGTH - 1)}…` : line;

@@ -93,7 +93,7 @@ describe("drafting a tender", () => {
     expect([10, 11]).toContain(stored.closesAt.getUTCHours());
     expect(stored.closesZone).toBe("Europe/Berlin");
     const [created] = await entries(tender.id, "tender.created");
-    expect(created.data).toMatchObject({ reference: tender.reference });
+    expect(created.data).toMatchObject({ reference: tender.reference, invited: ["Kestrelink Radio", "Marram Telemetry"] });
     expect(created.actorLabel).toBe("Ines Calloway");
   });
 

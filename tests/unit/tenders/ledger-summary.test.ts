@@ -6,6 +6,10 @@ describe("ledger summaries", () => {
     expect(summariseLedgerData({ reference: "RC-2027-004", from: "open", reason: "Budget withdrawn." })).toBe("from: open; reason: Budget withdrawn.");
   });
 
+  it("name invited organisations, leaving their ids to the stored entry", () => {
+    expect(summariseLedgerData({ invited: ["Kestrelink Radio", "Oxbow Wireless"], invitedOrgIds: ["a", "b"] })).toBe("invited: Kestrelink Radio, Oxbow Wireless");
+  });
+
   it("read an edit as the changed values", () => {
     const data = { fields: ["quantity", "title"], changes: { quantity: { from: 250, to: 300 }, title: { from: "A", to: "B" } } };
     expect(summariseLedgerData(data)).toBe("fields: quantity, title; changes: quantity 250 → 300, title A → B");
