@@ -5,6 +5,7 @@ import type { MemoDocument } from "@/lib/pdf/memo";
 import type { ChannelModel, OperatingPoint } from "@/db/schema/tenders";
 import type { MarkKind } from "@/db/schema/evaluation";
 import type { ClaimMetric, Verdict } from "@/db/schema/offers";
+import { MARK_LABELS } from "@/lib/review/labels";
 import { formatScore, standingsOf } from "./score-sheet";
 
 export interface MemoFacts {
@@ -43,12 +44,6 @@ export interface MemoFacts {
   cautions: string;
 }
 
-const MARK_WORDS: Record<MarkKind, string> = {
-  accepted: "Accepted",
-  "rejected-impossible": "Rejected as impossible",
-  "evidence-requested": "Evidence requested",
-  "clarification-requested": "Clarification requested",
-};
 
 export function claimWords(c: Pick<MemoFacts["offers"][number]["claims"][number], "metric" | "value" | "ncgOutputBer">): string {
   if (c.metric === "ncg") return `Net coding gain ${c.value} dB at BER ${c.ncgOutputBer === null ? "?" : formatSci(c.ncgOutputBer)}`;
@@ -93,7 +88,7 @@ export function memoDocument(f: MemoFacts): MemoDocument {
         point: `${c.pointLabel} (${formatCondition(t.channelModel, c.channelValue)})`,
         claim: claimWords(c),
         verdict: c.verdict,
-        review: c.mark ? MARK_WORDS[c.mark] : "Not marked",
+        review: c.mark ? MARK_LABELS[c.mark] : "Not marked",
       })),
     })),
     scores: standings.map((s) => ({

@@ -73,7 +73,7 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
       id: o.id,
       vendorName: o.vendorName,
       moduleName: o.moduleName,
-      claims: o.claims.map((c) => ({ id: c.id, point: scoring.tender.operatingPoints[c.pointIndex]?.label ?? `Point ${c.pointIndex + 1}`, metric: c.metric, value: c.value, verdict: c.verdict, mark: c.mark })),
+      claims: o.claims.map((c) => ({ id: c.id, point: scoring.tender.operatingPoints[c.pointIndex]?.label ?? `Point ${c.pointIndex + 1}`, metric: c.metric, value: c.value, ncgOutputBer: c.ncgOutputBer, verdict: c.verdict, mark: c.mark })),
     })),
     decisions,
     routedTo: rule ? (await eligibleApprovers(db, tender, rec, rule)).map((u) => u.name) : [],

@@ -1,0 +1,37 @@
+"use client";
+
+import { useState, useTransition } from "react";
+import type { FormResult } from "@/app/(app)/review/run-form";
+import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+import { decisionSchema } from "@/lib/validation/approvals";
+import { fieldErrorsOf } from "@/lib/validation/messages";
+import { decideAction } from "../actions";
+
+/** Approve, or return to the buyer with a comment (required for a return). */
+export function DecisionForm({ tenderId, summary }: { tenderId: string; summary: string }) {
+  const [comment, setComment] = useState("");
+  const [result, setResult] = useState<FormResult>({});
+  const [pending, startTransition] = useTransition();
+  const send = (decision: "approve" | "return") => {
+    const values = { decision, comment };
+    const parsed = decisionSchema.safeParse(values);
+    if (!parsed.success) return setResult({ message: "Check the comment.", fieldErrors: fieldErrorsOf(parsed.error) });
+    startTransition(async () => setResult(await decideAction(tenderId, values)));
+  };
+  return (
+    <form onSubmit={(e) => e.preventDefault()} aria-label="Decision" className="space-y-3" noValidate>
+      <p className="text-sm">{summary}</p>
+      <div>
+        <label className="label" htmlFor="decision-comment">Comment (required to return)</label>
+        <textarea id="decision-comment" rows={3} className="field" value={comment} onChange={(e) => setComment(e.target.value)} />
+        <FieldError message={result.fieldErrors?.comment?.[0]} />
+      </div>
+      <FormStatus result={result} />
+      <div className="flex gap-2">
+        <button type="button" className="btn" disabled={pending} onClick={() => send("approve")}>Approve</button>
+        <button type="button" className="btn-quiet" disabled={pending} onClick={() => send("return")}>Return to the buyer</button>
+      </div>
+      <p className="text-xs text-ink-soft">Your decision is recorded in the ledger with your name and the time; it cannot be undone.</p>
+    </form>
+  );
+}
