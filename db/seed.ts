@@ -167,6 +167,8 @@ async function insertDemo(tx: Queryable) {
 
   const ctx: DemoContext = { orgIds, userIds, tenderIds: { gauges, weirs, rain }, now };
   await seedDemoOffers(tx, ctx);
+  // The gauges tender closed after its offers came in.
+  await appendLedger(tx, { tenderId: gauges, actor: null, action: "tender.closed", subjectType: "Tender", subjectId: gauges, data: {} });
   await seedDemoReview(tx, ctx);
   await seedDemoApprovalBands(tx, ctx);
 }
@@ -181,8 +183,5 @@ async function insertTender(tx: Queryable, buyer: { id: string; label: string },
     appendLedger(tx, { tenderId: row.id, actor: buyer, action, subjectType: "Tender", subjectId: row.id, data });
   await entry("tender.created", { reference: row.reference });
   if (row.state !== "draft") await entry("tender.opened", { invited: invited.length });
-  if (row.state === "technical") {
-    await appendLedger(tx, { tenderId: row.id, actor: null, action: "tender.closed", subjectType: "Tender", subjectId: row.id, data: {} });
-  }
   return row.id;
 }
