@@ -1,0 +1,156 @@
+import { createHash } from "node:crypto";
+import { readFile } from "node:fs/promises";
+import { expect, test, type APIRequestContext, type Browser, type Page } from "@playwright/test";
+import { ACCOUNTS, signIn } from "./helpers";
+
+// From recommendation to award on the demo gauges tender (RC-2027-001): two approvals for the
+// high-value band, a return and a resubmission on the way, the memo downloaded, its fingerprint
+// confirmed on the public Memo check, and the notices in the Mailroom.
+//
+// Starting state: the demo seed with the demo approval bands. The tender may be in technical
+// evaluation (the preparation below marks, signs and opens the envelopes through the API), or
+// already in commercial evaluation (e.g. after the review journey signed it).
+test.describe.configure({ mode: "serial" });
+
+const REFERENCE = "RC-2027-001";
+// 4,000 radios with installation and support: the band from 250,000 EUR needs two approvals.
+const VALUE = 250_000;
+let tenderId = "";
+let memoFile = "";
+let fingerprint = "";
+
+async function as(browser: Browser, email: string): Promise<Page> {
+  const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
+  await signIn(page, email);
+  return page;
+}
+
+async function json(api: APIRequestContext, method: "get" | "post", url: string, data?: unknown) {
+  const response = await api[method](url, data === undefined ? {} : { data });
+  return { status: response.status(), body: await response.json().catch(() => null) };
+}
+
+async function tenderState(api: APIRequestContext): Promise<string> {
+  return (await json(api, "get", `/api/v1/tenders/${tenderId}`)).body.state;
+}
+
+/** Brings the tender to commercial evaluation with its envelopes open (idempotent). */
+async function prepare(browser: Browser) {
+  const buyer = await as(browser, ACCOUNTS.buyer);
+  const list = (await json(buyer.request, "get", "/api/v1/tenders")).body;
+  tenderId = (Array.isArray(list) ? list : list.tenders).find((t: { reference: string }) => t.reference === REFERENCE).id;
+  if ((await tenderState(buyer.request)) === "technical") {
+    const engineer = (await as(browser, ACCOUNTS.engineer)).request;
+    await json(engineer, "post", `/api/v1/tenders/${tenderId}/declaration`, { conflict: "none", conflictedOrgIds: [], statement: "No ties to any invited vendor." });
+    const { claims } = (await json(engineer, "get", `/api/v1/claims?tenderId=${tenderId}&mark=unmarked`)).body;
+    for (const c of claims as { id: string; verdict: string }[]) {
+      const mark = c.verdict === "impossible" ? { mark: "rejected-impossible", comment: "Beyond the converse bound at this block length." } : { mark: "accepted", comment: "" };
+      expect((await json(engineer, "post", `/api/v1/claims/${c.id}/marks`, mark)).status).toBeLessThan(300);
+    }
+    expect((await json(engineer, "post", `/api/v1/tenders/${tenderId}/signoff`, { statement: "Every claim reviewed against the bounds." })).status).toBe(201);
+  }
+  if ((await tenderState(buyer.request)) === "commercial") {
+    await json(buyer.request, "post", `/api/v1/tenders/${tenderId}/envelopes`);
+    await recommend(buyer.request, "Best total score with honest claims at both operating points; installation and five years of support included.");
+  }
+  expect(await tenderState(buyer.request)).toBe("approval");
+}
+
+async function recommend(api: APIRequestContext, justification: string) {
+  const comparison = (await json(api, "get", `/api/v1/tenders/${tenderId}/comparison`)).body;
+  const best = comparison.sheet.offers.find((o: { rank: number | null }) => o.rank === 1);
+  const posted = await json(api, "post", `/api/v1/tenders/${tenderId}/recommendation`, { offerId: best.offerId, quantity: 4000, value: VALUE, justification });
+  expect(posted.status).toBe(201);
+}
+
+async function openSignOff(page: Page) {
+  await page.goto(`/tenders/${tenderId}/sign-off`);
+  const declaration = page.getByRole("form", { name: "Conflict-of-interest declaration" });
+  if (await declaration.isVisible()) {
+    await declaration.getByLabel("No conflict").check();
+    await declaration.getByLabel("Statement").fill("I have no ties to any invited vendor.");
+    await declaration.getByRole("button", { name: "Declare" }).click();
+    await expect(page.getByRole("region", { name: "Recommendation" }).or(declaration.getByRole("status"))).toBeVisible();
+    await page.reload();
+    await expect(page.getByRole("region", { name: "Recommendation" })).toBeVisible();
+  }
+}
+
+async function decide(page: Page, button: "Approve" | "Return to the buyer", comment: string, done: string) {
+  await openSignOff(page);
+  const form = page.getByRole("form", { name: "Decision" });
+  await form.getByLabel("Comment (required to return)").fill(comment);
+  await form.getByRole("button", { name: button }).click();
+  await expect(form.getByRole("status")).toHaveText(done);
+}
+
+test("two approvers sign the high-value award after a return and a resubmission", async ({ browser }) => {
+  await prepare(browser);
+  const helen = await as(browser, ACCOUNTS.approver);
+  const tomas = await as(browser, ACCOUNTS.director);
+
+  await openSignOff(helen);
+  await expect(helen.getByLabel("Approval rule")).toContainText("needs 2 approvals");
+  await expect(helen.getByRole("region", { name: "Verdicts per offer" })).toContainText("Impossible");
+  await expect(helen.locator('iframe[title="Memo preview"]')).toBeVisible();
+  await expect(helen.getByRole("note", { name: "Cautions" })).toBeVisible();
+  await decide(helen, "Approve", "Within the budget line for gauges.", "Approval recorded.");
+
+  // A return needs a comment; with one, it goes back to the buyer.
+  await openSignOff(tomas);
+  const form = tomas.getByRole("form", { name: "Decision" });
+  await form.getByRole("button", { name: "Return to the buyer" }).click();
+  await expect(form.getByText(/Say why you return it/)).toBeVisible();
+  await decide(tomas, "Return to the buyer", "Confirm the lead time in writing before we sign.", "Returned to the buyer for revision.");
+
+  const buyer = await as(browser, ACCOUNTS.buyer);
+  expect(await tenderState(buyer.request)).toBe("commercial");
+  await recommend(buyer.request, "Lead time confirmed in writing at ten weeks; installation and five years of support included.");
+
+  await decide(tomas, "Approve", "Lead time confirmed.", "Approval recorded.");
+  // The same person cannot give both approvals: the form is gone for Tomas.
+  await tomas.reload();
+  await expect(tomas.getByRole("form", { name: "Decision" })).toHaveCount(0);
+  await decide(helen, "Approve", "Second signature.", "Approval recorded.");
+
+  await helen.reload();
+  const memo = helen.getByRole("region", { name: "Award memo" });
+  await expect(memo).toContainText(`Award memo ${REFERENCE}-M1`);
+  fingerprint = (await helen.getByTestId("memo-fingerprint").textContent())!.trim();
+  expect(fingerprint).toMatch(/^[0-9a-f]{64}$/);
+  const [download] = await Promise.all([helen.waitForEvent("download"), memo.getByRole("link", { name: "Download the memo (PDF)" }).click()]);
+  memoFile = (await download.path())!;
+  expect(createHash("sha256").update(await readFile(memoFile)).digest("hex")).toBe(fingerprint);
+});
+
+test("anyone confirms the memo on Memo check, and a changed copy fails", async ({ page }) => {
+  await page.goto("/memo-check");
+  await expect(page.getByRole("note", { name: "Cautions" })).toBeVisible();
+  await page.getByLabel("Memo file (PDF)").setInputFiles(memoFile);
+  await page.getByRole("button", { name: "Check the file" }).click();
+  const result = page.getByRole("status", { name: "Check result" });
+  await expect(result).toContainText(`Authentic memo ${REFERENCE}-M1`);
+  await expect(result).toContainText("River-level gauge radios");
+  await expect(result).toContainText("Approved by Helen Strand");
+  await expect(result).toContainText("Approved by Tomas Veld");
+
+  const altered = await readFile(memoFile);
+  altered[Math.floor(altered.length / 2)] ^= 1;
+  await page.getByLabel("Memo file (PDF)").setInputFiles({ name: "memo.pdf", mimeType: "application/pdf", buffer: altered });
+  await page.getByRole("button", { name: "Check the file" }).click();
+  await expect(result).toContainText("Not an authentic Ratecourt memo");
+
+  await page.getByLabel("SHA-256 fingerprint").fill(fingerprint.toUpperCase());
+  await page.getByRole("button", { name: "Check the fingerprint" }).click();
+  await expect(result).toContainText(`Authentic memo ${REFERENCE}-M1`);
+});
+
+test("the award and regret notices are in the Mailroom", async ({ page }) => {
+  await signIn(page, ACCOUNTS.admin);
+  await page.goto("/mailroom");
+  await expect(page.getByRole("listitem", { name: `Mail: Award notice: ${REFERENCE} River-level gauge radios` })).toHaveCount(1);
+  const regrets = page.getByRole("listitem", { name: `Mail: Outcome of tender ${REFERENCE} River-level gauge radios` });
+  await expect(regrets).toHaveCount(3);
+  for (const text of await regrets.allTextContents()) expect(text).not.toMatch(/€/);
+  await expect(page.getByRole("listitem", { name: new RegExp(`Mail: ${REFERENCE}: recommendation returned by Tomas Veld`) })).toHaveCount(1);
+});
