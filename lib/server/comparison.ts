@@ -1,10 +1,9 @@
 import "server-only";
-import { and, asc, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
 import type { MarkKind } from "@/db/schema/evaluation";
-import { latestMarks } from "@/lib/review/marks";
 import { summariseEvidence } from "@/lib/review/evidence";
 import {
   buildScoreSheet,
@@ -22,41 +21,87 @@ import { offerFor } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, tenderSubject, type TenderRow } from "./tenders";
 
-/** The claims of some offers with what scoring needs, their current marks and lab-run summaries. */
-async function loadClaims(db: Queryable, viewer: Viewer, offerIds: string[]) {
-  if (offerIds.length === 0) return [];
-  // Only the margins and k of the stored engine result: the findings are long and not needed here.
-  const rows = await db
-    .select({
-      id: claims.id,
-      offerId: claims.offerId,
-      tenderId: claims.tenderId,
-      vendorOrgId: claims.vendorOrgId,
-      pointIndex: claims.pointIndex,
-      metric: claims.metric,
-      value: claims.value,
-      ncgOutputBer: claims.ncgOutputBer,
-      verdict: claims.verdict,
-      margins: sql<Parameters<typeof scoringMargins>[0]>`${claims.result}->'margins'`,
-      k: sql<number | null>`(${claims.result}->>'k')::int`,
-    })
-    .from(claims)
-    .where(inArray(claims.offerId, offerIds))
-    .orderBy(asc(claims.pointIndex));
-  const visible = rows.filter((c) => viewer.ability.can("read", asSubject("Claim", c)));
-  const ids = visible.map((c) => c.id);
-  const readsMarks = viewer.ability.can("read", "Mark");
-  const readsRuns = viewer.ability.can("read", "EvidenceRun");
-  const [markRows, runRows] = await Promise.all([
-    readsMarks && ids.length ? db.select({ claimId: marks.claimId, mark: marks.mark, markedAt: marks.markedAt }).from(marks).where(inArray(marks.claimId, ids)) : [],
-    readsRuns && ids.length ? db.select({ claimId: evidenceRuns.claimId, status: evidenceRuns.status }).from(evidenceRuns).where(inArray(evidenceRuns.claimId, ids)) : [],
+type Margins = ReturnType<typeof scoringMargins> & { k: number | null };
+
+/**
+ * The engine's margins per stored claim. A claim row never changes once evaluated (a new engine
+ * run sets a new evaluatedAt), so reading them once per process is safe, and it spares reading the
+ * long stored result (with its findings) on every comparison.
+ */
+const marginCache = new Map<string, Margins>();
+// As text: a cache key needs no Date, and parsing 500 timestamps per read is measurable.
+const evaluatedAtText = sql<string>`${claims.evaluatedAt}::text`;
+const MARGIN_CACHE_LIMIT = 200_000;
+
+async function marginsOf(db: Queryable, rows: { id: string; evaluatedAt: string }[]): Promise<Map<string, Margins>> {
+  const key = (r: { id: string; evaluatedAt: string }) => `${r.id}@${r.evaluatedAt}`;
+  const missing = rows.filter((r) => !marginCache.has(key(r)));
+  if (missing.length > 0) {
+    const read = await db
+      .select({
+        id: claims.id,
+        evaluatedAt: evaluatedAtText,
+        margins: sql<Parameters<typeof scoringMargins>[0]>`${claims.result}->'margins'`,
+        k: sql<number | null>`(${claims.result}->>'k')::int`,
+      })
+      .from(claims)
+      .where(inArray(claims.id, missing.map((r) => r.id)));
+    if (marginCache.size + read.length > MARGIN_CACHE_LIMIT) marginCache.clear();
+    for (const r of read) marginCache.set(key(r), { ...scoringMargins(r.margins), k: r.k });
+  }
+  return new Map(rows.map((r) => [r.id, marginCache.get(key(r))!]));
+}
+
+/** Memoises an ability check per vendor organisation: the conditions read only the tender and the vendor. */
+function perVendor(check: (vendorOrgId: string) => boolean) {
+  const seen = new Map<string, boolean>();
+  return (vendorOrgId: string) => {
+    if (!seen.has(vendorOrgId)) seen.set(vendorOrgId, check(vendorOrgId));
+    return seen.get(vendorOrgId)!;
+  };
+}
+
+/** The claims of a tender's current offers with what scoring needs, their current marks and lab-run summaries. */
+async function loadClaims(db: Queryable, viewer: Viewer, tenderId: string, offerIds: ReadonlySet<string>) {
+  if (offerIds.size === 0) return [];
+  const { ability } = viewer;
+  const on = (vendorOrgId: string) => ({ claimId: "", tenderId, vendorOrgId });
+  const readsClaim = perVendor((v) => ability.can("read", asSubject("Claim", { id: "", offerId: "", tenderId, vendorOrgId: v })));
+  const readsMark = perVendor((v) => ability.can("read", asSubject("Mark", on(v))));
+  const readsRuns = perVendor((v) => ability.can("read", asSubject("EvidenceRun", on(v))));
+  const [rows, markRows, runRows] = await Promise.all([
+    db
+      .select({
+        id: claims.id,
+        offerId: claims.offerId,
+        vendorOrgId: claims.vendorOrgId,
+        pointIndex: claims.pointIndex,
+        metric: claims.metric,
+        value: claims.value,
+        ncgOutputBer: claims.ncgOutputBer,
+        verdict: claims.verdict,
+        evaluatedAt: evaluatedAtText,
+      })
+      .from(claims)
+      .where(eq(claims.tenderId, tenderId))
+      .orderBy(asc(claims.pointIndex)),
+    // The current mark of each claim is its latest (as lib/review/marks' latestMarks), picked by the database here.
+    ability.can("read", "Mark")
+      ? db
+          .selectDistinctOn([marks.claimId], { claimId: marks.claimId, mark: marks.mark })
+          .from(marks)
+          .where(eq(marks.tenderId, tenderId))
+          .orderBy(marks.claimId, desc(marks.markedAt), desc(marks.id))
+      : [],
+    ability.can("read", "EvidenceRun") ? db.select({ claimId: evidenceRuns.claimId, status: evidenceRuns.status }).from(evidenceRuns).where(eq(evidenceRuns.tenderId, tenderId)) : [],
   ]);
-  const latest = latestMarks(markRows);
+  const visible = rows.filter((c) => offerIds.has(c.offerId) && readsClaim(c.vendorOrgId));
+  const margins = await marginsOf(db, visible);
+  const latest = new Map(markRows.map((m) => [m.claimId, m]));
   const runs = new Map<string, (typeof runRows)[number]["status"][]>();
   for (const r of runRows) runs.set(r.claimId, [...(runs.get(r.claimId) ?? []), r.status]);
   return visible.map((c) => {
-    const subject = { claimId: c.id, tenderId: c.tenderId, vendorOrgId: c.vendorOrgId };
-    const mark = latest.get(c.id);
+    const mark = readsMark(c.vendorOrgId) ? latest.get(c.id) : undefined;
     return {
       offerId: c.offerId,
       claim: {
@@ -66,10 +111,9 @@ async function loadClaims(db: Queryable, viewer: Viewer, offerIds: string[]) {
         value: c.value,
         ncgOutputBer: c.ncgOutputBer,
         verdict: c.verdict,
-        k: c.k,
-        ...scoringMargins(c.margins),
-        mark: mark && viewer.ability.can("read", asSubject("Mark", subject)) ? (mark.mark as MarkKind) : null,
-        evidence: viewer.ability.can("read", asSubject("EvidenceRun", subject)) ? summariseEvidence(runs.get(c.id) ?? []) : ("none" as const),
+        ...margins.get(c.id)!,
+        mark: mark ? (mark.mark as MarkKind) : null,
+        evidence: readsRuns(c.vendorOrgId) ? summariseEvidence(runs.get(c.id) ?? []) : ("none" as const),
       },
     };
   });
@@ -91,7 +135,7 @@ export async function loadScoringInput(db: Queryable, viewer: Viewer, tender: Te
   const readable = rows.filter(({ offer }) =>
     viewer.ability.can("read", asSubject("Offer", { id: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId, tenderState: tender.state, envelopeOpened })),
   );
-  const claimRows = await loadClaims(db, viewer, readable.map((r) => r.offer.id));
+  const claimRows = await loadClaims(db, viewer, tender.id, new Set(readable.map((r) => r.offer.id)));
   const scoringOffers = readable.map(({ offer, vendorName }): ScoringOffer => {
     const visible = offerFor(viewer, offer, tender);
     const envelope: Envelope | null =

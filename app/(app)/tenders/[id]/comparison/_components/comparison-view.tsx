@@ -1,0 +1,99 @@
+"use client";
+
+import { useCallback, useEffect, useState, useTransition } from "react";
+import type { Comparison } from "@/lib/server/comparison";
+import type { FormResult } from "@/app/(app)/review/run-form";
+import { openEnvelopesAction } from "../actions";
+import { ComparisonGrid } from "./comparison-grid";
+import { RecommendationPanel } from "./recommendation-panel";
+import { ScoreSheetPanel } from "./score-sheet-panel";
+import { WhatIfPanel } from "./what-if-panel";
+
+/** The route's JSON: dates arrive as strings. */
+type ComparisonJson = Omit<Comparison, "tender"> & {
+  tender: Omit<Comparison["tender"], "technicalSignedAt" | "envelopesOpenedAt"> & { technicalSignedAt: string | null; envelopesOpenedAt: string | null };
+};
+
+export function ComparisonView({ tenderId, reference }: { tenderId: string; reference: string }) {
+  const [data, setData] = useState<ComparisonJson | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [selectedId, setSelectedId] = useState<string | null>(null);
+  const [result, setResult] = useState<FormResult>({});
+  const [pending, startTransition] = useTransition();
+
+  const load = useCallback(async () => {
+    const response = await fetch(`/api/v1/tenders/${tenderId}/comparison`, { cache: "no-store" });
+    const body = await response.json();
+    if (!response.ok) {
+      setError(body.error ?? "The comparison could not be loaded.");
+      return;
+    }
+    setError(null);
+    setData(body);
+  }, [tenderId]);
+
+  useEffect(() => {
+    void load();
+  }, [load]);
+
+  const openEnvelopes = () =>
+    startTransition(async () => {
+      const outcome = await openEnvelopesAction(tenderId);
+      setResult(outcome);
+      await load();
+    });
+
+  if (error) return <p role="alert" className="panel text-sm text-verdict-impossible">{error}</p>;
+  if (!data) return <p className="text-sm text-ink-soft" role="status">Loading the comparison…</p>;
+
+  const selected = data.sheet.offers.find((o) => o.offerId === selectedId) ?? null;
+  return (
+    <div className="space-y-4">
+      <section className="panel flex flex-wrap items-center gap-3" aria-label="Envelopes">
+        <div className="flex-1 text-sm">
+          {data.envelopesOpened ? (
+            <p>Envelopes opened. Scores use the weights frozen when the tender opened, recomputed at every load.</p>
+          ) : (
+            <p>
+              Envelopes sealed: prices, lead times and warranties are hidden, so there are no totals or ranks yet.
+              {data.tender.technicalSignedAt ? " The technical evaluation is signed." : " They can be opened once an engineer signs the technical evaluation."}
+            </p>
+          )}
+          {result.message ? (
+            <p role={result.ok ? "status" : "alert"} className={result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}>{result.message}</p>
+          ) : null}
+        </div>
+        {data.can.openEnvelopes ? (
+          <button type="button" className="btn" onClick={openEnvelopes} disabled={pending}>
+            {pending ? "Opening…" : "Open envelopes"}
+          </button>
+        ) : null}
+        <button type="button" className="btn-quiet" onClick={() => startTransition(load)} disabled={pending}>Recompute</button>
+      </section>
+
+      <ComparisonGrid
+        input={data.input}
+        sheet={data.sheet}
+        reference={reference}
+        canExport={data.can.export}
+        onSelect={setSelectedId}
+      />
+
+      {selected ? (
+        <ScoreSheetPanel offer={selected} sheet={data.sheet} />
+      ) : (
+        <p className="text-sm text-ink-soft">Select an offer in the grid to see its score sheet.</p>
+      )}
+
+      {data.envelopesOpened ? <WhatIfPanel input={data.input} sheet={data.sheet} /> : null}
+
+      <RecommendationPanel
+        tenderId={tenderId}
+        input={data.input}
+        sheet={data.sheet}
+        canRecommend={data.can.recommend}
+        onSubmitted={load}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,115 @@
+"use client";
+
+import { useEffect, useState, useTransition } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { DateTime } from "@/app/_components/date-time";
+import { formatMoney } from "@/lib/format";
+import { totalPriceAt, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
+import { recommendationSchema, type RecommendationInput } from "@/lib/validation/comparison";
+import type { FormResult } from "@/app/(app)/review/run-form";
+import { submitRecommendationAction } from "../actions";
+
+interface Listed {
+  id: string;
+  vendorName: string;
+  quantity: number;
+  value: number;
+  currency: string;
+  status: string;
+  justification: string;
+  preparedAt: string;
+  returns: { comment: string; decidedAt: string }[];
+}
+
+/** The recommendation: the latest one's status and, in commercial evaluation, the buyer's form. */
+export function RecommendationPanel(props: { tenderId: string; input: ScoringInput; sheet: ScoreSheet; canRecommend: boolean; onSubmitted: () => Promise<void> }) {
+  const [history, setHistory] = useState<Listed[]>([]);
+  const { tenderId, sheet } = props;
+  useEffect(() => {
+    void fetch(`/api/v1/tenders/${tenderId}/recommendation`, { cache: "no-store" })
+      .then((r) => (r.ok ? r.json() : { history: [] }))
+      .then((body) => setHistory(body.history ?? []));
+  }, [tenderId, sheet]);
+
+  return (
+    <section className="panel space-y-3" aria-label="Recommendation">
+      <h2>Recommendation</h2>
+      {history.length ? (
+        <ul className="space-y-2 text-sm" aria-label="Recommendations so far">
+          {history.map((r) => (
+            <li key={r.id}>
+              <span className="font-medium">{r.vendorName}</span>, {r.quantity.toLocaleString("en-GB")} units for {formatMoney(r.value, r.currency)}:{" "}
+              <span data-status={r.status}>{r.status}</span> (<DateTime value={new Date(r.preparedAt)} />)
+              {r.returns.map((ret) => <p key={ret.decidedAt} className="text-ink-soft">Returned: {ret.comment}</p>)}
+            </li>
+          ))}
+        </ul>
+      ) : (
+        <p className="text-sm text-ink-soft">No recommendation yet.</p>
+      )}
+      {props.canRecommend ? <RecommendationForm {...props} /> : null}
+    </section>
+  );
+}
+
+function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId: string; input: ScoringInput; sheet: ScoreSheet; onSubmitted: () => Promise<void> }) {
+  const eligible = sheet.offers.filter((o) => !o.disqualified && !o.needsConversion && o.total !== null);
+  const [result, setResult] = useState<FormResult>({});
+  const [pending, startTransition] = useTransition();
+  const { register, handleSubmit, formState, setValue, watch, setError } = useForm<RecommendationInput>({
+    resolver: zodResolver(recommendationSchema),
+    defaultValues: { offerId: eligible[0]?.offerId ?? "", quantity: sheet.quantity, value: eligible[0]?.totalPrice ?? 0, justification: "" },
+  });
+  const offerId = watch("offerId");
+  const quantity = watch("quantity");
+  // The award value follows the chosen offer's price at the chosen quantity; the buyer may still change it.
+  useEffect(() => {
+    const envelope = input.offers.find((o) => o.id === offerId)?.envelope;
+    if (envelope && Number.isInteger(quantity) && quantity > 0) setValue("value", totalPriceAt(envelope.unitPrice, envelope.priceBreaks, quantity));
+  }, [offerId, quantity, input.offers, setValue]);
+
+  const submit = handleSubmit((values) =>
+    startTransition(async () => {
+      const outcome = await submitRecommendationAction(tenderId, values);
+      setResult(outcome);
+      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) setError(field as keyof RecommendationInput, { message: messages[0] });
+      if (outcome.ok) await onSubmitted();
+    }),
+  );
+  const err = (name: keyof RecommendationInput) =>
+    formState.errors[name]?.message ? <p className="mt-1 text-xs text-verdict-impossible">{String(formState.errors[name]?.message)}</p> : null;
+
+  return (
+    <form onSubmit={submit} className="space-y-3" aria-label="Recommend an award" noValidate>
+      {result.message ? (
+        <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>{result.message}</p>
+      ) : null}
+      <div className="grid gap-3 md:grid-cols-3">
+        <div>
+          <label className="label" htmlFor="rec-offer">Offer to award</label>
+          <select id="rec-offer" className="field" {...register("offerId")}>
+            {eligible.map((o) => <option key={o.offerId} value={o.offerId}>{o.rank}. {o.vendorName} ({o.total?.toFixed(1)} points)</option>)}
+          </select>
+          {err("offerId")}
+        </div>
+        <div>
+          <label className="label" htmlFor="rec-quantity">Quantity (units)</label>
+          <input id="rec-quantity" type="number" min={1} step={1} className="field tabular-nums" {...register("quantity", { valueAsNumber: true })} />
+          {err("quantity")}
+        </div>
+        <div>
+          <label className="label" htmlFor="rec-value">Award value ({sheet.currency})</label>
+          <input id="rec-value" type="number" min={0} step="0.01" className="field tabular-nums" {...register("value", { valueAsNumber: true })} />
+          {err("value")}
+        </div>
+      </div>
+      <div>
+        <label className="label" htmlFor="rec-justification">Justification</label>
+        <textarea id="rec-justification" rows={4} className="field" {...register("justification")} />
+        {err("justification")}
+      </div>
+      <button type="submit" className="btn" disabled={pending || eligible.length === 0}>{pending ? "Submitting…" : "Submit recommendation"}</button>
+    </form>
+  );
+}

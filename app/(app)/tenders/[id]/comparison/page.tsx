@@ -1,0 +1,23 @@
+import type { Metadata } from "next";
+import { forbidden } from "next/navigation";
+import { asSubject } from "@/policies";
+import { Cautions } from "@/app/_components/cautions";
+import { orPage, pageViewer } from "@/lib/server/pages";
+import { getTender } from "@/lib/server/tenders";
+import { ComparisonView } from "./_components/comparison-view";
+
+export const metadata: Metadata = { title: "Comparison" };
+
+/** The Comparison tab: the grid reads GET /api/v1/tenders/[id]/comparison, which authorises itself too. */
+export default async function ComparisonPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const viewer = await pageViewer();
+  const tender = await orPage(getTender(viewer, id));
+  if (!viewer.ability.can("read", asSubject("Score", { tenderId: id }))) forbidden();
+  return (
+    <div className="space-y-4">
+      <Cautions className="panel" />
+      <ComparisonView tenderId={tender.id} reference={tender.reference} />
+    </div>
+  );
+}

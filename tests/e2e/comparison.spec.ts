@@ -1,0 +1,99 @@
+import { readFile } from "node:fs/promises";
+import { expect, test, type Page } from "@playwright/test";
+import { ACCOUNTS, signIn } from "./helpers";
+
+// Starting state (arranged before this spec): the tender below is in commercial evaluation, its
+// technical evaluation signed, its envelopes still sealed, with at least two offers in the ranking.
+const REFERENCE = process.env.E2E_COMMERCIAL_TENDER ?? "RC-2027-001";
+
+/** The grid's rows in display order, each as { col-id: text }, merging the pinned and scrolling parts of a row. */
+async function gridRows(page: Page): Promise<Record<string, string>[]> {
+  const grid = page.getByRole("region", { name: "Comparison grid" });
+  return grid.evaluate((root) => {
+    const rows = new Map<number, Record<string, string>>();
+    for (const row of Array.from(root.querySelectorAll('[role="row"][row-index]'))) {
+      const index = Number(row.getAttribute("row-index"));
+      const cells = rows.get(index) ?? {};
+      for (const cell of Array.from(row.querySelectorAll('[role="gridcell"][col-id]'))) cells[cell.getAttribute("col-id")!] = (cell.textContent ?? "").trim();
+      rows.set(index, cells);
+    }
+    return [...rows.entries()].sort((a, b) => a[0] - b[0]).map(([, cells]) => cells);
+  });
+}
+
+/** AG Grid quotes every value; no value of this grid holds a quote. */
+const csvRows = (text: string) =>
+  text.replace(/^\uFEFF/, "").trim().split(/\r?\n/).map((line) => line.replace(/^"|"$/g, "").split('","'));
+
+test("a buyer opens the envelopes, sorts, exports, tries other weights and recommends an award", async ({ page }) => {
+  await signIn(page, ACCOUNTS.buyer);
+  await page.goto("/tenders");
+  await page.getByRole("link", { name: new RegExp(REFERENCE) }).first().click();
+  await page.getByRole("link", { name: "Comparison", exact: true }).click();
+  await expect(page.getByRole("region", { name: "Comparison grid" })).toBeVisible();
+  await expect(page.getByRole("note", { name: "Cautions" }).first()).toContainText("do not replace qualification testing");
+
+  // Sealed: no prices, no totals, no ranks.
+  await expect(page.getByText(/Envelopes sealed/)).toBeVisible();
+  for (const row of await gridRows(page)) {
+    expect(row.totalPrice).toBe("–");
+    expect(row.rank).toBe("–");
+  }
+
+  await page.getByRole("button", { name: "Open envelopes" }).click();
+  await expect(page.getByRole("status").filter({ hasText: "Envelopes opened" })).toBeVisible();
+  await expect(page.getByRole("button", { name: "Open envelopes" })).toHaveCount(0);
+  await expect.poll(async () => (await gridRows(page)).some((r) => r.rank === "1")).toBe(true);
+
+  // Sort by total, highest first (AG Grid cycles ascending, descending).
+  const totalHeader = page.getByRole("region", { name: "Comparison grid" }).locator('[role="columnheader"][col-id="total"]');
+  await totalHeader.click();
+  await totalHeader.click();
+  await expect(totalHeader).toHaveAttribute("aria-sort", "descending");
+  const sorted = await gridRows(page);
+  const totals = sorted.map((r) => (r.total === "–" ? -1 : Number(r.total)));
+  expect(totals).toEqual([...totals].sort((a, b) => b - a));
+  expect(sorted[0].rank).toBe("1");
+
+  // CSV export: one header row, then the grid's rows in the grid's order.
+  const downloading = page.waitForEvent("download");
+  await page.getByRole("button", { name: "Export CSV" }).click();
+  const download = await downloading;
+  expect(download.suggestedFilename()).toBe(`${REFERENCE}-comparison.csv`);
+  const [header, ...lines] = csvRows(await readFile((await download.path())!, "utf8"));
+  expect(header[0]).toBe("Vendor");
+  expect(lines).toHaveLength(sorted.length);
+  const vendorAt = header.indexOf("Vendor");
+  const totalAt = header.indexOf("Total");
+  const rankAt = header.indexOf("Rank");
+  expect(lines.map((l) => l[vendorAt])).toEqual(sorted.map((r) => r.vendorName));
+  expect(lines.map((l) => l[totalAt])).toEqual(sorted.map((r) => r.total));
+  expect(lines.map((l) => l[rankAt])).toEqual(sorted.map((r) => r.rank));
+
+  // The score sheet of the selected offer.
+  await page.getByRole("gridcell", { name: sorted[0].vendorName }).click();
+  await expect(page.getByRole("region", { name: `Score sheet of ${sorted[0].vendorName}` })).toContainText("Contribution");
+
+  // What-if: price alone decides; the cheapest offer still in the ranking comes first.
+  const whatIf = page.getByRole("region", { name: "What-if weights" });
+  await expect(whatIf.getByRole("note")).toHaveText("What-if only: the frozen weights of the tender do not change.");
+  for (const label of ["Technical", "Evidence", "Lead time", "Warranty"]) await whatIf.getByLabel(`${label} weight`).fill("0");
+  await whatIf.getByLabel("Price weight").fill("100");
+  const cheapest = sorted.filter((r) => r.rank !== "–" && r["score-price"] === "100.0").map((r) => r.vendorName);
+  expect(cheapest.length).toBeGreaterThan(0);
+  const whatIfRanking = whatIf.getByRole("table", { name: "What-if ranking" });
+  await expect(whatIfRanking.getByRole("row").nth(1)).toContainText(cheapest[0]);
+  // The grid keeps the frozen weights' ranking.
+  expect((await gridRows(page)).map((r) => r.rank)).toEqual(sorted.map((r) => r.rank));
+  await whatIf.getByRole("button", { name: "Reset to the tender's weights" }).click();
+
+  // The recommendation: the top offer, the award value prefilled with its total price.
+  const form = page.getByRole("form", { name: "Recommend an award" });
+  await expect(form.getByLabel(/Award value/)).not.toHaveValue("");
+  await expect(form.getByLabel(/Award value/)).not.toHaveValue("0");
+  await form.getByLabel("Justification").fill("Highest total score; plausible at both operating points, lab evidence on file and a short lead time.");
+  await form.getByRole("button", { name: "Submit recommendation" }).click();
+  await expect(page.getByRole("status").filter({ hasText: "now in approval" })).toBeVisible();
+  await expect(page.getByRole("region", { name: "Recommendation" })).toContainText("pending");
+  await expect(page.getByRole("form", { name: "Recommend an award" })).toHaveCount(0);
+});
