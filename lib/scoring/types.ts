@@ -1,6 +1,6 @@
 // The shapes the commercial evaluation works on. Pure data: the server fills them from the
 // database (with only the fields the viewer may read), the Comparison grid recomputes with them.
-import type { PriceBreak } from "@/db/schema/offers";
+import type { offers, PriceBreak } from "@/db/schema/offers";
 import type { ScoringWeights } from "@/db/schema/tenders";
 import type { MarkKind } from "@/db/schema/evaluation";
 import type { EvidenceSummary } from "@/lib/review/evidence";
@@ -58,17 +58,10 @@ export interface Envelope {
   priceBreaks: PriceBreak[];
 }
 
-export interface ScoringOffer {
-  id: string;
-  vendorOrgId: string;
+/** The offer's own fields as stored, with its vendor's name and the envelope as the viewer may read it. */
+export interface ScoringOffer
+  extends Pick<typeof offers.$inferSelect, "id" | "vendorOrgId" | "moduleName" | "partNumber" | "codeFamily" | "decision" | "n" | "k" | "rate"> {
   vendorName: string;
-  moduleName: string;
-  partNumber: string;
-  codeFamily: string;
-  decision: "hard" | "soft";
-  n: number | null;
-  k: number | null;
-  rate: number | null;
   envelope: Envelope | null;
   claims: ScoringClaim[];
 }

@@ -53,7 +53,7 @@ async function prepare(): Promise<Setup> {
 
 const quantile = (sorted: number[], q: number) => sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
 
-/** REQUESTS calls in waves of CONCURRENCY; median and p95 of the per-request latencies. */
+/** REQUESTS calls in waves of CONCURRENCY (median and p95 of the per-request latencies), then 50 calls one at a time. */
 export async function benchComparison(): Promise<BenchResult[]> {
   setup ??= prepare();
   const { call } = await setup;
@@ -63,7 +63,18 @@ export async function benchComparison(): Promise<BenchResult[]> {
     times.push(...(await Promise.all(Array.from({ length: Math.min(CONCURRENCY, REQUESTS - done) }, call))));
   }
   times.sort((a, b) => a - b);
+  // The same route one request at a time: its service time, without queueing behind the others.
+  const alone: number[] = [];
+  for (let i = 0; i < 50; i++) alone.push(await call());
+  alone.sort((a, b) => a - b);
   return [
+    {
+      name: `comparison route, ${OFFERS} offers x ${CLAIMS_PER_OFFER} claims, 1 at a time`,
+      runs: alone.length,
+      medianMs: quantile(alone, 0.5),
+      p95Ms: quantile(alone, 0.95),
+      target: "-",
+    },
     {
       name: `comparison route, ${OFFERS} offers x ${CLAIMS_PER_OFFER} claims, ${CONCURRENCY} concurrent`,
       runs: times.length,
