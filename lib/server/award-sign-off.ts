@@ -6,9 +6,8 @@ import { approvals, memos, offers, organisations, users } from "@/db/schema";
 import { decisionProblem } from "@/lib/approvals/routing";
 import { standingsOf } from "@/lib/approvals/score-sheet";
 import { approvalRecord, eligibleApprovers, refusalFor, ruleFor } from "./approvals";
-import { loadScoringInput } from "./comparison";
 import { AppError } from "./errors";
-import { approvalsGiven } from "./memos";
+import { approvalsGiven, currentOffersWithClaims } from "./memos";
 import { getCurrentRecommendation } from "./recommendations";
 import type { Viewer } from "./session";
 import { getTender, tenderSubject } from "./tenders";
@@ -35,7 +34,10 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
     .innerJoin(organisations, eq(organisations.id, offers.vendorOrgId))
     .innerJoin(users, eq(users.id, rec.preparedBy))
     .where(eq(offers.id, rec.offerId));
-  const scoring = await loadScoringInput(db, viewer, tender);
+  const offerList = (await currentOffersWithClaims(db, tenderId)).filter((o) =>
+    viewer.ability.can("read", asSubject("Offer", { id: o.id, tenderId, vendorOrgId: o.vendorOrgId, tenderState: tender.state, envelopeOpened: tender.envelopesOpenedAt !== null })),
+  );
+  const readsMark = (c: { id: string; vendorOrgId: string }) => viewer.ability.can("read", asSubject("Mark", { claimId: c.id, tenderId, vendorOrgId: c.vendorOrgId }));
   const decisions = await db
     .select({ id: approvals.id, recommendationId: approvals.recommendationId, name: users.name, decision: approvals.decision, comment: approvals.comment, decidedAt: approvals.decidedAt })
     .from(approvals)
@@ -69,11 +71,14 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
       approvalsGiven: given.length,
       standings: standingsOf(rec.scoreSheet).map(({ offerId: _o, ...s }) => s),
     },
-    offers: scoring.offers.map((o) => ({
+    // Names, modules, claims and verdicts only: never an envelope field.
+    offers: offerList.map((o) => ({
       id: o.id,
       vendorName: o.vendorName,
       moduleName: o.moduleName,
-      claims: o.claims.map((c) => ({ id: c.id, point: scoring.tender.operatingPoints[c.pointIndex]?.label ?? `Point ${c.pointIndex + 1}`, metric: c.metric, value: c.value, ncgOutputBer: c.ncgOutputBer, verdict: c.verdict, mark: c.mark })),
+      claims: o.claims
+        .filter((c) => viewer.ability.can("read", asSubject("Claim", { id: c.id, offerId: o.id, tenderId, vendorOrgId: c.vendorOrgId })))
+        .map((c) => ({ id: c.id, point: c.pointLabel, metric: c.metric, value: c.value, ncgOutputBer: c.ncgOutputBer, verdict: c.verdict, mark: readsMark(c) ? c.mark : null })),
     })),
     decisions,
     routedTo: rule ? (await eligibleApprovers(db, tender, rec, rule)).map((u) => u.name) : [],

@@ -28,7 +28,7 @@ export async function approvalsGiven(db: Queryable, recommendationId: string) {
 }
 
 /** The tender's current offers with every claim and its latest mark: the record, not one viewer's view. */
-async function offersForMemo(db: Queryable, tenderId: string) {
+export async function currentOffersWithClaims(db: Queryable, tenderId: string) {
   const rows = await db
     .select({ offer: offers, vendorName: organisations.name })
     .from(offers)
@@ -61,7 +61,7 @@ export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: Recom
     .innerJoin(organisations, eq(organisations.id, users.organisationId))
     .where(eq(users.id, tender.createdBy));
   const [preparer] = await db.select({ name: users.name }).from(users).where(eq(users.id, rec.preparedBy));
-  const offerList = await offersForMemo(db, tender.id);
+  const offerList = await currentOffersWithClaims(db, tender.id);
   const [chosen] = await db
     .select({ moduleName: offers.moduleName, vendorName: organisations.name })
     .from(offers)
