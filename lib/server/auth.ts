@@ -54,7 +54,9 @@ function createAuth(db: Db) {
         approvalLimit: { type: "number", required: false, input: false },
       },
     },
-    session: { expiresIn: 60 * 60 * 12, updateAge: 60 * 60 },
+    // The signed session cookie spares a session lookup for a minute; roles, organisation and the
+    // active flag are still read from the database on every request (lib/server/session.ts).
+    session: { expiresIn: 60 * 60 * 12, updateAge: 60 * 60, cookieCache: { enabled: true, maxAge: 60 } },
     rateLimit: {
       enabled: true,
       window: 60,

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { claims, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
+import { claims, evidenceRuns, ledgerEntries, marks, offers, organisations, tenders } from "@/db/schema";
 import type { MarkKind } from "@/db/schema/evaluation";
 import { summariseEvidence } from "@/lib/review/evidence";
 import {
@@ -42,7 +42,8 @@ async function marginsOf(db: Queryable, rows: { id: string; evaluatedAt: string 
         id: claims.id,
         evaluatedAt: evaluatedAtText,
         margins: sql<Parameters<typeof scoringMargins>[0]>`${claims.result}->'margins'`,
-        k: sql<number | null>`(${claims.result}->>'k')::int`,
+        // k may be fractional (n times a stated rate), so it is read as a double.
+        k: sql<number | null>`(${claims.result}->>'k')::float8`,
       })
       .from(claims)
       .where(inArray(claims.id, missing.map((r) => r.id)));
@@ -164,6 +165,30 @@ export async function loadScoringInput(db: Queryable, viewer: Viewer, tender: Te
   };
 }
 
+/**
+ * Every change that can move a score (an offer, a mark, a lab run, a declaration, the envelopes,
+ * a state change) writes a ledger entry for its tender, so the tender's ledger head names the
+ * state of its inputs. A sheet computed for one head and one viewer's reading rights is reused
+ * until the head moves: a mark shows at the next read, and twenty concurrent reads compute once.
+ */
+const sheetCache = new Map<string, Promise<{ input: ScoringInput; sheet: ScoreSheet; computedAt: string }>>();
+const SHEET_CACHE_LIMIT = 500;
+
+async function scoredFor(viewer: Viewer, tender: TenderRow) {
+  const db = await getDb();
+  const [{ head }] = await db.select({ head: sql<number>`coalesce(max(${ledgerEntries.seq}), 0)` }).from(ledgerEntries).where(eq(ledgerEntries.tenderId, tender.id));
+  const { id, roles, declarations } = viewer.actor;
+  const key = JSON.stringify([tender.id, head, tender.state, tender.envelopesOpenedAt, id, roles, declarations]);
+  let entry = sheetCache.get(key);
+  if (!entry) {
+    if (sheetCache.size >= SHEET_CACHE_LIMIT) sheetCache.clear();
+    entry = loadScoringInput(db, viewer, tender).then((input) => ({ input, sheet: buildScoreSheet(input), computedAt: new Date().toISOString() }));
+    entry.catch(() => sheetCache.delete(key));
+    sheetCache.set(key, entry);
+  }
+  return entry;
+}
+
 export interface Comparison {
   tender: Pick<TenderRow, "id" | "reference" | "title" | "state" | "technicalSignedAt" | "envelopesOpenedAt">;
   envelopesOpened: boolean;
@@ -174,8 +199,8 @@ export interface Comparison {
 }
 
 /**
- * The Comparison of a tender's current offers, recomputed on every read so that a new mark or
- * lab run shows at once. Buyers, and approvers declared on the tender, read it; before the
+ * The Comparison of a tender's current offers, recomputed whenever its inputs change so that a
+ * new mark or lab run shows at the next read. Buyers, and approvers declared on the tender, read it; before the
  * envelopes are opened it carries no price, lead time or warranty (and so no totals or ranks).
  */
 export async function getComparison(viewer: Viewer, tenderId: string): Promise<Comparison> {
@@ -183,14 +208,14 @@ export async function getComparison(viewer: Viewer, tenderId: string): Promise<C
   authorize(viewer, "read", asSubject("Score", { tenderId }), "Only the buying team and approvers declared on this tender read the comparison.");
   const problem = comparisonProblem(tender.state);
   if (problem) throw new ConflictError(problem);
-  const input = await loadScoringInput(await getDb(), viewer, tender);
+  const { input, sheet, computedAt } = await scoredFor(viewer, tender);
   const { id, reference, title, state, technicalSignedAt, envelopesOpenedAt } = tender;
   return {
     tender: { id, reference, title, state, technicalSignedAt, envelopesOpenedAt },
     envelopesOpened: envelopesOpenedAt !== null,
     input,
-    sheet: buildScoreSheet(input),
-    computedAt: new Date().toISOString(),
+    sheet,
+    computedAt,
     can: {
       openEnvelopes: viewer.ability.can("openEnvelopes", tenderSubject(tender)) && envelopeOpeningProblem(tender) === null,
       recommend: viewer.ability.can("recommend", tenderSubject(tender)) && envelopesOpenedAt !== null,

@@ -1,6 +1,6 @@
 import "server-only";
 import { hashPassword } from "better-auth/crypto";
-import { eq, inArray } from "drizzle-orm";
+import { eq, inArray, sql } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
 import { accounts, organisations, userRoles, users, type RoleName } from "@/db/schema";
 
@@ -39,14 +39,18 @@ export async function insertUser(tx: Queryable, input: NewUserRow) {
 
 /** A user with organisation and roles, or null. */
 export async function loadUser(db: Queryable, userId: string) {
+  // One round trip: it runs on every request.
   const [row] = await db
-    .select({ user: users, organisation: organisations })
+    .select({
+      user: users,
+      organisation: organisations,
+      roles: sql<RoleName[]>`coalesce((select array_agg(${userRoles.role} order by ${userRoles.role}) from ${userRoles} where ${userRoles.userId} = ${users.id}), '{}')`,
+    })
     .from(users)
     .innerJoin(organisations, eq(organisations.id, users.organisationId))
     .where(eq(users.id, userId));
   if (!row) return null;
-  const roles = await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, userId));
-  return { ...row.user, organisation: row.organisation, roles: roles.map((r) => r.role).sort() };
+  return { ...row.user, organisation: row.organisation, roles: row.roles };
 }
 
 export async function rolesByUser(db: Queryable, userIds: string[]) {

@@ -2,10 +2,10 @@ import "server-only";
 import { and, desc, eq, inArray } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { approvalBands, approvals, offers, organisations, recommendations, tenders } from "@/db/schema";
+import { approvals, offers, organisations, recommendations, tenders } from "@/db/schema";
 import { buildScoreSheet, recommendationProblem } from "@/lib/scoring";
 import { formatMoney } from "@/lib/format";
-import { bandFor } from "@/lib/approvals/bands";
+import { bandRuleFor } from "./approval-bands";
 import { awaitingApprovalNotice } from "@/lib/approvals/notices";
 import type { RecommendationInput } from "@/lib/validation/comparison";
 import { ConflictError, ForbiddenError, InputError } from "./errors";
@@ -74,7 +74,7 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
   if (!scored) throw new InputError("No such current offer in this tender.", { offerId: ["Choose one of the offers in the comparison."] });
   authorize(viewer, "recommend", tenderSubject(tender));
   authorize(viewer, "create", asSubject("Recommendation", { tenderId, preparedBy: viewer.actor.id, value: input.value }));
-  const band = bandFor(await db.select().from(approvalBands).where(eq(approvalBands.currency, tender.currency)), input.value, tender.currency);
+  const band = await bandRuleFor(db, input.value, tender.currency);
 
   const row = await db.transaction(async (tx) => {
     const [locked] = await tx.select({ state: tenders.state }).from(tenders).where(eq(tenders.id, tenderId)).for("update");

@@ -2,7 +2,7 @@
 // medians. To add benches, export `benches: BenchCase[]` from a module and list it in MODULES.
 import type { BenchCase } from "./types";
 
-const MODULES = ["./bounds.bench.ts"];
+const MODULES = ["./bounds.bench.ts", "./comparison.bench.ts"];
 
 function quantile(sorted: number[], q: number): number {
   return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
