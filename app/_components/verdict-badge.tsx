@@ -15,7 +15,7 @@ export function VerdictBadge({ verdict }: { verdict: Verdict }) {
       className={`inline-flex items-center gap-1 rounded-sm border-2 px-1.5 py-0.5 text-xs font-semibold ${look.className}`}
     >
       <span aria-hidden>{look.glyph}</span>
-      {look.label}
+      <span>{look.label}</span>
     </span>
   );
 }

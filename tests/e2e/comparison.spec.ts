@@ -91,6 +91,8 @@ test("a buyer opens the envelopes, sorts, exports, tries other weights and recom
   const form = page.getByRole("form", { name: "Recommend an award" });
   await expect(form.getByLabel(/Award value/)).not.toHaveValue("");
   await expect(form.getByLabel(/Award value/)).not.toHaveValue("0");
+  // 4,000 radios with installation and support: 250,000 EUR, the band that needs two approvals (the award journey goes on from here).
+  await form.getByLabel(/Award value/).fill("250000");
   await form.getByLabel("Justification").fill("Highest total score; plausible at both operating points, lab evidence on file and a short lead time.");
   await form.getByRole("button", { name: "Submit recommendation" }).click();
   await expect(page.getByRole("status").filter({ hasText: "now in approval" })).toBeVisible();
