@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { DateTime } from "@/app/_components/date-time";
 import { orPage, pageViewer } from "@/lib/server/pages";
 import { getTenderLedger } from "@/lib/server/tenders";
+import { verifyTenderLedger } from "@/lib/server/ledger-verify";
 import { summariseLedgerData } from "@/lib/tenders/ledger-summary";
 
 export const metadata: Metadata = { title: "Tender ledger" };
@@ -10,11 +11,16 @@ export const metadata: Metadata = { title: "Tender ledger" };
 export default async function TenderLedgerPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const viewer = await pageViewer();
-  const ledger = await orPage(getTenderLedger(viewer, id));
+  const [ledger, check] = await orPage(Promise.all([getTenderLedger(viewer, id), verifyTenderLedger(viewer, id)]));
   return (
     <section className="panel overflow-x-auto" aria-label="Ledger">
       <h2>Ledger</h2>
       <p className="text-xs text-ink-soft">Append-only; each entry&apos;s hash covers its content and the entry before it, so a silent edit breaks the chain.</p>
+      <p role="status" aria-label="Chain check" className={`mt-2 text-sm ${check.ok ? "text-verdict-plausible" : "font-semibold text-verdict-impossible"}`}>
+        {check.ok
+          ? `Chain verified just now: all ${check.entries} entries of this tender are intact.`
+          : `Chain broken at entry #${check.brokenAt} (position ${check.position} of this tender): ${check.reason}.`}
+      </p>
       <table className="data-table mt-2">
         <thead><tr><th>#</th><th>When</th><th>Who</th><th>What</th><th>Details</th><th>Hash</th></tr></thead>
         <tbody>
