@@ -44,7 +44,8 @@ export default defineConfig({
   },
   webServer: {
     // Browser tests run against a production build on a fresh demo database of their own.
-    command: `rm -rf "${dataDir}" && npx next build && npx next start -p ${port}`,
+    // E2E_SKIP_BUILD=1 reuses the last build while iterating on the specs alone.
+    command: `rm -rf "${dataDir}" && ${process.env.E2E_SKIP_BUILD ? "" : "npx next build && "}npx next start -p ${port}`,
     cwd: root,
     url: `${baseURL}/sign-in`,
     timeout: 600_000,
