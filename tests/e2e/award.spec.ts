@@ -93,7 +93,7 @@ test("two approvers sign the high-value award after a return and a resubmission"
   await expect(helen.getByLabel("Approval rule")).toContainText("needs 2 approvals");
   await expect(helen.getByRole("region", { name: "Verdicts per offer" })).toContainText("Impossible");
   await expect(helen.locator('iframe[title="Memo preview"]')).toBeVisible();
-  await expect(helen.getByRole("note", { name: "Cautions" })).toBeVisible();
+  await expect(helen.getByRole("main").getByRole("note", { name: "Cautions" })).toBeVisible();
   await decide(helen, "Approve", "Within the budget line for gauges.", "Approval recorded.");
 
   // A return needs a comment; with one, it goes back to the buyer.
@@ -125,7 +125,7 @@ test("two approvers sign the high-value award after a return and a resubmission"
 
 test("anyone confirms the memo on Memo check, and a changed copy fails", async ({ page }) => {
   await page.goto("/memo-check");
-  await expect(page.getByRole("note", { name: "Cautions" })).toBeVisible();
+  await expect(page.getByRole("note", { name: "Cautions" }).first()).toBeVisible();
   await page.getByLabel("Memo file (PDF)").setInputFiles(memoFile);
   await page.getByRole("button", { name: "Check the file" }).click();
   const result = page.getByRole("status", { name: "Check result" });

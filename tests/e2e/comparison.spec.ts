@@ -28,7 +28,8 @@ const csvRows = (text: string) =>
 test("a buyer opens the envelopes, sorts, exports, tries other weights and recommends an award", async ({ page }) => {
   await signIn(page, ACCOUNTS.buyer);
   await page.goto("/tenders");
-  await page.getByRole("link", { name: new RegExp(REFERENCE) }).first().click();
+  // The list names the tender by its title; its row carries the reference.
+  await page.getByRole("row", { name: new RegExp(REFERENCE) }).getByRole("link").first().click();
   await page.getByRole("link", { name: "Comparison", exact: true }).click();
   await expect(page.getByRole("region", { name: "Comparison grid" })).toBeVisible();
   await expect(page.getByRole("note", { name: "Cautions" }).first()).toContainText("do not replace qualification testing");
