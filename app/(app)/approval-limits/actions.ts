@@ -3,7 +3,7 @@
 import { z } from "zod";
 import { createApprovalBand, removeApprovalBand, updateApprovalBand } from "@/lib/server/approval-bands";
 import { approvalBandSchema } from "@/lib/validation/approvals";
-import { runForm, type FormResult } from "@/app/(app)/review/run-form";
+import { runForm, type FormResult } from "@/lib/server/form-action";
 
 const PATHS = ["/approval-limits"];
 const idSchema = z.object({ id: z.string().min(1, "Choose a band.") });

@@ -1,43 +1,19 @@
 "use server";
 
-import { revalidatePath } from "next/cache";
-import { createUserSchema, updateUserSchema, createOrganisationSchema } from "@/lib/validation/people";
-import { fieldErrorsOf } from "@/lib/validation/messages";
 import { createOrganisation, createUser, updateUser } from "@/lib/server/people";
-import { requireViewer } from "@/lib/server/session";
-import { AppError } from "@/lib/server/errors";
+import { runForm, type FormResult } from "@/lib/server/form-action";
+import { createOrganisationSchema, createUserSchema, updateUserSchema } from "@/lib/validation/people";
 
-export interface FormResult {
-  ok?: boolean;
-  message?: string;
-  fieldErrors?: Record<string, string[]>;
-}
-
-async function run(work: () => Promise<unknown>, okMessage: string): Promise<FormResult> {
-  try {
-    await work();
-  } catch (error) {
-    if (error instanceof AppError) return { message: error.message, fieldErrors: error.fieldErrors };
-    throw error;
-  }
-  revalidatePath("/people");
-  return { ok: true, message: okMessage };
-}
+export type { FormResult };
 
 export async function createUserAction(values: unknown): Promise<FormResult> {
-  const parsed = createUserSchema.safeParse(values);
-  if (!parsed.success) return { message: "Check the highlighted fields.", fieldErrors: fieldErrorsOf(parsed.error) };
-  return run(async () => createUser(await requireViewer(), parsed.data), `Account created for ${parsed.data.email}.`);
+  return runForm(createUserSchema, values, (viewer, input) => createUser(viewer, input), ["/people"], "Account created.");
 }
 
 export async function updateUserAction(userId: string, values: unknown): Promise<FormResult> {
-  const parsed = updateUserSchema.safeParse(values);
-  if (!parsed.success) return { message: "Check the highlighted fields.", fieldErrors: fieldErrorsOf(parsed.error) };
-  return run(async () => updateUser(await requireViewer(), String(userId), parsed.data), "Saved.");
+  return runForm(updateUserSchema, values, (viewer, input) => updateUser(viewer, String(userId), input), ["/people"], "Saved.");
 }
 
 export async function createOrganisationAction(values: unknown): Promise<FormResult> {
-  const parsed = createOrganisationSchema.safeParse(values);
-  if (!parsed.success) return { message: "Check the highlighted fields.", fieldErrors: fieldErrorsOf(parsed.error) };
-  return run(async () => createOrganisation(await requireViewer(), parsed.data), `${parsed.data.name} added.`);
+  return runForm(createOrganisationSchema, values, (viewer, input) => createOrganisation(viewer, input), ["/people"], "Organisation added.");
 }

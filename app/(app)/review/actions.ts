@@ -4,7 +4,7 @@ import { evidenceRunSchema, markSchema, threadSchema } from "@/lib/validation/re
 import { recordEvidence } from "@/lib/server/evidence";
 import { createMark } from "@/lib/server/marks";
 import { openThread } from "@/lib/server/threads";
-import { runForm, type FormResult } from "./run-form";
+import { runForm, type FormResult } from "@/lib/server/form-action";
 
 const claimPaths = (claimId: string) => [`/review/claims/${claimId}`, "/review"];
 

@@ -2,7 +2,7 @@
 
 import { messageSchema } from "@/lib/validation/review";
 import { postMessage } from "@/lib/server/threads";
-import { runForm, type FormResult } from "../review/run-form";
+import { runForm, type FormResult } from "@/lib/server/form-action";
 
 /** A message in a clarification thread, from either side; the page it was sent from is refreshed. */
 export async function postMessageAction(threadId: string, path: string, values: unknown): Promise<FormResult> {

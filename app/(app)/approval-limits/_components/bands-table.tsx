@@ -1,8 +1,8 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import type { FormResult } from "@/app/(app)/review/run-form";
-import { FormStatus } from "@/app/(app)/review/_components/form-status";
+import type { FormResult } from "@/lib/server/form-action";
+import { FormStatus } from "@/app/_components/form-status";
 import { formatMoney } from "@/lib/format";
 import type { ApprovalBandInput } from "@/lib/validation/approvals";
 import { removeBandAction } from "../actions";

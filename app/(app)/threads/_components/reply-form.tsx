@@ -4,8 +4,8 @@ import { useState, useTransition } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { messageSchema, type MessageInput } from "@/lib/validation/review";
-import type { FormResult } from "@/app/(app)/review/run-form";
-import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+import type { FormResult } from "@/lib/server/form-action";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
 import { postMessageAction } from "../actions";
 
 export function ReplyForm({ threadId, path, subject }: { threadId: string; path: string; subject: string }) {

@@ -4,7 +4,7 @@ import { z } from "zod";
 import { openEnvelopes } from "@/lib/server/comparison";
 import { submitRecommendation } from "@/lib/server/recommendations";
 import { recommendationSchema } from "@/lib/validation/comparison";
-import { runForm, type FormResult } from "@/app/(app)/review/run-form";
+import { runForm, type FormResult } from "@/lib/server/form-action";
 
 const tenderPaths = (tenderId: string) => [`/tenders/${tenderId}`, `/tenders/${tenderId}/comparison`, `/tenders/${tenderId}/ledger`, "/desk"];
 

@@ -1,17 +1,12 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { AppError } from "@/lib/server/errors";
+import { z } from "zod";
+import { attemptForm, type FormResult } from "@/lib/server/form-action";
 import { submitOffer, withdrawOffer } from "@/lib/server/offers";
-import { requireViewer } from "@/lib/server/session";
-import { fieldErrorsOf } from "@/lib/validation/messages";
 import { offerSchema } from "@/lib/validation/offer";
 
-export interface OfferFormResult {
-  ok?: boolean;
-  message?: string;
-  fieldErrors?: Record<string, string[]>;
-}
+export type OfferFormResult = FormResult;
 
 function revalidateOffers(tenderId: string) {
   revalidatePath(`/tenders/${tenderId}/offer`);
@@ -20,26 +15,15 @@ function revalidateOffers(tenderId: string) {
 
 /** Submits or resubmits; the page then shows the new version's verdicts, so the form stays as typed. */
 export async function submitOfferAction(tenderId: string, values: unknown): Promise<OfferFormResult> {
-  const parsed = offerSchema.safeParse(values);
-  if (!parsed.success) return { message: "Check the highlighted fields.", fieldErrors: fieldErrorsOf(parsed.error) };
-  let version: number | undefined;
-  try {
-    version = (await submitOffer(await requireViewer(), String(tenderId), parsed.data)).version;
-  } catch (error) {
-    if (error instanceof AppError) return { message: error.message, fieldErrors: error.fieldErrors };
-    throw error;
-  }
+  const outcome = await attemptForm(offerSchema, values, (viewer, input) => submitOffer(viewer, String(tenderId), input));
+  if (!outcome.ok) return { ...outcome.result, values: undefined };
   revalidateOffers(tenderId);
-  return { ok: true, message: `Version ${version} submitted. Its verdicts are shown below.` };
+  return { ok: true, message: `Version ${outcome.value.version} submitted. Its verdicts are shown below.` };
 }
 
 export async function withdrawOfferAction(tenderId: string, offerId: string): Promise<OfferFormResult> {
-  try {
-    await withdrawOffer(await requireViewer(), String(offerId));
-  } catch (error) {
-    if (error instanceof AppError) return { message: error.message };
-    throw error;
-  }
+  const outcome = await attemptForm(z.unknown(), undefined, (viewer) => withdrawOffer(viewer, String(offerId)));
+  if (!outcome.ok) return { message: outcome.result.message };
   revalidateOffers(tenderId);
   return { ok: true, message: "Your offer is withdrawn. It stays on record; you may submit again until closing." };
 }

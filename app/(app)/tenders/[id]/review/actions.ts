@@ -3,7 +3,7 @@
 import { declarationSchema, signoffSchema } from "@/lib/validation/review";
 import { createDeclaration } from "@/lib/server/declarations";
 import { signTechnical } from "@/lib/server/signoff";
-import { runForm, type FormResult } from "@/app/(app)/review/run-form";
+import { runForm, type FormResult } from "@/lib/server/form-action";
 
 const paths = (tenderId: string) => [`/tenders/${tenderId}/review`, `/tenders/${tenderId}`, "/review", "/desk"];
 

@@ -2,7 +2,7 @@
 
 import { decideRecommendation } from "@/lib/server/approvals";
 import { decisionSchema } from "@/lib/validation/approvals";
-import { runForm, type FormResult } from "@/app/(app)/review/run-form";
+import { runForm, type FormResult } from "@/lib/server/form-action";
 
 export async function decideAction(tenderId: string, values: unknown): Promise<FormResult> {
   const id = String(tenderId);

@@ -7,9 +7,9 @@ import type { z } from "zod";
 import { MARKS } from "@/db/schema/evaluation";
 import { MARK_LABELS } from "@/lib/review/labels";
 import { markSchema, type MarkInput } from "@/lib/validation/review";
-import type { FormResult } from "@/app/(app)/review/run-form";
+import type { FormResult } from "@/lib/server/form-action";
 import { markClaimAction } from "@/app/(app)/review/actions";
-import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
 
 export function MarkForm({ claimId }: { claimId: string }) {
   const [result, setResult] = useState<FormResult>({});

@@ -4,9 +4,9 @@ import { useState, useTransition } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { threadSchema, type ThreadInput } from "@/lib/validation/review";
-import type { FormResult } from "@/app/(app)/review/run-form";
+import type { FormResult } from "@/lib/server/form-action";
 import { openThreadAction } from "@/app/(app)/review/actions";
-import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
 
 /** A question to the vendor without changing the claim's mark. */
 export function OpenThreadForm({ claimId }: { claimId: string }) {

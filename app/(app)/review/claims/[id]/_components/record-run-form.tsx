@@ -5,9 +5,9 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { evidenceRunSchema, type EvidenceRunInput } from "@/lib/validation/review";
-import type { FormResult } from "@/app/(app)/review/run-form";
+import type { FormResult } from "@/lib/server/form-action";
 import { recordEvidenceAction } from "@/app/(app)/review/actions";
-import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
 
 const asNumber = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : Number(String(v).replace(/[,\s_]/g, "")));
 

@@ -110,6 +110,8 @@ export function ComparisonGrid({
         onSelectionChanged={(e) => onSelect(e.api.getSelectedRows()[0]?.offerId ?? null)}
         onGridReady={(e) => setApi(e.api)}
         ensureDomOrder
+        // Every column in the page, not only those scrolled into view: screen readers and the export checks read them all.
+        suppressColumnVirtualisation
         height={Math.min(560, 110 + rows.length * 34)}
       />
     </section>

@@ -2,7 +2,7 @@
 
 import { useCallback, useEffect, useState, useTransition } from "react";
 import type { Comparison } from "@/lib/server/comparison";
-import type { FormResult } from "@/app/(app)/review/run-form";
+import type { FormResult } from "@/lib/server/form-action";
 import { openEnvelopesAction } from "../actions";
 import { ComparisonGrid } from "./comparison-grid";
 import { RecommendationPanel } from "./recommendation-panel";

@@ -7,7 +7,7 @@ import { DateTime } from "@/app/_components/date-time";
 import { formatMoney } from "@/lib/format";
 import { totalPriceAt, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
 import { recommendationSchema, type RecommendationInput } from "@/lib/validation/comparison";
-import type { FormResult } from "@/app/(app)/review/run-form";
+import type { FormResult } from "@/lib/server/form-action";
 import { submitRecommendationAction } from "../actions";
 
 interface Listed {

@@ -5,8 +5,8 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { declarationSchema, type DeclarationInput } from "@/lib/validation/review";
-import type { FormResult } from "@/app/(app)/review/run-form";
-import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+import type { FormResult } from "@/lib/server/form-action";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
 import { declareAction } from "../actions";
 
 /** The conflict-of-interest declaration: made once, before the offers can be seen, never changed. */

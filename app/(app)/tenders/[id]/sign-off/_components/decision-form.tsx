@@ -1,8 +1,8 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import type { FormResult } from "@/app/(app)/review/run-form";
-import { FieldError, FormStatus } from "@/app/(app)/review/_components/form-status";
+import type { FormResult } from "@/lib/server/form-action";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
 import { decisionSchema } from "@/lib/validation/approvals";
 import { fieldErrorsOf } from "@/lib/validation/messages";
 import { decideAction } from "../actions";

@@ -1,4 +1,4 @@
-import type { FormResult } from "@/app/(app)/review/run-form";
+import type { FormResult } from "@/lib/server/form-action";
 
 /** The outcome line under a form: a status when it worked, an alert when it did not. */
 export function FormStatus({ result }: { result: FormResult }) {

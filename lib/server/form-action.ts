@@ -1,0 +1,47 @@
+import "server-only";
+import { revalidatePath } from "next/cache";
+import type { ZodType } from "zod";
+import { fieldErrorsOf } from "@/lib/validation/messages";
+import { AppError } from "@/lib/server/errors";
+import { requireViewer, type Viewer } from "@/lib/server/session";
+
+export interface FormResult {
+  ok?: boolean;
+  message?: string;
+  fieldErrors?: Record<string, string[]>;
+  values?: unknown;
+}
+
+/**
+ * The recipe of every form's server action: parse with the same zod schema as the API, then run
+ * one lib/server function; typed failures come back to the form as messages, anything else is a
+ * real error. Redirects belong after it, outside any try/catch.
+ */
+export async function attemptForm<I, T>(
+  schema: ZodType<I>,
+  values: unknown,
+  work: (viewer: Viewer, input: I) => Promise<T>,
+): Promise<{ ok: true; value: T } | { ok: false; result: FormResult }> {
+  const parsed = schema.safeParse(values);
+  if (!parsed.success) return { ok: false, result: { message: "Check the highlighted fields.", fieldErrors: fieldErrorsOf(parsed.error), values } };
+  try {
+    return { ok: true, value: await work(await requireViewer(), parsed.data) };
+  } catch (error) {
+    if (error instanceof AppError) return { ok: false, result: { message: error.message, fieldErrors: error.fieldErrors, values } };
+    throw error;
+  }
+}
+
+/** attemptForm, then revalidate the given paths and say so. */
+export async function runForm<T>(
+  schema: ZodType<T>,
+  values: unknown,
+  work: (viewer: Viewer, input: T) => Promise<unknown>,
+  paths: string[],
+  okMessage: string,
+): Promise<FormResult> {
+  const outcome = await attemptForm(schema, values, work);
+  if (!outcome.ok) return outcome.result;
+  for (const path of paths) revalidatePath(path);
+  return { ok: true, message: okMessage };
+}
