@@ -9,7 +9,7 @@ import { POST as envelopesPost } from "@/app/api/v1/tenders/[id]/envelopes/route
 import { GET as comparisonGet } from "@/app/api/v1/tenders/[id]/comparison/route";
 import { GET as recommendationGet, POST as recommendationPost } from "@/app/api/v1/tenders/[id]/recommendation/route";
 import { getCurrentRecommendation } from "@/lib/server/recommendations";
-import { verifyLedger } from "@/lib/server/ledger";
+import { appendLedger, verifyLedger } from "@/lib/server/ledger";
 import { startLocalServices, type LocalServices } from "@/lib/dev/services";
 import { flushMail, listCapturedMail } from "@/lib/mail";
 import type { Comparison } from "@/lib/server/comparison";
@@ -143,7 +143,11 @@ describe("the tender's rule for confirmed impossible claims", () => {
 
     // A later mark is the current one; the comparison is recomputed on the next read.
     const [engineer] = await db.select().from(users).where(eq(users.email, "engineer@tarnwell.example"));
-    await db.insert(marks).values({ claimId: fx.claimIds[2][1], tenderId: fx.tenderId, vendorOrgId: fx.vendorOrgIds[2], mark: "rejected-impossible", comment: "Beyond the converse.", markedBy: engineer.id, markedAt: new Date(Date.now() + 1000) });
+    // Written as the app writes a mark: with its ledger entry in the same transaction (the comparison is keyed to the tender's ledger).
+    await db.transaction(async (tx) => {
+      await tx.insert(marks).values({ claimId: fx.claimIds[2][1], tenderId: fx.tenderId, vendorOrgId: fx.vendorOrgIds[2], mark: "rejected-impossible", comment: "Beyond the converse.", markedBy: engineer.id, markedAt: new Date(Date.now() + 1000) });
+      await appendLedger(tx, { tenderId: fx.tenderId, actor: { id: engineer.id, label: engineer.name }, action: "claim.marked", subjectType: "Claim", subjectId: fx.claimIds[2][1], data: { mark: "rejected-impossible" } });
+    });
     const after = await readGrid("buyer", fx.tenderId);
     const out = after.sheet.offers.find((o) => o.offerId === fx.offerIds[2])!;
     expect(out).toMatchObject({ disqualified: true, rank: null });
