@@ -19,7 +19,7 @@ import { ConflictError, ForbiddenError } from "./errors";
 import { appendLedger } from "./ledger";
 import { offerFor } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
-import { getTender, tenderSubject, type TenderRow } from "./tenders";
+import { getTender, tenderSubject, type TenderRow, type TenderWithInvites } from "./tenders";
 
 type Margins = ReturnType<typeof scoringMargins> & { k: number | null };
 
@@ -165,30 +165,6 @@ export async function loadScoringInput(db: Queryable, viewer: Viewer, tender: Te
   };
 }
 
-/**
- * Every change that can move a score (an offer, a mark, a lab run, a declaration, the envelopes,
- * a state change) writes a ledger entry for its tender, so the tender's ledger head names the
- * state of its inputs. A sheet computed for one head and one viewer's reading rights is reused
- * until the head moves: a mark shows at the next read, and twenty concurrent reads compute once.
- */
-const sheetCache = new Map<string, Promise<{ input: ScoringInput; sheet: ScoreSheet; computedAt: string }>>();
-const SHEET_CACHE_LIMIT = 500;
-
-async function scoredFor(viewer: Viewer, tender: TenderRow) {
-  const db = await getDb();
-  const [{ head }] = await db.select({ head: sql<number>`coalesce(max(${ledgerEntries.seq}), 0)` }).from(ledgerEntries).where(eq(ledgerEntries.tenderId, tender.id));
-  const { id, roles, declarations } = viewer.actor;
-  const key = JSON.stringify([tender.id, head, tender.state, tender.envelopesOpenedAt, id, roles, declarations]);
-  let entry = sheetCache.get(key);
-  if (!entry) {
-    if (sheetCache.size >= SHEET_CACHE_LIMIT) sheetCache.clear();
-    entry = loadScoringInput(db, viewer, tender).then((input) => ({ input, sheet: buildScoreSheet(input), computedAt: new Date().toISOString() }));
-    entry.catch(() => sheetCache.delete(key));
-    sheetCache.set(key, entry);
-  }
-  return entry;
-}
-
 export interface Comparison {
   tender: Pick<TenderRow, "id" | "reference" | "title" | "state" | "technicalSignedAt" | "envelopesOpenedAt">;
   envelopesOpened: boolean;
@@ -199,29 +175,68 @@ export interface Comparison {
 }
 
 /**
- * The Comparison of a tender's current offers, recomputed whenever its inputs change so that a
- * new mark or lab run shows at the next read. Buyers, and approvers declared on the tender, read it; before the
- * envelopes are opened it carries no price, lead time or warranty (and so no totals or ranks).
+ * Every change that can move a score (an offer, a mark, a lab run, a declaration, the envelopes,
+ * a state change) writes a ledger entry for its tender, so the tender's ledger head names the
+ * state of its inputs. A comparison built for one head and one viewer's reading rights is reused,
+ * with its JSON, until the head moves: a mark shows at the next read, and twenty concurrent reads
+ * compute once.
  */
-export async function getComparison(viewer: Viewer, tenderId: string): Promise<Comparison> {
+interface Cached {
+  comparison: Comparison;
+  json?: string;
+}
+const cache = new Map<string, Promise<Cached>>();
+const CACHE_LIMIT = 500;
+
+async function cachedComparison(viewer: Viewer, tenderId: string): Promise<Cached> {
   const tender = await getTender(viewer, tenderId);
   authorize(viewer, "read", asSubject("Score", { tenderId }), "Only the buying team and approvers declared on this tender read the comparison.");
   const problem = comparisonProblem(tender.state);
   if (problem) throw new ConflictError(problem);
-  const { input, sheet, computedAt } = await scoredFor(viewer, tender);
+  const db = await getDb();
+  const [{ head }] = await db.select({ head: sql<number>`coalesce(max(${ledgerEntries.seq}), 0)` }).from(ledgerEntries).where(eq(ledgerEntries.tenderId, tenderId));
+  const { id, roles, declarations } = viewer.actor;
+  const key = JSON.stringify([tenderId, head, tender.state, tender.envelopesOpenedAt, id, roles, declarations]);
+  let entry = cache.get(key);
+  if (!entry) {
+    if (cache.size >= CACHE_LIMIT) cache.clear();
+    entry = buildComparison(db, viewer, tender).then((comparison) => ({ comparison }));
+    entry.catch(() => cache.delete(key));
+    cache.set(key, entry);
+  }
+  return entry;
+}
+
+async function buildComparison(db: Queryable, viewer: Viewer, tender: TenderWithInvites): Promise<Comparison> {
+  const input = await loadScoringInput(db, viewer, tender);
   const { id, reference, title, state, technicalSignedAt, envelopesOpenedAt } = tender;
   return {
     tender: { id, reference, title, state, technicalSignedAt, envelopesOpenedAt },
     envelopesOpened: envelopesOpenedAt !== null,
     input,
-    sheet,
-    computedAt,
+    sheet: buildScoreSheet(input),
+    computedAt: new Date().toISOString(),
     can: {
       openEnvelopes: viewer.ability.can("openEnvelopes", tenderSubject(tender)) && envelopeOpeningProblem(tender) === null,
       recommend: viewer.ability.can("recommend", tenderSubject(tender)) && envelopesOpenedAt !== null,
-      export: viewer.ability.can("export", asSubject("Score", { tenderId })),
+      export: viewer.ability.can("export", asSubject("Score", { tenderId: tender.id })),
     },
   };
+}
+
+/**
+ * The Comparison of a tender's current offers, recomputed whenever its inputs change. Buyers, and
+ * approvers declared on the tender, read it; before the envelopes are opened it carries no price,
+ * lead time or warranty (and so no totals or ranks).
+ */
+export async function getComparison(viewer: Viewer, tenderId: string): Promise<Comparison> {
+  return (await cachedComparison(viewer, tenderId)).comparison;
+}
+
+/** The same, serialised once per version: what the route sends. */
+export async function getComparisonJson(viewer: Viewer, tenderId: string): Promise<string> {
+  const entry = await cachedComparison(viewer, tenderId);
+  return (entry.json ??= JSON.stringify(entry.comparison));
 }
 
 /**

@@ -2,7 +2,7 @@ import "server-only";
 import { hashPassword } from "better-auth/crypto";
 import { eq, inArray, sql } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
-import { accounts, organisations, userRoles, users, type RoleName } from "@/db/schema";
+import { accounts, declarations, organisations, userRoles, users, type RoleName } from "@/db/schema";
 
 export interface NewUserRow {
   name: string;
@@ -37,7 +37,7 @@ export async function insertUser(tx: Queryable, input: NewUserRow) {
   return user;
 }
 
-/** A user with organisation and roles, or null. */
+/** A user with organisation, roles and conflict-of-interest declarations, or null. */
 export async function loadUser(db: Queryable, userId: string) {
   // One round trip: it runs on every request.
   const [row] = await db
@@ -45,12 +45,13 @@ export async function loadUser(db: Queryable, userId: string) {
       user: users,
       organisation: organisations,
       roles: sql<RoleName[]>`coalesce((select array_agg(${userRoles.role} order by ${userRoles.role}) from ${userRoles} where ${userRoles.userId} = ${users.id}), '{}')`,
+      declarations: sql<{ tenderId: string; conflictedOrgIds: string[] }[]>`coalesce((select json_agg(json_build_object('tenderId', ${declarations.tenderId}, 'conflictedOrgIds', ${declarations.conflictedOrgIds})) from ${declarations} where ${declarations.userId} = ${users.id}), '[]'::json)`,
     })
     .from(users)
     .innerJoin(organisations, eq(organisations.id, users.organisationId))
     .where(eq(users.id, userId));
   if (!row) return null;
-  return { ...row.user, organisation: row.organisation, roles: row.roles };
+  return { ...row.user, organisation: row.organisation, roles: row.roles, declarations: row.declarations };
 }
 
 export async function rolesByUser(db: Queryable, userIds: string[]) {

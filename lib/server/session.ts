@@ -1,9 +1,7 @@
 import "server-only";
 import { headers as nextHeaders } from "next/headers";
-import { eq } from "drizzle-orm";
 import { defineAbilityFor, type Actor, type AppAbility } from "@/policies";
 import { getDb } from "@/db/client";
-import { declarations } from "@/db/schema";
 import { getAuth } from "./auth";
 import { loadUser } from "./people-store";
 import { ForbiddenError, UnauthorizedError } from "./errors";
@@ -25,7 +23,6 @@ export async function getViewer(requestHeaders?: Headers): Promise<Viewer | null
   const db = await getDb();
   const user = await loadUser(db, session.user.id);
   if (!user || !user.active) return null;
-  const decl = await db.select().from(declarations).where(eq(declarations.userId, user.id));
   const actor: Actor = {
     id: user.id,
     organisationId: user.organisationId,
@@ -33,7 +30,7 @@ export async function getViewer(requestHeaders?: Headers): Promise<Viewer | null
     roles: user.roles,
     active: user.active,
     approvalLimit: user.approvalLimit,
-    declarations: decl.map((d) => ({ tenderId: d.tenderId, conflictedVendorOrgIds: d.conflictedOrgIds })),
+    declarations: user.declarations.map((d) => ({ tenderId: d.tenderId, conflictedVendorOrgIds: d.conflictedOrgIds })),
   };
   return {
     actor,

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, lte } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, lte, sql } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { organisations, tenderInvitations, tenders } from "@/db/schema";
@@ -66,9 +66,16 @@ export async function listTenders(viewer: Viewer): Promise<TenderWithInvites[]> 
 export async function getTender(viewer: Viewer, id: string): Promise<TenderWithInvites> {
   const db = await getDb();
   await closeDueTenders(db);
-  const [row] = await db.select().from(tenders).where(eq(tenders.id, id));
+  // One round trip: every tender page and route starts here.
+  const [row] = await db
+    .select({
+      tender: tenders,
+      invitedOrgIds: sql<string[]>`coalesce((select array_agg(${tenderInvitations.organisationId} order by ${tenderInvitations.organisationId}) from ${tenderInvitations} where ${tenderInvitations.tenderId} = ${tenders.id}), '{}')`,
+    })
+    .from(tenders)
+    .where(eq(tenders.id, id));
   if (!row) throw new NotFoundError("No such tender.");
-  const [tender] = await withInvites(db, [row]);
+  const tender: TenderWithInvites = { ...row.tender, invitedOrgIds: row.invitedOrgIds };
   authorize(viewer, "read", tenderSubject(tender), "You are not invited to this tender.");
   return tender;
 }

@@ -1,14 +1,16 @@
 import { jsonRoute } from "@/lib/server/http";
-import { getComparison } from "@/lib/server/comparison";
+import { getComparisonJson } from "@/lib/server/comparison";
 import { requireViewer } from "@/lib/server/session";
 
 type Context = { params: Promise<{ id: string }> };
 
 /**
- * The Comparison: the scoring input (what the viewer may read) and the score sheet, recomputed now.
+ * The Comparison: the scoring input (what the viewer may read) and the score sheet, recomputed
+ * whenever the tender's inputs change.
  * Before the envelopes are opened it answers 200 without any price, lead time or warranty, and
  * without totals or ranks; engineers and vendors get 403.
  */
-export const GET = jsonRoute(async (request, { params }: Context) =>
-  getComparison(await requireViewer(request.headers), (await params).id),
-);
+export const GET = jsonRoute(async (request, { params }: Context) => {
+  const json = await getComparisonJson(await requireViewer(request.headers), (await params).id);
+  return new Response(json, { headers: { "content-type": "application/json" } });
+});
