@@ -30,6 +30,18 @@ export interface BoundCharts {
 const channelOf = (model: ChannelModel, x: number) =>
   model === "bsc" ? { model, p: x } : model === "bec" ? { model, e: x } : { model, ebn0Db: x };
 
+/** The waterfall of the bounds, widened where needed so that the claim's own channel is on the chart. */
+function channelCurveAround(view: BoundView): ChannelCurvePoint[] {
+  const base = { model: view.model, n: view.n, k: view.k, points: 48 };
+  const auto = channelCurve(base);
+  const lo = auto[0].x;
+  const hi = auto[auto.length - 1].x;
+  if (view.x >= lo && view.x <= hi) return auto;
+  if (view.model === "biawgn") return channelCurve({ ...base, from: Math.min(lo, view.x - 0.5), to: Math.max(hi, view.x + 0.5) });
+  const ceiling = view.model === "bsc" ? 0.5 : 0.999;
+  return channelCurve({ ...base, from: Math.min(lo, view.x / 1.5), to: Math.min(ceiling, Math.max(hi, view.x * 1.5)) });
+}
+
 /** Everything the bound charts plot for one code and channel: the verdict, BLER against the channel, best rate against n. */
 export function buildBoundCharts(view: BoundView): BoundCharts {
   const result = evaluateClaim({
@@ -37,8 +49,7 @@ export function buildBoundCharts(view: BoundView): BoundCharts {
     code: { n: view.n, k: view.k },
     target: { metric: "bler", value: view.target },
   } as Parameters<typeof evaluateClaim>[0]);
-  // The charts span the claim's own point as well as the waterfall.
-  const channel = channelCurve({ model: view.model, n: view.n, k: view.k, points: 48 });
+  const channel = channelCurveAround(view);
   const x = view.model === "biawgn" ? ebn0ToEsn0(view.x, view.k / view.n) : view.x;
   const rate = rateCurve({ model: view.model, x, targetBler: view.target, nMin: 16, nMax: Math.max(10_000, view.n * 4), points: 28 });
   return { view, result, channel, rate };
@@ -46,8 +57,10 @@ export function buildBoundCharts(view: BoundView): BoundCharts {
 
 /** The chart view of a stored verdict: its code and the channel the engine actually used (null without n and k). */
 export function boundViewOfResult(result: ClaimResult): BoundView | null {
-  const { n, k, channel, target } = result;
-  if (n == null || k == null || !Number.isInteger(k) || k < 1 || n < 2) return null;
+  const { n, channel, target } = result;
+  // A rate stated with n gives a fractional k; the chart uses the nearest whole number of bits.
+  const k = result.k == null ? null : Math.round(result.k);
+  if (n == null || k == null || k < 1 || k > n || n < 2) return null;
   const x =
     channel.model === "bsc" ? channel.p
     : channel.model === "bec" ? channel.e

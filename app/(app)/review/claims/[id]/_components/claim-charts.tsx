@@ -10,7 +10,7 @@ export function ClaimCharts({ result }: { result: unknown }) {
     return (
       <section className="panel" aria-label="Charts">
         <h2>The claim against the bounds</h2>
-        <p className="mt-2 text-sm text-ink-soft">The offer states a rate without n and k, so only the asymptotic checks apply and there is no finite-length chart.</p>
+        <p className="mt-2 text-sm text-ink-soft">The offer states a rate without a block length n, so only the asymptotic checks apply and there is no finite-length chart.</p>
       </section>
     );
   }
