@@ -35,7 +35,7 @@ export default async function SignedInLayout({ children }: { children: React.Rea
       <main className="mx-auto w-full max-w-7xl flex-1 px-6 py-6">{children}</main>
       <footer className="border-t border-ink-faint/20 bg-paper-raised">
         <div className="mx-auto max-w-7xl px-6 py-4">
-          <Cautions />
+          <Cautions placement="footer" />
         </div>
       </footer>
     </div>

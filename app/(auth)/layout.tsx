@@ -9,7 +9,7 @@ export default function SignedOutLayout({ children }: { children: React.ReactNod
       </header>
       <main className="flex flex-1 items-start justify-center px-4 py-16">{children}</main>
       <footer className="border-t border-ink-faint/20 px-6 py-4">
-        <Cautions />
+        <Cautions placement="footer" />
       </footer>
     </div>
   );

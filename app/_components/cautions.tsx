@@ -2,10 +2,22 @@
 export const CAUTIONS =
   "Verdicts judge coding claims against mathematical limits; they do not certify a module's radio-regulatory approval, safety, or fitness for life-safety or medical use, and they do not replace qualification testing. Awards follow your organisation's purchasing policy and the procurement law that applies to it.";
 
-export function Cautions({ className = "" }: { className?: string }) {
+/**
+ * As a quiet line in the footer of every page, or as a marked note beside verdicts and memos,
+ * where the reader is deciding something.
+ */
+export function Cautions({ className = "", placement = "beside" }: { className?: string; placement?: "footer" | "beside" }) {
+  if (placement === "footer") {
+    return (
+      <p role="note" aria-label="Cautions" className={`text-xs leading-relaxed text-ink-soft ${className}`}>
+        {CAUTIONS}
+      </p>
+    );
+  }
   return (
-    <p role="note" aria-label="Cautions" className={`text-xs leading-relaxed text-ink-soft ${className}`}>
+    <aside role="note" aria-label="Cautions" className={`rounded-md border-l-4 border-verdict-evidence/60 bg-paper-raised px-4 py-2.5 text-xs leading-relaxed text-ink-soft ${className}`}>
+      <strong className="mr-1 font-semibold text-ink">Cautions.</strong>
       {CAUTIONS}
-    </p>
+    </aside>
   );
 }

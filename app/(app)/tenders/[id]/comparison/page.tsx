@@ -16,7 +16,7 @@ export default async function ComparisonPage({ params }: { params: Promise<{ id:
   if (!viewer.ability.can("read", asSubject("Score", { tenderId: id }))) forbidden();
   return (
     <div className="space-y-4">
-      <Cautions className="panel" />
+      <Cautions />
       <ComparisonView tenderId={tender.id} reference={tender.reference} />
     </div>
   );
