@@ -1,4 +1,5 @@
 import { index, integer, jsonb, numeric, pgTable, text, uniqueIndex } from "drizzle-orm/pg-core";
+import { tenderRef } from "./refs";
 import { id, createdAt, updatedAt } from "./columns";
 import { users } from "./people";
 import { tenders } from "./tenders";
@@ -22,9 +23,7 @@ export const recommendations = pgTable(
   "recommendations",
   {
     id: id(),
-    tenderId: text("tender_id")
-      .notNull()
-      .references(() => tenders.id),
+    tenderId: tenderRef(),
     offerId: text("offer_id")
       .notNull()
       .references(() => offers.id),
@@ -52,9 +51,7 @@ export const approvals = pgTable(
     recommendationId: text("recommendation_id")
       .notNull()
       .references(() => recommendations.id),
-    tenderId: text("tender_id")
-      .notNull()
-      .references(() => tenders.id),
+    tenderId: tenderRef(),
     approverId: text("approver_id")
       .notNull()
       .references(() => users.id),

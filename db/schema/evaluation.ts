@@ -1,6 +1,7 @@
 import { doublePrecision, index, pgTable, primaryKey, text } from "drizzle-orm/pg-core";
+import { tenderRef, vendorRef } from "./refs";
 import { id, createdAt } from "./columns";
-import { organisations, users } from "./people";
+import { users } from "./people";
 import { tenders } from "./tenders";
 import { claims } from "./offers";
 
@@ -15,12 +16,8 @@ export const marks = pgTable(
     claimId: text("claim_id")
       .notNull()
       .references(() => claims.id),
-    tenderId: text("tender_id")
-      .notNull()
-      .references(() => tenders.id),
-    vendorOrgId: text("vendor_org_id")
-      .notNull()
-      .references(() => organisations.id),
+    tenderId: tenderRef(),
+    vendorOrgId: vendorRef(),
     mark: text("mark").$type<MarkKind>().notNull(),
     comment: text("comment").notNull().default(""),
     markedBy: text("marked_by")
@@ -35,12 +32,8 @@ export const threads = pgTable(
   "threads",
   {
     id: id(),
-    tenderId: text("tender_id")
-      .notNull()
-      .references(() => tenders.id),
-    vendorOrgId: text("vendor_org_id")
-      .notNull()
-      .references(() => organisations.id),
+    tenderId: tenderRef(),
+    vendorOrgId: vendorRef(),
     claimId: text("claim_id").references(() => claims.id),
     subject: text("subject").notNull(),
     createdBy: text("created_by")
@@ -79,12 +72,8 @@ export const evidenceRuns = pgTable(
     claimId: text("claim_id")
       .notNull()
       .references(() => claims.id),
-    tenderId: text("tender_id")
-      .notNull()
-      .references(() => tenders.id),
-    vendorOrgId: text("vendor_org_id")
-      .notNull()
-      .references(() => organisations.id),
+    tenderId: tenderRef(),
+    vendorOrgId: vendorRef(),
     channelValue: doublePrecision("channel_value").notNull(),
     unit: text("unit").$type<"bits" | "frames">().notNull(),
     trials: doublePrecision("trials").notNull(),

@@ -1,8 +1,8 @@
 import { sql } from "drizzle-orm";
 import { doublePrecision, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { tenderRef, vendorRef } from "./refs";
 import { id, createdAt } from "./columns";
-import { organisations, users } from "./people";
-import { tenders } from "./tenders";
+import { users } from "./people";
 
 export const OFFER_STATUSES = ["submitted", "superseded", "withdrawn"] as const;
 export type OfferStatus = (typeof OFFER_STATUSES)[number];
@@ -20,12 +20,8 @@ export const offers = pgTable(
   "offers",
   {
     id: id(),
-    tenderId: text("tender_id")
-      .notNull()
-      .references(() => tenders.id),
-    vendorOrgId: text("vendor_org_id")
-      .notNull()
-      .references(() => organisations.id),
+    tenderId: tenderRef(),
+    vendorOrgId: vendorRef(),
     version: integer("version").notNull(),
     status: text("status").$type<OfferStatus>().notNull().default("submitted"),
     moduleName: text("module_name").notNull(),
@@ -66,12 +62,8 @@ export const claims = pgTable(
     offerId: text("offer_id")
       .notNull()
       .references(() => offers.id),
-    tenderId: text("tender_id")
-      .notNull()
-      .references(() => tenders.id),
-    vendorOrgId: text("vendor_org_id")
-      .notNull()
-      .references(() => organisations.id),
+    tenderId: tenderRef(),
+    vendorOrgId: vendorRef(),
     pointIndex: integer("point_index").notNull(),
     pointLabel: text("point_label").notNull(),
     /** The operating point's channel condition, in the tender's unit (p, e, or Eb/N0 dB). */
@@ -94,12 +86,8 @@ export const documents = pgTable(
   {
     id: id(),
     offerId: text("offer_id").references(() => offers.id),
-    tenderId: text("tender_id")
-      .notNull()
-      .references(() => tenders.id),
-    vendorOrgId: text("vendor_org_id")
-      .notNull()
-      .references(() => organisations.id),
+    tenderId: tenderRef(),
+    vendorOrgId: vendorRef(),
     kind: text("kind").$type<"datasheet" | "test-report">().notNull(),
     fileName: text("file_name").notNull(),
     contentType: text("content_type").notNull(),
