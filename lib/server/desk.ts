@@ -6,6 +6,8 @@ export interface DeskSection {
   title: string;
   empty: string;
   tenders: TenderWithInvites[];
+  /** The tab of the tender page where the work waits ("" for Requirements). */
+  tab: "" | "offer" | "review" | "comparison" | "sign-off";
 }
 
 /** What waits for the signed-in person, one section per role they hold. */
@@ -15,22 +17,22 @@ export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
   const inState = (...states: string[]) => visible.filter((t) => states.includes(t.state));
   const sections: DeskSection[] = [];
   if (roles.includes("buyer")) {
-    sections.push({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id) });
-    sections.push({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open") });
-    sections.push({ title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tenders: inState("commercial") });
+    sections.push({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id), tab: "" });
+    sections.push({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open"), tab: "" });
+    sections.push({ title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tenders: inState("commercial"), tab: "comparison" });
   }
   if (roles.includes("engineer")) {
-    sections.push({ title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tenders: inState("technical") });
+    sections.push({ title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tenders: inState("technical"), tab: "review" });
   }
   if (roles.includes("approver")) {
-    sections.push({ title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tenders: inState("approval") });
+    sections.push({ title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tenders: inState("approval"), tab: "sign-off" });
   }
   if (roles.includes("vendor")) {
-    sections.push({ title: "Tenders you are invited to", empty: "No open invitation.", tenders: inState("open") });
-    sections.push({ title: "Under evaluation or decided", empty: "Nothing under evaluation.", tenders: inState("technical", "commercial", "approval", "awarded") });
+    sections.push({ title: "Tenders you are invited to", empty: "No open invitation.", tenders: inState("open"), tab: "offer" });
+    sections.push({ title: "Under evaluation or decided", empty: "Nothing under evaluation.", tenders: inState("technical", "commercial", "approval", "awarded"), tab: "" });
   }
   if (roles.includes("admin")) {
-    sections.push({ title: "Tenders in progress", empty: "No tender in progress.", tenders: inState("open", "technical", "commercial", "approval") });
+    sections.push({ title: "Tenders in progress", empty: "No tender in progress.", tenders: inState("open", "technical", "commercial", "approval"), tab: "" });
   }
   return sections;
 }

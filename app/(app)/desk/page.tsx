@@ -27,7 +27,7 @@ export default async function DeskPage() {
               {section.tenders.map((t) => (
                 <li key={t.id} className="flex items-center gap-3 py-2 text-sm">
                   <span className="w-28 font-mono text-xs text-ink-soft">{t.reference}</span>
-                  <Link href={`/tenders/${t.id}`} className="flex-1">{t.title}</Link>
+                  <Link href={`/tenders/${t.id}${section.tab ? `/${section.tab}` : ""}`} className="flex-1">{t.title}</Link>
                   <StateTag state={t.state} />
                   <span className="text-xs text-ink-soft">
                     closes <DateTime value={t.closesAt} zone={t.closesZone} />
