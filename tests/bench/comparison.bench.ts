@@ -3,21 +3,13 @@
 // 20 requests at a time. Each request is timed on its own (its latency under that concurrency).
 // Needs an in-memory database and the server-only guard lifted:
 //   DB_MEMORY=1 npx tsx --conditions=react-server tests/bench/comparison.bench.ts
-import type { BenchCase } from "./types";
+import type { BenchRow } from "./types";
 
 const OFFERS = 50;
 const CLAIMS_PER_OFFER = 10;
 const CONCURRENCY = 20;
 const REQUESTS = 200;
 const TARGET_P95_MS = 200;
-
-export interface BenchResult {
-  name: string;
-  runs: number;
-  medianMs: number;
-  p95Ms: number;
-  target: string;
-}
 
 interface Setup {
   call: () => Promise<number>;
@@ -59,7 +51,7 @@ async function prepare(): Promise<Setup> {
 const quantile = (sorted: number[], q: number) => sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
 
 /** REQUESTS calls in waves of CONCURRENCY (median and p95 of the per-request latencies), then 50 calls one at a time. */
-export async function benchComparison(): Promise<BenchResult[]> {
+export async function benchComparison(): Promise<BenchRow[]> {
   setup ??= prepare();
   const { call } = await setup;
   for (let i = 0; i < CONCURRENCY; i++) await call(); // warm-up
@@ -90,20 +82,8 @@ export async function benchComparison(): Promise<BenchResult[]> {
   ];
 }
 
-/** For tests/bench/run.ts: one run is a wave of CONCURRENCY simultaneous requests (its time is the slowest one's). */
-export const benches: BenchCase[] = [
-  {
-    name: `comparison route: wave of ${CONCURRENCY} concurrent requests (${OFFERS} offers x ${CLAIMS_PER_OFFER} claims)`,
-    runs: REQUESTS / CONCURRENCY,
-    warmup: 1,
-    targetMs: TARGET_P95_MS,
-    run: async () => {
-      setup ??= prepare();
-      const { call } = await setup;
-      await Promise.all(Array.from({ length: CONCURRENCY }, call));
-    },
-  },
-];
+/** For tests/bench/run.ts: rows measured per request (latency under 20 in flight), not per wave. */
+export const report = benchComparison;
 
 if (import.meta.url === `file://${process.argv[1]}`) {
   benchComparison().then(

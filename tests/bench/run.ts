@@ -1,7 +1,8 @@
 // Benchmark runner: imports every bench module listed below, runs each case, prints a table of
-// medians. To add benches, export `benches: BenchCase[]` from a module and list it in MODULES.
-import type { BenchCase } from "./types";
+// medians. To add benches, export `benches: BenchCase[]` or `report()` from a module and list it in MODULES.
+import type { BenchCase, BenchRow } from "./types";
 
+// A module exports `benches` (each run timed here) or `report()` (it times itself and returns rows).
 const MODULES = ["./bounds.bench.ts", "./comparison.bench.ts"];
 
 function quantile(sorted: number[], q: number): number {
@@ -12,8 +13,11 @@ async function main() {
   const rows: string[][] = [["case", "runs", "median ms", "p95 ms", "target"]];
   let over = 0;
   for (const m of MODULES) {
-    const { benches } = (await import(m)) as { benches: BenchCase[] };
-    for (const b of benches) {
+    const mod = (await import(m)) as { benches?: BenchCase[]; report?: () => Promise<BenchRow[]> };
+    for (const r of (await mod.report?.()) ?? []) {
+      rows.push([r.name, String(r.runs), r.medianMs.toFixed(2), r.p95Ms.toFixed(2), r.target]);
+    }
+    for (const b of mod.benches ?? []) {
       for (let i = 0; i < (b.warmup ?? 2); i++) await b.run(i);
       const times: number[] = [];
       for (let i = 0; i < b.runs; i++) {

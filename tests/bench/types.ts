@@ -6,3 +6,12 @@ export interface BenchCase {
   targetMs?: number;
   run: (i: number) => unknown | Promise<unknown>;
 }
+
+/** A row a module measured itself (exported as `report()`), e.g. latencies under concurrency. */
+export interface BenchRow {
+  name: string;
+  runs: number;
+  medianMs: number;
+  p95Ms: number;
+  target: string;
+}
