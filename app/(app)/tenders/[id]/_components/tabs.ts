@@ -34,6 +34,8 @@ export function tenderTabs(viewer: Viewer, tender: TenderWithInvites): TenderTab
     }),
   );
   if (started && offers) tabs.push({ href: `${base}/offers`, label: "Offers" });
+  // A vendor's own form: its verdicts, versions and documents (the form itself refuses after closing).
+  if (started && !internal && roles.includes("vendor")) tabs.push({ href: `${base}/offer`, label: "Your offer" });
 
   // Engineers reach the bench before declaring (it asks for the declaration); buyers follow the marks.
   const marks = ability.can("read", asSubject("Mark", { claimId: "", tenderId, vendorOrgId: "" }));
