@@ -13,7 +13,7 @@ import { appUrl } from "./auth";
 import { appendLedger } from "./ledger";
 import { addressesOf, addressesWithRole, notify } from "./notify";
 import { authorize, ledgerActor, type Viewer } from "./session";
-import { getTender, tenderSubject, withInvites, type TenderWithInvites } from "./tenders";
+import { getTender, tenderSubject, tendersWhere, type TenderWithInvites } from "./tenders";
 import { ConflictError, InputError } from "./errors";
 
 // Serialises reference numbering so that two drafts never take the same sequence.
@@ -31,8 +31,7 @@ async function checkInvitations(db: Queryable, ids: string[]): Promise<string[]>
 }
 
 async function reload(db: Queryable, id: string): Promise<TenderWithInvites> {
-  const [row] = await db.select().from(tenders).where(eq(tenders.id, id));
-  return (await withInvites(db, [row]))[0];
+  return (await tendersWhere(db, eq(tenders.id, id)))[0];
 }
 
 type TenderAction = "update" | "open" | "cancel";

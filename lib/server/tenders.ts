@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, lte, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, lte, sql, type SQL } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { organisations, tenderInvitations, tenders } from "@/db/schema";
@@ -12,16 +12,16 @@ export type TenderWithInvites = TenderRow & { invitedOrgIds: string[] };
 /** A tender as it leaves the server: invitations only of organisations the viewer may read. */
 export type TenderView = TenderWithInvites & { invited: { id: string; name: string }[] };
 
-export async function withInvites(db: Queryable, rows: TenderRow[]): Promise<TenderWithInvites[]> {
-  if (rows.length === 0) return [];
-  const invites = await db
-    .select()
-    .from(tenderInvitations)
-    .where(inArray(tenderInvitations.tenderId, rows.map((r) => r.id)));
-  return rows.map((row) => ({
-    ...row,
-    invitedOrgIds: invites.filter((i) => i.tenderId === row.id).map((i) => i.organisationId),
-  }));
+const invitedOrgIds = sql<string[]>`coalesce((select array_agg(${tenderInvitations.organisationId} order by ${tenderInvitations.organisationId}) from ${tenderInvitations} where ${tenderInvitations.tenderId} = ${tenders.id}), '{}')`;
+
+/** Tenders with their invited organisations, in one query (every tender page and route starts here). */
+export async function tendersWhere(db: Queryable, where?: SQL): Promise<TenderWithInvites[]> {
+  const rows = await db
+    .select({ tender: tenders, invitedOrgIds })
+    .from(tenders)
+    .where(where)
+    .orderBy(desc(tenders.createdAt), asc(tenders.reference));
+  return rows.map((r) => ({ ...r.tender, invitedOrgIds: r.invitedOrgIds }));
 }
 
 export const tenderSubject = (t: TenderWithInvites) =>
@@ -58,7 +58,7 @@ export async function listTenders(viewer: Viewer): Promise<TenderWithInvites[]> 
   authorize(viewer, "read", "Tender");
   const db = await getDb();
   await closeDueTenders(db);
-  const rows = await withInvites(db, await db.select().from(tenders).orderBy(desc(tenders.createdAt), asc(tenders.reference)));
+  const rows = await tendersWhere(db);
   return rows.filter((t) => viewer.ability.can("read", tenderSubject(t)));
 }
 
@@ -66,16 +66,8 @@ export async function listTenders(viewer: Viewer): Promise<TenderWithInvites[]> 
 export async function getTender(viewer: Viewer, id: string): Promise<TenderWithInvites> {
   const db = await getDb();
   await closeDueTenders(db);
-  // One round trip: every tender page and route starts here.
-  const [row] = await db
-    .select({
-      tender: tenders,
-      invitedOrgIds: sql<string[]>`coalesce((select array_agg(${tenderInvitations.organisationId} order by ${tenderInvitations.organisationId}) from ${tenderInvitations} where ${tenderInvitations.tenderId} = ${tenders.id}), '{}')`,
-    })
-    .from(tenders)
-    .where(eq(tenders.id, id));
-  if (!row) throw new NotFoundError("No such tender.");
-  const tender: TenderWithInvites = { ...row.tender, invitedOrgIds: row.invitedOrgIds };
+  const [tender] = await tendersWhere(db, eq(tenders.id, id));
+  if (!tender) throw new NotFoundError("No such tender.");
   authorize(viewer, "read", tenderSubject(tender), "You are not invited to this tender.");
   return tender;
 }
