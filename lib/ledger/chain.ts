@@ -55,20 +55,25 @@ export type ChainReport =
   | { ok: true; entries: number }
   | { ok: false; entries: number; brokenAt: number; position: number; reason: string };
 
-/** Re-verifies rows in ledger order: each must point at its predecessor and hash to what it says. */
-export function verifyChain(rows: LedgerRow[]): ChainReport {
-  let prev = GENESIS_HASH;
+/** Why one entry breaks the chain, given the hash of the entry before it; null when it holds. */
+export function entryProblem(row: LedgerRow, prevHash: string): string | null {
+  if (row.prevHash !== prevHash) return "it does not point at the entry before it";
+  if (entryHash(prevHash, bodyOf(row)) !== row.hash) return "its content no longer matches its hash";
+  return null;
+}
+
+/**
+ * Re-verifies rows in ledger order: each must point at its predecessor and hash to what it says.
+ * With `only`, just the entries it selects are checked (each against its predecessor in the whole
+ * chain) and positions count among them, as a tender's own ledger does.
+ */
+export function verifyChain(rows: LedgerRow[], only: (row: LedgerRow) => boolean = () => true): ChainReport {
+  let position = 0;
   for (const [index, row] of rows.entries()) {
-    const fail = (reason: string): ChainReport => ({
-      ok: false,
-      entries: rows.length,
-      brokenAt: row.seq,
-      position: index + 1,
-      reason,
-    });
-    if (row.prevHash !== prev) return fail("it does not point at the entry before it");
-    if (entryHash(prev, bodyOf(row)) !== row.hash) return fail("its content no longer matches its hash");
-    prev = row.hash;
+    if (!only(row)) continue;
+    position += 1;
+    const reason = entryProblem(row, index === 0 ? GENESIS_HASH : rows[index - 1].hash);
+    if (reason) return { ok: false, entries: rows.filter(only).length, brokenAt: row.seq, position, reason };
   }
-  return { ok: true, entries: rows.length };
+  return { ok: true, entries: position };
 }
