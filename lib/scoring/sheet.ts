@@ -11,17 +11,8 @@ import {
   warrantyScore,
 } from "./criteria";
 import { CRITERIA, type Criterion, type OfferScore, type ScoreLine, type ScoreSheet, type ScoringClaim, type ScoringInput, type ScoringOffer, type ScoringWeights } from "./types";
+import { formatMoney } from "@/lib/format";
 
-/**
- * lib/format's formatMoney builds a new Intl.NumberFormat per call (about 0.15 ms each), too slow
- * for every line of every offer on every read; same options, one formatter per currency.
- */
-const moneyFormats = new Map<string, Intl.NumberFormat>();
-function money(value: number, currency: string): string {
-  let format = moneyFormats.get(currency);
-  if (!format) moneyFormats.set(currency, (format = new Intl.NumberFormat("en-GB", { style: "currency", currency, maximumFractionDigits: 2 })));
-  return format.format(value);
-}
 const units = new Intl.NumberFormat("en-GB");
 
 /** Totals closer than this are a tie and share a rank. */
@@ -101,7 +92,7 @@ export function buildScoreSheet(input: ScoringInput, weights: ScoringWeights = i
         ? line("price", null, sealedText, null)
         : needsConversion
           ? line("price", null, `Offered in ${env.currency}: needs conversion to ${tender.currency}`, null)
-          : line("price", total, `${money(total!, tender.currency)} (${units.format(tender.quantity)} × ${money(unit!, tender.currency)})`, priceScore(total!, lowest ?? total!)),
+          : line("price", total, `${formatMoney(total!, tender.currency)} (${units.format(tender.quantity)} × ${formatMoney(unit!, tender.currency)})`, priceScore(total!, lowest ?? total!)),
       !env
         ? line("leadTime", null, sealedText, null)
         : line("leadTime", env.leadTimeWeeks, `${env.leadTimeWeeks} weeks`, leadTimeScore(env.leadTimeWeeks, shortest ?? env.leadTimeWeeks)),
