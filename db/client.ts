@@ -21,6 +21,7 @@ export function dataDir(): string {
 }
 
 const migrationsFolder = () => path.join(process.cwd(), "drizzle");
+const MIGRATION_LOCK = 72_011_950;
 
 async function openPglite(): Promise<Handle> {
   const { PGlite } = await import("@electric-sql/pglite");
@@ -44,9 +45,16 @@ async function openServer(url: string): Promise<Handle> {
   const { drizzle } = await import("drizzle-orm/node-postgres");
   const { migrate } = await import("drizzle-orm/node-postgres/migrator");
   const pool = new Pool({ connectionString: url, max: Number(process.env.DB_POOL_SIZE ?? 10) });
-  const db = drizzle(pool, { schema });
-  await migrate(db, { migrationsFolder: migrationsFolder() });
-  return { db: db as unknown as Db, close: () => pool.end() };
+  // Several instances may start at once against one server: one migrates, the others wait.
+  const client = await pool.connect();
+  try {
+    await client.query("select pg_advisory_lock($1)", [MIGRATION_LOCK]);
+    await migrate(drizzle(client, { schema }), { migrationsFolder: migrationsFolder() });
+  } finally {
+    await client.query("select pg_advisory_unlock($1)", [MIGRATION_LOCK]).catch(() => undefined);
+    client.release();
+  }
+  return { db: drizzle(pool, { schema }) as unknown as Db, close: () => pool.end() };
 }
 
 async function open(): Promise<Handle> {
