@@ -1,7 +1,9 @@
 import "server-only";
-import fs from "node:fs";
+import { count } from "drizzle-orm";
 import path from "node:path";
 import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
+import { env } from "@/lib/env";
+import { holdDataFolder } from "@/lib/runtime/data-lock";
 import * as schema from "./schema/index";
 import { seedDemoData } from "./seed";
 
@@ -17,7 +19,7 @@ interface Handle {
 
 /** The data folder: PGlite's files and the local object store live below it. */
 export function dataDir(): string {
-  return path.resolve(process.env.DATA_DIR ?? ".data");
+  return env().DATA_DIR;
 }
 
 const migrationsFolder = () => path.join(process.cwd(), "drizzle");
@@ -28,11 +30,12 @@ async function openPglite(): Promise<Handle> {
   const { drizzle } = await import("drizzle-orm/pglite");
   const { migrate } = await import("drizzle-orm/pglite/migrator");
   let client;
-  if (process.env.DB_MEMORY === "1") {
+  if (env().DB_MEMORY) {
     client = new PGlite();
   } else {
-    // PGlite creates only the last folder of its path.
-    fs.mkdirSync(dataDir(), { recursive: true });
+    // One process per data folder (the starter may hold it for this process); PGlite creates
+    // only the last folder of its path.
+    holdDataFolder(dataDir(), "Ratecourt server", env().RATECOURT_DATA_LOCK_PID);
     client = new PGlite(path.join(dataDir(), "pglite"));
   }
   const db = drizzle(client, { schema });
@@ -44,7 +47,7 @@ async function openServer(url: string): Promise<Handle> {
   const { Pool } = await import("pg");
   const { drizzle } = await import("drizzle-orm/node-postgres");
   const { migrate } = await import("drizzle-orm/node-postgres/migrator");
-  const pool = new Pool({ connectionString: url, max: Number(process.env.DB_POOL_SIZE ?? 10) });
+  const pool = new Pool({ connectionString: url, max: env().DB_POOL_SIZE });
   // Several instances may start at once against one server: one migrates, the others wait.
   const client = await pool.connect();
   try {
@@ -58,10 +61,22 @@ async function openServer(url: string): Promise<Handle> {
 }
 
 async function open(): Promise<Handle> {
-  const url = process.env.DATABASE_URL;
+  const url = env().DATABASE_URL;
   const handle = url ? await openServer(url) : await openPglite();
-  if (process.env.SEED !== "none") await seedDemoData(handle.db);
+  if (env().seedDemo) await seedDemoData(handle.db);
+  else await explainFirstAdmin(handle.db);
   return handle;
+}
+
+/** A production start without the demo has no accounts at first: say how to make the first one. */
+async function explainFirstAdmin(db: Db) {
+  const [row] = await db.select({ n: count() }).from(schema.users);
+  if (row.n > 0) return;
+  console.log(
+    "Ratecourt has no accounts yet. Create the first administrator with\n" +
+      "  npm run admin:create -- --email you@example.org --name \"Your Name\" --organisation \"Your organisation\"\n" +
+      "(with the embedded database, stop the server first). It prints a one-time password to change at first sign-in.",
+  );
 }
 
 // One instance per process, kept across dev reloads: two PGlite instances on one folder lose data.

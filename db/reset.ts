@@ -1,13 +1,16 @@
 // Resets the demo: `npm run db:reset`. Stop the server first: one process per PGlite data folder.
 import fs from "node:fs";
 import path from "node:path";
-
-const dir = path.resolve(process.env.DATA_DIR ?? ".data");
+import { parseEnv } from "@/lib/env";
+import { holdDataFolder } from "@/lib/runtime/data-lock";
 
 async function main() {
-  if (process.env.DATABASE_URL) {
+  const { DATA_DIR: dir, DATABASE_URL } = parseEnv();
+  // Refuses while a server holds the folder, and keeps one from starting meanwhile.
+  holdDataFolder(dir, "npm run db:reset");
+  if (DATABASE_URL) {
     const { default: pg } = await import("pg");
-    const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
+    const client = new pg.Client({ connectionString: DATABASE_URL });
     await client.connect();
     await client.query("drop schema if exists public cascade; drop schema if exists drizzle cascade; create schema public;");
     await client.end();

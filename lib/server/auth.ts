@@ -6,23 +6,26 @@ import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { nextCookies } from "better-auth/next-js";
 import { dataDir, getDb, type Db } from "@/db/client";
+import { env } from "@/lib/env";
+import { ensurePrivateFolder } from "@/lib/runtime/data-lock";
 import { accounts, sessions, users, verifications } from "@/db/schema";
 import { eq } from "drizzle-orm";
 
 export function appUrl(): string {
-  return process.env.BETTER_AUTH_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
+  return env().appUrl;
 }
 
 /** A secret from the environment, or one made once and kept in the data folder. */
 function secret(): string {
-  if (process.env.BETTER_AUTH_SECRET) return process.env.BETTER_AUTH_SECRET;
-  if (process.env.DB_MEMORY === "1" || process.env.DATABASE_URL) {
+  const { BETTER_AUTH_SECRET, DB_MEMORY, DATABASE_URL } = env();
+  if (BETTER_AUTH_SECRET) return BETTER_AUTH_SECRET;
+  if (DB_MEMORY || DATABASE_URL) {
     const g = globalThis as { __ratecourtSecret?: string };
     return (g.__ratecourtSecret ??= randomBytes(32).toString("hex"));
   }
   const file = path.join(dataDir(), "auth-secret");
   if (!fs.existsSync(file)) {
-    fs.mkdirSync(dataDir(), { recursive: true });
+    ensurePrivateFolder(dataDir());
     fs.writeFileSync(file, randomBytes(32).toString("hex"), { mode: 0o600 });
   }
   return fs.readFileSync(file, "utf8").trim();

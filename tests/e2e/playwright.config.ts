@@ -45,7 +45,7 @@ export default defineConfig({
   webServer: {
     // Browser tests run against a production build on a fresh demo database of their own.
     // E2E_SKIP_BUILD=1 reuses the last build while iterating on the specs alone.
-    command: `rm -rf "${dataDir}" && ${process.env.E2E_SKIP_BUILD ? "" : "npx next build && "}npx next start -p ${port}`,
+    command: `rm -rf "${dataDir}" && ${process.env.E2E_SKIP_BUILD ? "" : "npx next build && "}npm start`,
     cwd: root,
     url: `${baseURL}/sign-in`,
     timeout: 600_000,
@@ -53,6 +53,8 @@ export default defineConfig({
     stdout: "pipe",
     stderr: "pipe",
     env: {
+      // A production build in demo mode: local fakes and the invented demo data.
+      DEMO: "1",
       DATA_DIR: dataDir,
       PORT: String(port),
       BETTER_AUTH_URL: baseURL,
