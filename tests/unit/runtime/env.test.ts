@@ -1,0 +1,66 @@
+import { describe, expect, it } from "vitest";
+import { EnvError, parseEnv, productionProblems, productionRefusal } from "@/lib/env";
+
+const production = { NODE_ENV: "production" } as const;
+const complete = {
+  ...production,
+  BETTER_AUTH_SECRET: "s".repeat(40),
+  BETTER_AUTH_URL: "https://ratecourt.example.org",
+  SMTP_URL: "smtps://mailer:pw@mail.example.org:465",
+  MAIL_FROM: "Ratecourt <ratecourt@example.org>",
+  S3_ENDPOINT: "https://objects.example.org",
+  S3_BUCKET: "ratecourt",
+  S3_ACCESS_KEY_ID: "key",
+  S3_SECRET_ACCESS_KEY: "secret",
+};
+
+describe("settings", () => {
+  it("development is a demo with demo data by default", () => {
+    const env = parseEnv({});
+    expect(env.demoMode).toBe(true);
+    expect(env.seedDemo).toBe(true);
+    expect(env.appUrl).toBe("http://localhost:3000");
+    expect(productionProblems(env)).toEqual([]);
+  });
+
+  it("a production start names every missing variable", () => {
+    const problems = productionProblems(parseEnv(production));
+    expect(problems.map((line) => line.split(":")[0])).toEqual([
+      "BETTER_AUTH_SECRET",
+      "BETTER_AUTH_URL",
+      "SMTP_URL",
+      "MAIL_FROM",
+      "S3_ENDPOINT",
+      "S3_BUCKET",
+      "S3_ACCESS_KEY_ID",
+      "S3_SECRET_ACCESS_KEY",
+    ]);
+    expect(productionRefusal(problems)).toContain("DEMO=1");
+  });
+
+  it("production loads no demo data unless asked for, and needs nothing more when complete", () => {
+    const env = parseEnv(complete);
+    expect(productionProblems(env)).toEqual([]);
+    expect(env.demoMode).toBe(false);
+    expect(env.seedDemo).toBe(false);
+    expect(parseEnv({ ...complete, SEED: "demo" }).seedDemo).toBe(true);
+  });
+
+  it("DEMO=1 makes a production build a demo: fakes allowed, demo data loaded", () => {
+    const env = parseEnv({ ...production, DEMO: "1" });
+    expect(env.demoMode).toBe(true);
+    expect(env.seedDemo).toBe(true);
+    expect(productionProblems(env)).toEqual([]);
+    expect(parseEnv({ ...production, DEMO: "1", SEED: "none" }).seedDemo).toBe(false);
+  });
+
+  it("refuses bad values with the variable's name, and treats empty as unset", () => {
+    expect(() => parseEnv({ PORT: "http" })).toThrow(EnvError);
+    expect(() => parseEnv({ PORT: "70000" })).toThrow(/PORT/);
+    expect(() => parseEnv({ SEED: "all" })).toThrow(/SEED/);
+    expect(() => parseEnv({ BETTER_AUTH_SECRET: "short" })).toThrow(/BETTER_AUTH_SECRET: must be at least 32/);
+    expect(() => parseEnv({ DATABASE_URL: "mysql://x" })).toThrow(/DATABASE_URL/);
+    expect(parseEnv({ SMTP_URL: "", PORT: "" }).SMTP_URL).toBeUndefined();
+    expect(parseEnv({ PORT: "4000" }).appUrl).toBe("http://localhost:4000");
+  });
+});
