@@ -11,7 +11,8 @@ const flag = optional(z.enum(["0", "1", "true", "false"])).transform((v) => v ==
 const envSchema = z.object({
   NODE_ENV: optional(z.enum(["development", "production", "test"])).transform((v) => v ?? "development"),
   PORT: optional(z.coerce.number().int().min(1).max(65_535)).transform((v) => v ?? 3000),
-  DATA_DIR: optional(z.string()).transform((v) => path.resolve(v ?? ".data")),
+  // Not a file the build should trace: the folder is chosen at run time.
+  DATA_DIR: optional(z.string()).transform((v) => path.resolve(/*turbopackIgnore: true*/ v ?? ".data")),
   DATABASE_URL: optional(z.string().regex(/^postgres(ql)?:\/\//, "must start with postgres://")),
   DB_MEMORY: flag,
   DB_POOL_SIZE: optional(z.coerce.number().int().min(1).max(500)).transform((v) => v ?? 10),

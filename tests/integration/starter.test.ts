@@ -12,7 +12,7 @@ function start(mode: "dev" | "start", env: Record<string, string>) {
   const clean = Object.fromEntries(
     Object.entries(process.env).filter(([name]) => !/^(NODE_ENV|DEMO|SEED|BETTER_AUTH_|SMTP_|MAIL_|S3_|DB_MEMORY|DATABASE_URL)/.test(name)),
   );
-  const result = spawnSync(tsx, ["lib/runtime/start.ts", mode], { cwd: root, env: { ...clean, ...env }, encoding: "utf8", timeout: 60_000 });
+  const result = spawnSync(tsx, ["lib/runtime/start.ts", mode], { cwd: root, env: { ...clean, ...env } as NodeJS.ProcessEnv, encoding: "utf8", timeout: 60_000 });
   return { code: result.status, output: `${result.stdout}${result.stderr}` };
 }
 
