@@ -13,7 +13,8 @@ const cache = new Map<string, Promise<Uint8Array>>();
 
 /** The bytes of one weight of the memo font, read once per process. */
 export function fontBytes(weight: keyof typeof FONT_FILES): Promise<Uint8Array> {
-  const file = path.join(process.cwd(), ...FONT_DIR, FONT_FILES[weight]);
+  // Read from the installed package at run time; nothing for the build to trace.
+  const file = path.join(/*turbopackIgnore: true*/ process.cwd(), ...FONT_DIR, FONT_FILES[weight]);
   let bytes = cache.get(file);
   if (!bytes) {
     bytes = readFile(file).then((buffer) => new Uint8Array(buffer));
