@@ -60,6 +60,8 @@ export type EvidenceRunInput = z.infer<typeof evidenceRunSchema>;
 
 export const evidenceImportSchema = z.object({
   csv: z.string().min(1, "The file is empty.").max(1_000_000, "At most 1 MB of CSV."),
+  /** Check every row and say what it would count for, writing nothing. */
+  preview: z.boolean().default(false),
 });
 
 export const signoffSchema = z.object({

@@ -39,15 +39,15 @@ describe("marks", () => {
 });
 
 describe("evidence", () => {
-  const ber = { metric: "ber" as const, value: 1e-6, ncgOutputBer: null };
+  const ber = { metric: "ber" as const, value: 1e-6, ncgOutputBer: null, channelValue: 1e-3, channelModel: "bsc" as const };
   it("counts bits for BER claims and frames for BLER claims", () => {
     expect(unitForMetric("ber")).toBe("bits");
     expect(unitForMetric("bler")).toBe("frames");
-    const refused = assessRun(ber, { unit: "frames", trials: 1000, errors: 0, confidence: 0.95 });
+    const refused = assessRun(ber, { channelValue: 1e-3, unit: "frames", trials: 1000, errors: 0, confidence: 0.95 });
     expect(refused).toMatchObject({ ok: false, field: "unit" });
   });
   it("0 errors in 3,000,000 bits at 95 % gives an upper bound near 1e-6 (rule of three) and verifies a 1e-6 BER", () => {
-    const run = assessRun(ber, { unit: "bits", trials: 3_000_000, errors: 0, confidence: 0.95 });
+    const run = assessRun(ber, { channelValue: 1e-3, unit: "bits", trials: 3_000_000, errors: 0, confidence: 0.95 });
     if (!run.ok) throw new Error(run.message);
     // -ln(0.05) / 3e6 = 9.986e-7 (Hanley and Lippman-Hand 1983).
     expect(run.result.upper).toBeCloseTo(-Math.log(0.05) / 3e6, 9);
@@ -63,8 +63,8 @@ describe("evidence", () => {
 
 describe("CSV rows", () => {
   const claims: CsvClaim[] = [
-    { id: "c1", vendorName: "Marram Telemetry", pointLabel: "Storm fade", pointIndex: 1, metric: "bler", value: 1e-4, ncgOutputBer: null, channelValue: 5e-3 },
-    { id: "c2", vendorName: "Oxbow Wireless", pointLabel: "Storm fade", pointIndex: 1, metric: "ber", value: 1e-6, ncgOutputBer: null, channelValue: 5e-3 },
+    { id: "c1", vendorName: "Marram Telemetry", pointLabel: "Storm fade", pointIndex: 1, metric: "bler", value: 1e-4, ncgOutputBer: null, channelValue: 5e-3, channelModel: "bsc" },
+    { id: "c2", vendorName: "Oxbow Wireless", pointLabel: "Storm fade", pointIndex: 1, metric: "ber", value: 1e-6, ncgOutputBer: null, channelValue: 5e-3, channelModel: "bsc" },
   ];
   it("resolves claims by id, by vendor and point, or falls back to the claim imported on", () => {
     const csv = "claim_id,vendor,point,unit,trials,errors\nc2,,,bits,3000000,0\n,Oxbow Wireless,2,bits,100,0\n,,,frames,40000,0\n";
