@@ -58,7 +58,7 @@ export function unitForMetric(metric: ClaimMetric): EvidenceUnit {
 }
 
 /** The error rate a run is tested against. */
-export function claimedRate(claim: ClaimForEvidence): number | null {
+export function claimedRate(claim: Pick<ClaimForEvidence, "metric" | "value" | "ncgOutputBer">): number | null {
   const rate = claim.metric === "ncg" ? claim.ncgOutputBer : claim.value;
   return rate !== null && rate > 0 && rate < 1 ? rate : null;
 }

@@ -6,7 +6,6 @@ import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { formatCondition, formatSci } from "@/lib/format";
 import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
 import { latestMarks } from "@/lib/review/marks";
-import { unitForMetric } from "@/lib/review/evidence";
 import { listEvidence } from "@/lib/server/evidence";
 import { orPage, pageViewer } from "@/lib/server/pages";
 import { getClaimDetail } from "@/lib/server/review";
@@ -51,7 +50,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
 
       <ClaimFindings result={claim.result} />
       <ClaimNumbers result={claim.result} />
-      <ClaimCharts result={claim.result} />
+      <ClaimCharts result={claim.result} runs={(runs ?? []).map((r) => ({ x: r.channelValue, upper: r.upper, label: `lab: ${EVIDENCE_LABELS[r.status].toLowerCase()}` }))} />
 
       <section className="panel" aria-label="Documents">
         <h2>Documents</h2>
@@ -82,7 +81,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
         {detail.may.mark ? <MarkForm claimId={claim.id} /> : null}
       </section>
 
-      {runs ? <EvidencePanel claimId={claim.id} runs={runs} unit={unitForMetric(claim.metric)} channelValue={claim.channelValue} claimedRate={claim.metric === "ncg" ? claim.ncgOutputBer : claim.value} mayRecord={detail.may.record} /> : null}
+      {runs ? <EvidencePanel claim={claim} model={tender.channelModel} runs={runs} mayRecord={detail.may.record} /> : null}
 
       <section className="panel space-y-3" aria-label="Clarification threads">
         <h2>Clarification threads</h2>
