@@ -147,6 +147,22 @@ describe("the tender's rule for confirmed impossible claims", () => {
     expect(sheet.offers[0].lines.find((l) => l.criterion === "price")!.normalised).toBe(100);
   });
 
+  it("disqualify: the cheaper disqualified offer shows no score at all, and every score stays within 0..100", () => {
+    const sheet = buildScoreSheet(input("disqualify"));
+    const cheap = sheet.offers.find((o) => o.offerId === "Cheap")!;
+    // Before: its price score was 100 x 10 / 5 = 200 on a 0..100 scale.
+    expect(cheap.lines.every((l) => l.normalised === null && l.contribution === null)).toBe(true);
+    expect(cheap.total).toBeNull();
+    expect(cheap.totalPrice).toBe(500);
+    for (const o of sheet.offers) for (const l of o.lines) if (l.normalised !== null) expect(l.normalised).toBeGreaterThanOrEqual(0), expect(l.normalised).toBeLessThanOrEqual(100);
+  });
+
+  it("flags an acceptance that overrides the engine's impossible verdict", () => {
+    const i = input("disqualify");
+    i.offers[0].claims = [claim({ verdict: "impossible", mark: "accepted" })];
+    expect(buildScoreSheet(i).offers.find((o) => o.offerId === "Cheap")!.flags.join(" ")).toMatch(/Accepted although the engine found it impossible \(P\)/);
+  });
+
   it("penalty: subtracts the points (floor 0) and keeps the offer ranked", () => {
     const plain = buildScoreSheet(input("penalty", 0));
     const cheapPlain = plain.offers.find((o) => o.offerId === "Cheap")!;

@@ -78,7 +78,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
             </tbody>
           </table>
         )}
-        {detail.may.mark ? <MarkForm claimId={claim.id} /> : null}
+        {detail.may.mark ? <MarkForm claimId={claim.id} verdict={claim.verdict} /> : null}
       </section>
 
       {runs ? <EvidencePanel claim={claim} model={tender.channelModel} runs={runs} mayRecord={detail.may.record} /> : null}
