@@ -6,7 +6,7 @@ import { claims, evidenceRuns, marks, offers, organisations, technicalSignoffs, 
 import { summariseRuns } from "@/lib/review/evidence";
 import { latestMarks } from "@/lib/review/marks";
 import { checkSignoff, signaturesNeeded, type SignoffClaim } from "@/lib/review/signoff";
-import { SAFETY_CAUTION } from "@/lib/tenders/safety";
+import { withSafetyCaution } from "@/lib/tenders/safety";
 import type { SignoffInput } from "@/lib/validation/review";
 import { ConflictError } from "./errors";
 import { appendLedger } from "./ledger";
@@ -109,11 +109,11 @@ export async function signTechnical(viewer: Viewer, tenderId: string, input: Sig
     return { row, complete };
   });
   if (outcome.complete) {
-    notify({
+    notify(withSafetyCaution(tender, [{
       to: await addressesWithRole(db, "buyer"),
       subject: `${tender.reference}: technical evaluation signed`,
-      text: `${viewer.name} signed the technical evaluation of ${tender.reference} ${tender.title}. The commercial envelopes can now be opened.\n\nStatement: ${input.statement}${tender.safetyRelevant ? `\n\n${SAFETY_CAUTION}` : ""}\n\n/tenders/${tenderId}`,
-    });
+      text: `${viewer.name} signed the technical evaluation of ${tender.reference} ${tender.title}. The commercial envelopes can now be opened.\n\nStatement: ${input.statement}\n\n/tenders/${tenderId}`,
+    }]));
   }
   return { ...outcome.row, complete: outcome.complete };
 }
