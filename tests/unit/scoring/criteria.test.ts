@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import {
   buildScoreSheet,
+  csvCell,
   evidenceScore,
   leadTimeScore,
   pointScore,
@@ -198,5 +199,16 @@ describe("the tender's rule for confirmed impossible claims", () => {
     expect(sheet.sealed).toBe(true);
     expect(sheet.offers.every((o) => o.total === null && o.rank === null && o.totalPrice === null)).toBe(true);
     expect(sheet.offers[0].lines.find((l) => l.criterion === "technical")!.normalised).not.toBeNull();
+  });
+});
+
+describe("the Comparison CSV", () => {
+  it("carries numbers as numbers: no currency sign, no thousands separator, no float noise; nothing for no value", () => {
+    expect(csvCell(164000)).toBe("164000");
+    expect(csvCell(81.23456789)).toBe("81.2346");
+    expect(csvCell(0.1 + 0.2)).toBe("0.3");
+    expect(csvCell(null)).toBe("");
+    expect(csvCell("Kestrelink Radio")).toBe("Kestrelink Radio");
+    expect(Number(csvCell(41.05 * 4000))).toBeCloseTo(164200, 6);
   });
 });
