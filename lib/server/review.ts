@@ -175,7 +175,7 @@ export async function getClaimDetail(viewer: Viewer, claimId: string) {
     claim,
     vendorName: row.vendorName,
     offer: offerFor(viewer, row.offer, tender),
-    tender: { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, channelModel: tender.channelModel },
+    tender: { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, channelModel: tender.channelModel, safetyRelevant: tender.safetyRelevant },
     documents: docs
       .filter((d) => viewer.ability.can("read", asSubject("Document", { id: d.id, offerId: d.offerId ?? "", tenderId: d.tenderId, vendorOrgId: d.vendorOrgId })))
       .map(({ storageKey: _key, ...d }) => d),

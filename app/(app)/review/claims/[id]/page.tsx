@@ -5,7 +5,7 @@ import { DateTime } from "@/app/_components/date-time";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { formatCondition, formatSci } from "@/lib/format";
 import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
-import { latestMarks } from "@/lib/review/marks";
+import { acceptedAgainstImpossible, latestMarks } from "@/lib/review/marks";
 import { listEvidence } from "@/lib/server/evidence";
 import { orPage, pageViewer } from "@/lib/server/pages";
 import { getClaimDetail } from "@/lib/server/review";
@@ -42,7 +42,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
           <div><dt className="label">Operating point</dt><dd>{claim.pointLabel}: {formatCondition(tender.channelModel, claim.channelValue)}</dd></div>
           <div><dt className="label">Claimed</dt><dd className="tabular-nums">{claimed}</dd></div>
           <div><dt className="label">Code</dt><dd className="tabular-nums">{offer.codeFamily}, {offer.decision} decision{offer.n ? `, n = ${offer.n}` : ""}{offer.k ? `, k = ${offer.k}` : ""}</dd></div>
-          <div><dt className="label">Current mark</dt><dd>{current ? MARK_LABELS[current.mark] : "Not marked"}</dd></div>
+          <div><dt className="label">Current mark</dt><dd data-testid="current-mark">{current ? MARK_LABELS[current.mark] : "Not marked"}{current && acceptedAgainstImpossible({ verdict: claim.verdict, mark: current.mark }) ? <span className="ml-1 font-medium text-verdict-impossible">(against the engine&apos;s verdict)</span> : null}</dd></div>
           {detail.evidenceStatus ? <div><dt className="label">Lab evidence</dt><dd>{EVIDENCE_LABELS[detail.evidenceStatus]}</dd></div> : null}
           <div><dt className="label">Engine</dt><dd className="text-ink-soft">{claim.engineVersion}, <DateTime value={claim.evaluatedAt} /></dd></div>
         </dl>
@@ -88,7 +88,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
         <ThreadList threads={threads} path={`/review/claims/${claim.id}`} empty="No question asked about this claim." />
         {detail.may.openThread ? <OpenThreadForm claimId={claim.id} /> : null}
       </section>
-      <Cautions />
+      <Cautions safety={tender.safetyRelevant} />
     </div>
   );
 }
