@@ -1,7 +1,7 @@
 import { and, eq } from "drizzle-orm";
 import type { Queryable } from "./client";
 import type { DemoContext } from "./seed";
-import { claims, declarations, offers } from "./schema";
+import { claims, declarations, offers, tenders } from "./schema";
 import { assessRun, unitForMetric } from "@/lib/review/evidence";
 import { insertEvidenceRun } from "@/lib/server/evidence";
 import { appendLedger } from "@/lib/server/ledger";
@@ -14,13 +14,15 @@ import { appendLedger } from "@/lib/server/ledger";
 export async function seedDemoReview(tx: Queryable, ctx: DemoContext): Promise<void> {
   const tenderId = ctx.tenderIds.gauges;
   const rows = await tx
-    .select({ claim: claims })
+    .select({ claim: claims, channelModel: tenders.channelModel })
     .from(claims)
     .innerJoin(offers, eq(offers.id, claims.offerId))
+    .innerJoin(tenders, eq(tenders.id, claims.tenderId))
     .where(and(eq(claims.tenderId, tenderId), eq(claims.vendorOrgId, ctx.orgIds.marram), eq(offers.status, "submitted")))
     .orderBy(claims.pointIndex);
-  const target = rows.find((r) => r.claim.verdict === "needs-evidence")?.claim ?? rows[0]?.claim;
-  if (!target) return;
+  const found = rows.find((r) => r.claim.verdict === "needs-evidence") ?? rows[0];
+  if (!found) return;
+  const target = found.claim;
 
   const director = { id: ctx.userIds.director, label: "Tomas Veld" };
   const statement = "I have no financial, family or past employment ties to any vendor invited to this tender.";
@@ -29,9 +31,9 @@ export async function seedDemoReview(tx: Queryable, ctx: DemoContext): Promise<v
 
   // 3 errors in 200,000 at the claim's own channel condition, counted in the claim's unit.
   const run = { channelValue: target.channelValue, unit: unitForMetric(target.metric), trials: 200_000, errors: 3, confidence: 0.95, note: "Bench run at the stated raw BER, shielded room." };
-  const assessed = assessRun(target, run);
+  const assessed = assessRun({ ...target, channelModel: found.channelModel }, run);
   if (!assessed.ok) return;
-  const stored = await insertEvidenceRun(tx, target, run, assessed.result, { userId: director.id, source: "manual" });
+  const stored = await insertEvidenceRun(tx, target, run, assessed, { userId: director.id, source: "manual" });
   await appendLedger(tx, {
     tenderId,
     actor: director,

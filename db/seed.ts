@@ -126,7 +126,7 @@ async function insertDemo(tx: Queryable) {
   const weirs = await insertTender(tx, buyer, vendors.map((v) => orgIds[v]), {
     reference: "RC-2027-003",
     title: "Weir telemetry links",
-    description: "Radios for flow gauges at weirs, hard-decision, longer frames allowed.",
+    description: "Radios for flow gauges at weirs that feed the flood warnings: hard-decision, longer frames allowed. Safety-relevant.",
     channelModel: "bsc",
     operatingPoints: [{ label: "Typical path", value: 2e-3 }],
     targetMetric: "bler",
@@ -137,6 +137,7 @@ async function insertDemo(tx: Queryable) {
     weights: { technical: 40, evidence: 10, price: 35, leadTime: 10, warranty: 5 },
     impossibleRule: "penalty",
     impossiblePenalty: 20,
+    safetyRelevant: true,
     openedAt: new Date(now - 5 * DAY),
     closesAt: new Date(now + 14 * DAY),
     closesZone: "Europe/London",

@@ -15,11 +15,18 @@ import {
 import type { BoundCharts } from "@/lib/explorer";
 import { formatSci } from "@/lib/format";
 
-const COLOURS = { converse: "#b42318", achievable: "#1f7a3a", normal: "#0f5e6b", capacity: "#4a5568", claim: "#1c2430" };
+const COLOURS = { converse: "#b42318", achievable: "#1f7a3a", normal: "#0f5e6b", capacity: "#4a5568", claim: "#1c2430", run: "#8a5a00" };
+
+/** A lab run on the channel chart: its channel and the upper bound of its error rate. */
+export interface ChartRun {
+  x: number;
+  upper: number;
+  label: string;
+}
 const pow10 = (v: number) => formatSci(10 ** v, 1);
 
 /** Least possible BLER, random-coding BLER and the normal approximation against the channel, with the claim as a point. */
-export function ChannelChart({ charts }: { charts: BoundCharts }) {
+export function ChannelChart({ charts, runs = [] }: { charts: BoundCharts; runs?: ChartRun[] }) {
   const { view, result, channel } = charts;
   const logX = view.model !== "biawgn";
   const xLabel = view.model === "bsc" ? "raw BER p" : view.model === "bec" ? "erasure probability e" : "Eb/N0 (dB)";
@@ -45,6 +52,9 @@ export function ChannelChart({ charts }: { charts: BoundCharts }) {
           <Line dataKey="normal" name="normal approximation" stroke={COLOURS.normal} dot={false} strokeWidth={1.5} strokeDasharray="2 3" isAnimationActive={false} />
           {thresholds.filter((t) => inRange(t.value)).map((t) => (
             <ReferenceLine key={t.key} x={t.value} stroke={t.colour} strokeDasharray="3 3" label={{ value: t.label, position: "top", fontSize: 11, fill: t.colour }} />
+          ))}
+          {runs.filter((r) => inRange(r.x) && r.upper > 0).map((r, i) => (
+            <ReferenceDot key={`run-${i}`} x={r.x} y={Math.log10(r.upper)} r={4} fill="#fff" stroke={COLOURS.run} strokeWidth={2} label={{ value: r.label, position: "left", fontSize: 11, fill: COLOURS.run }} />
           ))}
           {inRange(view.x) ? <ReferenceDot x={view.x} y={Math.log10(view.target)} r={6} fill={COLOURS.claim} stroke="#fff" label={{ value: "claim", position: "right", fontSize: 12 }} /> : null}
         </LineChart>

@@ -1,4 +1,4 @@
-import { doublePrecision, index, pgTable, primaryKey, text } from "drizzle-orm/pg-core";
+import { doublePrecision, index, pgTable, primaryKey, text, timestamp } from "drizzle-orm/pg-core";
 import { tenderRef, vendorRef } from "./refs";
 import { id, createdAt } from "./columns";
 import { users } from "./people";
@@ -40,6 +40,10 @@ export const threads = pgTable(
       .notNull()
       .references(() => users.id),
     createdAt: createdAt(),
+    /** An evaluator may close a question that needs no answer, saying why. */
+    closedAt: timestamp("closed_at", { withTimezone: true }),
+    closedBy: text("closed_by").references(() => users.id),
+    closeReason: text("close_reason"),
   },
   (t) => [index("threads_tender_idx").on(t.tenderId, t.vendorOrgId)],
 );
@@ -81,7 +85,10 @@ export const evidenceRuns = pgTable(
     confidence: doublePrecision("confidence").notNull(),
     lower: doublePrecision("lower").notNull(),
     upper: doublePrecision("upper").notNull(),
+    /** What the run counts for against the claim, after the channel rule (see lib/review/evidence). */
     status: text("status").$type<EvidenceStatus>().notNull(),
+    /** The run's channel against the claim's, and what follows from it, in words. */
+    finding: text("finding").notNull().default(""),
     errorFreeTrialsNeeded: doublePrecision("error_free_trials_needed"),
     source: text("source").$type<"manual" | "csv">().notNull().default("manual"),
     note: text("note").notNull().default(""),
@@ -93,13 +100,18 @@ export const evidenceRuns = pgTable(
   (t) => [index("evidence_claim_idx").on(t.claimId)],
 );
 
-export const technicalSignoffs = pgTable("technical_signoffs", {
-  tenderId: text("tender_id")
-    .primaryKey()
-    .references(() => tenders.id),
-  signedBy: text("signed_by")
-    .notNull()
-    .references(() => users.id),
-  statement: text("statement").notNull(),
-  signedAt: createdAt(),
-});
+/** One row per engineer who signed; a safety-relevant tender needs two before it moves on. */
+export const technicalSignoffs = pgTable(
+  "technical_signoffs",
+  {
+    tenderId: text("tender_id")
+      .notNull()
+      .references(() => tenders.id),
+    signedBy: text("signed_by")
+      .notNull()
+      .references(() => users.id),
+    statement: text("statement").notNull(),
+    signedAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.tenderId, t.signedBy] })],
+);

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { index, integer, jsonb, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { boolean, index, integer, jsonb, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import type { TenderState } from "@/policies/vocabulary";
 import { id, createdAt, updatedAt } from "./columns";
 import { organisations, users } from "./people";
@@ -39,6 +39,8 @@ export const tenders = pgTable(
     weights: jsonb("weights").$type<ScoringWeights>().notNull(),
     impossibleRule: text("impossible_rule").$type<"disqualify" | "penalty">().notNull().default("disqualify"),
     impossiblePenalty: numeric("impossible_penalty", { mode: "number" }).notNull().default(0),
+    /** The radios serve a safety use: every accepted claim needs a verifying lab run, and two engineers sign. */
+    safetyRelevant: boolean("safety_relevant").notNull().default(false),
     closesAt: timestamp("closes_at", { withTimezone: true }).notNull(),
     closesZone: text("closes_zone").notNull().default("UTC"),
     openedAt: timestamp("opened_at", { withTimezone: true }),

@@ -5,7 +5,10 @@ import type { MemoDocument } from "@/lib/pdf/memo";
 import type { ChannelModel, OperatingPoint } from "@/db/schema/tenders";
 import type { MarkKind } from "@/db/schema/evaluation";
 import type { ClaimMetric, Verdict } from "@/db/schema/offers";
-import { MARK_LABELS } from "@/lib/review/labels";
+import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
+import { acceptedAgainstImpossible } from "@/lib/review/marks";
+import { SAFETY_CAUTION } from "@/lib/tenders/safety";
+import type { EvidenceStatus } from "@/db/schema/evaluation";
 import { formatScore, standingsOf } from "./score-sheet";
 
 export interface MemoFacts {
@@ -35,8 +38,24 @@ export interface MemoFacts {
     n: number | null;
     k: number | null;
     rate: number | null;
-    claims: { pointLabel: string; channelValue: number; metric: ClaimMetric; value: number; ncgOutputBer: number | null; verdict: Verdict; mark: MarkKind | null }[];
+    claims: {
+      pointLabel: string;
+      channelValue: number;
+      metric: ClaimMetric;
+      value: number;
+      ncgOutputBer: number | null;
+      verdict: Verdict;
+      mark: MarkKind | null;
+      markComment: string;
+      /** Lab runs, each with what it counts for against the claim. */
+      runs: { channelValue: number; unit: "bits" | "frames"; trials: number; errors: number; confidence: number; upper: number; status: EvidenceStatus }[];
+    }[];
   }[];
+  safetyRelevant: boolean;
+  technical: {
+    signatures: { name: string; signedAt: Date; statement: string }[];
+    declarations: { name: string; createdAt: Date; statement: string; conflicts: number }[];
+  };
   scoreSheet: unknown;
   recommendation: { vendorName: string; moduleName: string; value: number; currency: string; quantity: number; justification: string; preparedBy: string; preparedAt: Date };
   approvals: { name: string; decidedAt: Date; comment: string }[];
@@ -54,6 +73,21 @@ export function codeWords(o: Pick<MemoFacts["offers"][number], "codeFamily" | "d
   const size = o.n !== null && o.k !== null ? ` (n = ${o.n} bits, k = ${o.k} bits)` : "";
   const rate = o.rate !== null ? `, code rate ${o.rate.toFixed(3)}` : o.n && o.k ? `, code rate ${(o.k / o.n).toFixed(3)}` : "";
   return `Part ${o.partNumber}; ${o.codeFamily}${size}${rate}, ${o.decision} decision`;
+}
+
+/** The review column: the mark, and an acceptance against the engine's impossible verdict flagged with its justification. */
+export function reviewWords(c: Pick<MemoFacts["offers"][number]["claims"][number], "verdict" | "mark" | "markComment">): string {
+  if (!c.mark) return "Not marked";
+  if (acceptedAgainstImpossible(c)) return `FLAG: accepted although the engine found it impossible. Justification: ${c.markComment}`;
+  return MARK_LABELS[c.mark];
+}
+
+/** The lab evidence behind a verdict, one phrase per run. */
+export function evidenceWords(model: ChannelModel, runs: MemoFacts["offers"][number]["claims"][number]["runs"]): string {
+  if (runs.length === 0) return "No lab run.";
+  return runs
+    .map((r) => `${EVIDENCE_LABELS[r.status]}: ${r.errors.toLocaleString("en-GB")} errors in ${r.trials.toLocaleString("en-GB")} ${r.unit} at ${formatCondition(model, r.channelValue)} (upper bound ${formatSci(r.upper)} at ${Math.round(r.confidence * 100)} %)`)
+    .join("; ");
 }
 
 export const when = (date: Date, zone: string) => `${formatInTimeZone(date, zone, "d MMM yyyy, HH:mm")} ${zone}`;
@@ -88,7 +122,8 @@ export function memoDocument(f: MemoFacts): MemoDocument {
         point: `${c.pointLabel} (${formatCondition(t.channelModel, c.channelValue)})`,
         claim: claimWords(c),
         verdict: c.verdict,
-        review: c.mark ? MARK_LABELS[c.mark] : "Not marked",
+        review: reviewWords(c),
+        evidence: evidenceWords(t.channelModel, c.runs),
       })),
     })),
     scores: standings.map((s) => ({
@@ -107,6 +142,15 @@ export function memoDocument(f: MemoFacts): MemoDocument {
     },
     approvals: f.approvals.map((a) => ({ name: a.name, at: when(a.decidedAt, f.zone), comment: a.comment })),
     approvalsNeeded: f.approvalsNeeded,
-    cautions: f.cautions,
+    technical: {
+      signatures: f.technical.signatures.map((x) => ({ name: x.name, at: when(x.signedAt, f.zone), statement: x.statement })),
+      declarations: f.technical.declarations.map((d) => ({
+        name: d.name,
+        at: when(d.createdAt, f.zone),
+        statement: d.statement,
+        conflicts: d.conflicts === 0 ? "no conflict" : `a conflict with ${d.conflicts} vendor${d.conflicts === 1 ? "" : "s"}, whose offers were hidden from them`,
+      })),
+    },
+    cautions: f.safetyRelevant ? `${SAFETY_CAUTION} ${f.cautions}` : f.cautions,
   };
 }

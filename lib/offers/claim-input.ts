@@ -6,6 +6,7 @@ export type ClaimMetric = "bler" | "ber" | "ncg";
 
 /** The code as an offer states it: n and k, or a rate, or an overhead (n may accompany either). */
 export interface OfferCode {
+  decision?: "hard" | "soft";
   n?: number | null;
   k?: number | null;
   rate?: number | null;

@@ -21,13 +21,19 @@ export function submissionRefusal(tender: Pick<TenderTerms, "state" | "closesAt"
 }
 
 interface SubmittedTerms {
+  code?: { decision?: "hard" | "soft" };
   claims: { pointIndex: number; metric: ClaimMetric }[];
   envelope: { currency: string };
 }
 
+/** A soft-decision code cannot be judged on a hard-decision (BSC) tender without judging another receiver than the one offered. */
+export const SOFT_ON_HARD =
+  "This tender's channel is hard decision (binary symmetric channel), and its verdicts judge codes on hard decisions: offer the module with a hard-decision decoder, or ask the buyer for a soft-decision (BI-AWGN) tender.";
+
 /**
  * What the generic schema cannot know: one claim per operating point of this tender, net coding
- * gain only where the trade states it (hard or soft decision links), prices in the tender's currency.
+ * gain only where the trade states it (hard or soft decision links), a decoder that matches a
+ * hard-decision tender, prices in the tender's currency.
  * Returns field errors keyed like the form's fields; empty when the submission fits.
  */
 export function termsErrors(tender: TenderTerms, input: SubmittedTerms): Record<string, string[]> {
@@ -42,6 +48,7 @@ export function termsErrors(tender: TenderTerms, input: SubmittedTerms): Record<
       add(`claims.${i}.metric`, "A net coding gain is not stated on an erasure channel: claim a BER or BLER.");
     }
   });
+  if (tender.channelModel === "bsc" && input.code?.decision === "soft") add("code.decision", SOFT_ON_HARD);
   if (input.envelope.currency !== tender.currency) {
     add("envelope.currency", `Prices are compared in the tender's currency: use ${tender.currency}.`);
   }

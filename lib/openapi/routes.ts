@@ -7,6 +7,7 @@ import { createOrganisationSchema, createUserSchema, updateUserSchema } from "@/
 import {
   claimQueueSchema,
   declarationSchema,
+  closeThreadSchema,
   evidenceImportSchema,
   evidenceRunSchema,
   markSchema,
@@ -79,6 +80,7 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/threads", tag: "Clarifications", summary: "Threads the viewer takes part in", query: threadsQuery },
   { method: "get", path: "/threads/{id}/messages", tag: "Clarifications", summary: "Messages of a thread" },
   { method: "post", path: "/threads/{id}/messages", tag: "Clarifications", summary: "Answer in a thread", body: messageSchema, created: true },
+  { method: "post", path: "/threads/{id}/close", tag: "Clarifications", summary: "Close a question with a reason (engineer)", body: closeThreadSchema },
   { method: "get", path: "/tenders/{id}/signoff", tag: "Review", summary: "How far the technical evaluation is" },
   { method: "post", path: "/tenders/{id}/signoff", tag: "Review", summary: "Sign the technical evaluation (engineer)", body: signoffSchema, created: true },
 

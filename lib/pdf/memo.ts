@@ -24,8 +24,12 @@ export interface MemoDocument {
     vendorName: string;
     module: string;
     code: string;
-    claims: { point: string; claim: string; verdict: Verdict; review: string }[];
+    claims: { point: string; claim: string; verdict: Verdict; review: string; evidence: string }[];
   }[];
+  technical: {
+    signatures: { name: string; at: string; statement: string }[];
+    declarations: { name: string; at: string; statement: string; conflicts: string }[];
+  };
   scores: { rank: string; vendorName: string; total: string; note: string }[];
   recommendation: { vendorName: string; module: string; value: string; quantity: string; justification: string; prepared: string };
   approvals: { name: string; at: string; comment: string }[];
@@ -72,9 +76,22 @@ function verdictTable(w: PageWriter, memo: MemoDocument): void {
         { text: claim.review, x: 385, width: w.contentWidth - 385 },
       ], 8.5);
       drawVerdictShape(w.page, claim.verdict, MARGIN + 284, top - 6.3);
+      w.text(`Lab evidence: ${claim.evidence}`, { soft: true, size: 8, indent: 12, gap: 2 });
     }
     w.y -= 6;
   }
+}
+
+function technicalEvaluation(w: PageWriter, memo: MemoDocument): void {
+  w.heading("Technical evaluation");
+  for (const s of memo.technical.signatures) {
+    w.text(`Signed by ${s.name}, ${s.at}`, { bold: true, gap: 0 });
+    w.text(s.statement, { soft: true, indent: 12 });
+  }
+  if (memo.technical.signatures.length === 0) w.text("Not signed.", { soft: true });
+  w.text("Conflict-of-interest declarations", { bold: true, gap: 0 });
+  for (const d of memo.technical.declarations) w.text(`${d.name}, ${d.at}: ${d.conflicts}. ${d.statement}`, { size: 8.5, indent: 12, gap: 1 });
+  if (memo.technical.declarations.length === 0) w.text("None.", { soft: true, indent: 12 });
 }
 
 function scoresAndDecision(w: PageWriter, memo: MemoDocument): void {
@@ -127,6 +144,7 @@ export async function renderMemo(memo: MemoDocument): Promise<Uint8Array> {
   for (const point of memo.tender.operatingPoints) w.text(point, { indent: 12, gap: 0 });
 
   verdictTable(w, memo);
+  technicalEvaluation(w, memo);
   scoresAndDecision(w, memo);
 
   w.heading("Cautions");

@@ -1,7 +1,9 @@
 import Papa from "papaparse";
-import { assessRun, type EvidenceUnit } from "./evidence";
+import { assessRun, unitForMetric, type EvidenceUnit } from "./evidence";
+import { parseCount, parseDecimal } from "@/lib/numbers";
 import type { EvidenceResult } from "@/lib/bounds";
 import type { ClaimMetric } from "@/db/schema/offers";
+import type { ChannelModel } from "@/db/schema/tenders";
 
 /** The columns a lab file may carry; claim_id, or vendor with point, names the claim (else the claim imported on). */
 export const CSV_COLUMNS = ["claim_id", "vendor", "point", "channel", "unit", "trials", "errors", "confidence", "note"] as const;
@@ -16,6 +18,7 @@ export interface CsvClaim {
   value: number;
   ncgOutputBer: number | null;
   channelValue: number;
+  channelModel: ChannelModel;
 }
 
 export interface ValidRow {
@@ -28,6 +31,8 @@ export interface ValidRow {
   confidence: number;
   note: string;
   result: EvidenceResult;
+  /** The run's channel against the claim's, and what it counts for. */
+  finding: string;
 }
 
 export interface RejectedRow {
@@ -58,12 +63,8 @@ export function parseEvidenceCsv(text: string): { rows: Record<string, string>[]
   return { rows: parsed.data, fields: parsed.meta.fields ?? [], errors };
 }
 
-/** A count written as 200000, 200,000, 2e5 or 2 000 000. */
-function count(raw: string | undefined): number | null {
-  if (raw === undefined || raw.trim() === "") return null;
-  const value = Number(raw.replace(/[,\s_]/g, ""));
-  return Number.isFinite(value) ? value : NaN;
-}
+const count = (raw: string | undefined) => (raw === undefined ? null : parseCount(raw));
+const decimal = (raw: string | undefined) => (raw === undefined ? null : parseDecimal(raw));
 
 function findClaim(raw: Record<string, string>, claims: readonly CsvClaim[], fallbackId: string | null): CsvClaim | string {
   const id = raw.claim_id?.trim();
@@ -111,20 +112,25 @@ export function validateEvidenceRows(
     const errorsCounted = count(raw.errors);
     if (trials === null || Number.isNaN(trials)) reasons.push("Trials must be a number.");
     if (errorsCounted === null || Number.isNaN(errorsCounted)) reasons.push("Errors must be a number.");
-    const confidence = count(raw.confidence) ?? 0.95;
-    const channelRaw = count(raw.channel);
+    const confidence = decimal(raw.confidence) ?? 0.95;
+    const channelRaw = decimal(raw.channel);
     if (Number.isNaN(channelRaw)) reasons.push("Channel must be a number (p, e, or Eb/N0 in dB).");
     if (Number.isNaN(confidence)) reasons.push("Confidence must be 0.9, 0.95 or 0.99.");
     if (reasons.length === 0 && typeof claim !== "string") {
-      const run = { unit: unit as EvidenceUnit, trials: trials!, errors: errorsCounted!, confidence };
+      const run = { channelValue: channelRaw ?? claim.channelValue, unit: unit as EvidenceUnit, trials: trials!, errors: errorsCounted!, confidence };
       const assessed = assessRun(claim, run);
       if (!assessed.ok) reasons.push(assessed.message);
       else {
-        valid.push({ line, claimId: claim.id, channelValue: channelRaw ?? claim.channelValue, note: (raw.note ?? "").trim().slice(0, 500), ...run, result: assessed.result });
+        valid.push({ line, claimId: claim.id, note: (raw.note ?? "").trim().slice(0, 500), ...run, result: assessed.result, finding: assessed.finding });
         return;
       }
     }
     rejected.push({ line, raw, reasons });
   });
   return { valid, rejected, fileErrors };
+}
+
+/** A file to start from: the header and one row for this claim at its own channel, to be filled with the lab's counts. */
+export function evidenceCsvTemplate(claim: Pick<CsvClaim, "id" | "metric" | "channelValue">): string {
+  return `${CSV_COLUMNS.join(",")}\n${claim.id},,,${claim.channelValue},${unitForMetric(claim.metric)},1000000,0,0.95,replace with the lab's counts\n`;
 }

@@ -2,5 +2,5 @@
 export * from "./types";
 export * from "./criteria";
 export { buildScoreSheet, confirmedImpossible } from "./sheet";
-export { comparisonRows, evidenceWord, formatMargin, type ComparisonRow, type PointCell } from "./rows";
+export { comparisonRows, csvCell, evidenceWord, formatMargin, type ComparisonRow, type PointCell } from "./rows";
 export { comparisonProblem, envelopeOpeningProblem, recommendationProblem } from "./rules";

@@ -74,3 +74,13 @@ export function comparisonRows(input: ScoringInput, sheet: ScoreSheet): Comparis
     };
   });
 }
+
+/**
+ * A Comparison cell as the CSV file carries it: numbers as plain numbers (a point for decimals, no
+ * currency sign or thousands separator, rounded to 4 decimals), an empty cell for no value, text as text.
+ */
+export function csvCell(value: unknown): string {
+  if (value === null || value === undefined) return "";
+  if (typeof value === "number") return Number.isFinite(value) ? String(Math.round(value * 1e4) / 1e4) : "";
+  return String(value);
+}

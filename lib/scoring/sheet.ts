@@ -1,6 +1,7 @@
 // The score sheet: every offer's criteria, weighted, penalised or disqualified, and ranked.
 // Pure, so the server computes it on every read and the what-if panel recomputes it in the browser.
 import {
+  clamp,
   evidenceScore,
   leadTimeScore,
   pointScore,
@@ -12,6 +13,7 @@ import {
 } from "./criteria";
 import { CRITERIA, type Criterion, type OfferScore, type ScoreLine, type ScoreSheet, type ScoringClaim, type ScoringInput, type ScoringOffer, type ScoringWeights } from "./types";
 import { formatMoney } from "@/lib/format";
+import { acceptedAgainstImpossible } from "@/lib/review/marks";
 
 const units = new Intl.NumberFormat("en-GB");
 
@@ -30,6 +32,13 @@ export function confirmedImpossible(claims: readonly ScoringClaim[], pointLabels
     else if (c.evidence === "contradicted") reasons.push(`Claim at ${at}: contradicted by a lab run.`);
   }
   return reasons;
+}
+
+/** One flag per claim an engineer accepted although the engine found it impossible. */
+export function acceptedImpossibleFlags(claims: readonly ScoringClaim[], pointLabels: readonly string[]): string[] {
+  return claims
+    .filter(acceptedAgainstImpossible)
+    .map((c) => `Accepted although the engine found it impossible (${pointLabels[c.pointIndex] ?? `point ${c.pointIndex + 1}`}): see the engineer's justification`);
 }
 
 const comparable = (o: ScoringOffer, currency: string) => o.envelope !== null && o.envelope.currency === currency;
@@ -71,14 +80,19 @@ export function buildScoreSheet(input: ScoringInput, weights: ScoringWeights = i
     const total = env && !needsConversion ? price(offer) : null;
     const unit = env ? unitPriceAt(env.unitPrice, env.priceBreaks, tender.quantity) : null;
 
-    const line = (criterion: Criterion, raw: number | null, rawText: string, normalised: number | null): ScoreLine => ({
-      criterion,
-      raw,
-      rawText,
-      normalised,
-      weight: weights[criterion],
-      contribution: normalised === null ? null : weightSum > 0 ? (Math.max(0, weights[criterion]) * normalised) / weightSum : 0,
-    });
+    const out = disqualified(offer);
+    // A disqualified offer is shown with what was measured, but scores nothing: it is out of the ranking.
+    const line = (criterion: Criterion, raw: number | null, rawText: string, score: number | null): ScoreLine => {
+      const normalised = out || score === null ? null : clamp(score, 0, 100);
+      return {
+        criterion,
+        raw,
+        rawText,
+        normalised,
+        weight: weights[criterion],
+        contribution: normalised === null ? null : weightSum > 0 ? (Math.max(0, weights[criterion]) * normalised) / weightSum : 0,
+      };
+    };
     const sealedText = "Envelope sealed";
     const lines: ScoreLine[] = [
       line("technical", technical, points.map((p) => `${p.label}: ${p.score.toFixed(1)}`).join("; ") || "No operating points", technical),
@@ -105,11 +119,11 @@ export function buildScoreSheet(input: ScoringInput, weights: ScoringWeights = i
     const reasons = confirmed.get(offer.id)!;
     const penalised = tender.impossibleRule === "penalty" && reasons.length > 0;
     const penalty = penalised && subtotal !== null ? Math.min(subtotal, tender.impossiblePenalty) : 0;
-    const out = disqualified(offer);
     const flags = [
       ...(out ? ["Disqualified: confirmed impossible claim"] : []),
       ...(penalised ? [`Penalty of ${tender.impossiblePenalty} points: confirmed impossible claim`] : []),
       ...(needsConversion ? [`Needs conversion: offered in ${env!.currency}, the tender is in ${tender.currency}`] : []),
+      ...acceptedImpossibleFlags(offer.claims, labels),
     ];
     return {
       offerId: offer.id,

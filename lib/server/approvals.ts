@@ -1,4 +1,5 @@
 import "server-only";
+import { withSafetyCaution } from "@/lib/tenders/safety";
 import { and, eq, inArray } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
@@ -144,7 +145,7 @@ export async function decideRecommendation(viewer: Viewer, tenderId: string, inp
       throw error;
     });
 
-  notify(await decisionNotices(db, viewer, tender, { ...rec, ...rule }, rule, outcome));
+  notify(withSafetyCaution(tender, await decisionNotices(db, viewer, tender, { ...rec, ...rule }, rule, outcome)));
   return outcome;
 }
 

@@ -22,7 +22,7 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
   const db = await getDb();
   const declared = viewer.actor.declarations.some((d) => d.tenderId === tenderId);
   const canDeclare = !declared && viewer.ability.can("declare", tenderSubject(tender)) && viewer.actor.roles.includes("approver");
-  const summary = { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, currency: tender.currency, zone: tender.closesZone, awardedAt: tender.awardedAt };
+  const summary = { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, currency: tender.currency, zone: tender.closesZone, awardedAt: tender.awardedAt, safetyRelevant: tender.safetyRelevant };
   const rec = await getCurrentRecommendation(db, tenderId);
   const readsRec = rec !== null && viewer.ability.can("read", asSubject("Recommendation", { tenderId, preparedBy: rec.preparedBy, value: rec.value }));
   if (!rec || !readsRec) return { tender: summary, declared, canDeclare, recommendation: null };
@@ -34,7 +34,7 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
     .innerJoin(organisations, eq(organisations.id, offers.vendorOrgId))
     .innerJoin(users, eq(users.id, rec.preparedBy))
     .where(eq(offers.id, rec.offerId));
-  const offerList = (await currentOffersWithClaims(db, tenderId)).filter((o) =>
+  const offerList = (await currentOffersWithClaims(db, tender)).filter((o) =>
     viewer.ability.can("read", asSubject("Offer", { id: o.id, tenderId, vendorOrgId: o.vendorOrgId, tenderState: tender.state, envelopeOpened: tender.envelopesOpenedAt !== null })),
   );
   const readsMark = (c: { id: string; vendorOrgId: string }) => viewer.ability.can("read", asSubject("Mark", { claimId: c.id, tenderId, vendorOrgId: c.vendorOrgId }));
@@ -78,7 +78,10 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
       moduleName: o.moduleName,
       claims: o.claims
         .filter((c) => viewer.ability.can("read", asSubject("Claim", { id: c.id, offerId: o.id, tenderId, vendorOrgId: c.vendorOrgId })))
-        .map((c) => ({ id: c.id, point: c.pointLabel, metric: c.metric, value: c.value, ncgOutputBer: c.ncgOutputBer, verdict: c.verdict, mark: readsMark(c) ? c.mark : null })),
+        .map((c) => ({
+          id: c.id, point: c.pointLabel, metric: c.metric, value: c.value, ncgOutputBer: c.ncgOutputBer, verdict: c.verdict,
+          ...(readsMark(c) ? { mark: c.mark, markComment: c.markComment } : { mark: null, markComment: "" }),
+        })),
     })),
     decisions,
     routedTo: rule ? (await eligibleApprovers(db, tender, rec, rule)).map((u) => u.name) : [],

@@ -4,7 +4,7 @@ import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, evidenceRuns, ledgerEntries, marks, offers, organisations, tenders } from "@/db/schema";
 import type { MarkKind } from "@/db/schema/evaluation";
-import { summariseEvidence } from "@/lib/review/evidence";
+import { summariseRuns } from "@/lib/review/evidence";
 import {
   buildScoreSheet,
   comparisonProblem,
@@ -62,8 +62,9 @@ function perVendor(check: (vendorOrgId: string) => boolean) {
   };
 }
 
-/** The claims of a tender's current offers with what scoring needs, their current marks and lab-run summaries. */
-async function loadClaims(db: Queryable, viewer: Viewer, tenderId: string, offerIds: ReadonlySet<string>) {
+/** The claims of a tender's current offers with what scoring needs, their current marks and lab-run summaries (only runs that count). */
+async function loadClaims(db: Queryable, viewer: Viewer, tender: Pick<TenderRow, "id" | "channelModel">, offerIds: ReadonlySet<string>) {
+  const tenderId = tender.id;
   if (offerIds.size === 0) return [];
   const { ability } = viewer;
   const on = (vendorOrgId: string) => ({ claimId: "", tenderId, vendorOrgId });
@@ -81,6 +82,7 @@ async function loadClaims(db: Queryable, viewer: Viewer, tenderId: string, offer
         value: claims.value,
         ncgOutputBer: claims.ncgOutputBer,
         verdict: claims.verdict,
+        channelValue: claims.channelValue,
         evaluatedAt: evaluatedAtText,
       })
       .from(claims)
@@ -94,13 +96,13 @@ async function loadClaims(db: Queryable, viewer: Viewer, tenderId: string, offer
           .where(eq(marks.tenderId, tenderId))
           .orderBy(marks.claimId, desc(marks.markedAt), desc(marks.id))
       : [],
-    ability.can("read", "EvidenceRun") ? db.select({ claimId: evidenceRuns.claimId, status: evidenceRuns.status }).from(evidenceRuns).where(eq(evidenceRuns.tenderId, tenderId)) : [],
+    ability.can("read", "EvidenceRun") ? db.select({ claimId: evidenceRuns.claimId, channelValue: evidenceRuns.channelValue, status: evidenceRuns.status }).from(evidenceRuns).where(eq(evidenceRuns.tenderId, tenderId)) : [],
   ]);
   const visible = rows.filter((c) => offerIds.has(c.offerId) && readsClaim(c.vendorOrgId));
   const margins = await marginsOf(db, visible);
   const latest = new Map(markRows.map((m) => [m.claimId, m]));
-  const runs = new Map<string, (typeof runRows)[number]["status"][]>();
-  for (const r of runRows) runs.set(r.claimId, [...(runs.get(r.claimId) ?? []), r.status]);
+  const runs = new Map<string, (typeof runRows)[number][]>();
+  for (const r of runRows) runs.set(r.claimId, [...(runs.get(r.claimId) ?? []), r]);
   return visible.map((c) => {
     const mark = readsMark(c.vendorOrgId) ? latest.get(c.id) : undefined;
     return {
@@ -114,7 +116,7 @@ async function loadClaims(db: Queryable, viewer: Viewer, tenderId: string, offer
         verdict: c.verdict,
         ...margins.get(c.id)!,
         mark: mark ? (mark.mark as MarkKind) : null,
-        evidence: readsRuns(c.vendorOrgId) ? summariseEvidence(runs.get(c.id) ?? []) : ("none" as const),
+        evidence: readsRuns(c.vendorOrgId) ? summariseRuns(tender.channelModel, c.channelValue, runs.get(c.id) ?? []) : ("none" as const),
       },
     };
   });
@@ -136,7 +138,7 @@ export async function loadScoringInput(db: Queryable, viewer: Viewer, tender: Te
   const readable = rows.filter(({ offer }) =>
     viewer.ability.can("read", asSubject("Offer", { id: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId, tenderState: tender.state, envelopeOpened })),
   );
-  const claimRows = await loadClaims(db, viewer, tender.id, new Set(readable.map((r) => r.offer.id)));
+  const claimRows = await loadClaims(db, viewer, tender, new Set(readable.map((r) => r.offer.id)));
   const scoringOffers = readable.map(({ offer, vendorName }): ScoringOffer => {
     const visible = offerFor(viewer, offer, tender);
     const envelope: Envelope | null =

@@ -5,7 +5,7 @@ import { getDb, type Queryable } from "@/db/client";
 import { claims, evidenceRuns, offers } from "@/db/schema";
 import type { EvidenceResult } from "@/lib/bounds";
 import { assessRun, type EvidenceUnit } from "@/lib/review/evidence";
-import { validateEvidenceRows, type CsvClaim, type CsvReport } from "@/lib/review/csv";
+import { validateEvidenceRows, type CsvClaim, type CsvReport, type ValidRow } from "@/lib/review/csv";
 import type { EvidenceRunInput } from "@/lib/validation/review";
 import { ConflictError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
@@ -30,9 +30,10 @@ export async function insertEvidenceRun(
   tx: Queryable,
   claim: Pick<ClaimRow, "id" | "tenderId" | "vendorOrgId">,
   run: NewRun,
-  result: EvidenceResult,
+  assessed: { result: EvidenceResult; finding: string },
   by: { userId: string; source: "manual" | "csv" },
 ) {
+  const { result, finding } = assessed;
   const [row] = await tx
     .insert(evidenceRuns)
     .values({
@@ -47,6 +48,7 @@ export async function insertEvidenceRun(
       lower: result.lower,
       upper: result.upper,
       status: result.status,
+      finding,
       errorFreeTrialsNeeded: result.status === "contradicted" ? null : result.errorFreeTrialsNeeded,
       source: by.source,
       note: run.note ?? "",
@@ -73,47 +75,62 @@ export async function listEvidence(viewer: Viewer, claimId: string) {
 
 /** One run typed in by an engineer, with its Clopper-Pearson status against the claim. */
 export async function recordEvidence(viewer: Viewer, claimId: string, input: EvidenceRunInput) {
-  const { claim } = await claimForRecording(viewer, claimId);
-  const assessed = assessRun(claim, input);
+  const { claim, tender } = await claimForRecording(viewer, claimId);
+  const assessed = assessRun({ ...claim, channelModel: tender.channelModel }, input);
   if (!assessed.ok) throw new InputError(assessed.message, { [assessed.field]: [assessed.message] });
   const db = await getDb();
   return db.transaction(async (tx) => {
-    const run = await insertEvidenceRun(tx, claim, input, assessed.result, { userId: viewer.actor.id, source: "manual" });
+    const run = await insertEvidenceRun(tx, claim, input, assessed, { userId: viewer.actor.id, source: "manual" });
     await appendLedger(tx, {
       tenderId: claim.tenderId,
       actor: ledgerActor(viewer),
       action: "evidence.recorded",
       subjectType: "EvidenceRun",
       subjectId: run.id,
-      data: { claimId, unit: input.unit, trials: input.trials, errors: input.errors, confidence: input.confidence, status: run.status },
+      data: { claimId, channel: input.channelValue, unit: input.unit, trials: input.trials, errors: input.errors, confidence: input.confidence, status: run.status, finding: run.finding },
     });
     return run;
   });
 }
 
+/** One row that would be stored (preview) or was stored, with what it counts for against its claim. */
+export interface ImportedRow {
+  line: number;
+  id: string | null;
+  claimId: string;
+  status: string;
+  upper: number;
+  finding: string;
+}
+
 export interface ImportOutcome extends Omit<CsvReport, "valid"> {
-  stored: { line: number; id: string; claimId: string; status: string; upper: number }[];
+  /** True when nothing was written: the rows are what an import would store. */
+  preview: boolean;
+  stored: ImportedRow[];
 }
 
 /**
  * Many runs from a lab's CSV file. Rows name their claim (claim_id, or vendor and point) or fall
- * to the claim imported on; valid rows are stored together in one transaction, the rest reported.
+ * to the claim imported on. A preview checks every row and writes nothing; an import stores the
+ * valid rows together in one transaction and reports the rest.
  */
-export async function importEvidence(viewer: Viewer, claimId: string, csv: string): Promise<ImportOutcome> {
+export async function importEvidence(viewer: Viewer, claimId: string, csv: string, options: { preview?: boolean } = {}): Promise<ImportOutcome> {
   const { claim } = await claimForRecording(viewer, claimId);
   const db = await getDb();
   const rows = await claimJoin(db).where(and(eq(claims.tenderId, claim.tenderId), eq(offers.status, "submitted")));
   const recordable: CsvClaim[] = rows
     .filter((r) => viewer.ability.can("record", runSubject(r.claim)))
-    .map(({ claim: c, vendorName }) => ({ ...c, vendorName }));
+    .map(({ claim: c, vendorName, tender }) => ({ ...c, vendorName, channelModel: tender.channelModel }));
   const report = validateEvidenceRows(csv, recordable, claimId);
   if (report.fileErrors.length > 0) throw new InputError(report.fileErrors.join(" "), { csv: report.fileErrors });
+  const outcome = (row: ValidRow, id: string | null): ImportedRow => ({ line: row.line, id, claimId: row.claimId, status: row.result.status, upper: row.result.upper, finding: row.finding });
+  if (options.preview) return { preview: true, stored: report.valid.map((row) => outcome(row, null)), rejected: report.rejected, fileErrors: [] };
   const byId = new Map(rows.map((r) => [r.claim.id, r.claim]));
   const stored = report.valid.length === 0 ? [] : await db.transaction(async (tx) => {
-    const out: ImportOutcome["stored"] = [];
+    const out: ImportedRow[] = [];
     for (const row of report.valid) {
-      const run = await insertEvidenceRun(tx, byId.get(row.claimId)!, row, row.result, { userId: viewer.actor.id, source: "csv" });
-      out.push({ line: row.line, id: run.id, claimId: row.claimId, status: run.status, upper: run.upper });
+      const run = await insertEvidenceRun(tx, byId.get(row.claimId)!, row, row, { userId: viewer.actor.id, source: "csv" });
+      out.push(outcome(row, run.id));
     }
     await appendLedger(tx, {
       tenderId: claim.tenderId,
@@ -125,5 +142,5 @@ export async function importEvidence(viewer: Viewer, claimId: string, csv: strin
     });
     return out;
   });
-  return { stored, rejected: report.rejected, fileErrors: [] };
+  return { preview: false, stored, rejected: report.rejected, fileErrors: [] };
 }

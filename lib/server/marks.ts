@@ -4,7 +4,8 @@ import { asSubject } from "@/policies";
 import { getDb } from "@/db/client";
 import { marks } from "@/db/schema";
 import type { MarkInput } from "@/lib/validation/review";
-import { ConflictError } from "./errors";
+import { markProblem } from "@/lib/review/marks";
+import { ConflictError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
 import { notify } from "./notify";
 import { claimSubject, loadClaim } from "./review";
@@ -20,13 +21,16 @@ export async function listMarks(viewer: Viewer, claimId: string) {
 }
 
 /**
- * An engineer marks a claim during technical evaluation. A clarification request opens a thread
- * with the vendor in the same transaction, its first message being the comment.
+ * An engineer marks a claim during technical evaluation. Accepting a claim the engine proved
+ * impossible needs a written justification. A clarification request opens a thread with the
+ * vendor in the same transaction, its first message being the comment.
  */
 export async function createMark(viewer: Viewer, claimId: string, input: MarkInput) {
   const { claim, tender, vendorName } = await loadClaim(viewer, claimId);
   authorize(viewer, "mark", claimSubject(claim), "Only an engineer who has declared on this tender marks its claims.");
   if (tender.state !== "technical") throw new ConflictError("Claims are marked only while the tender is in technical evaluation.");
+  const problem = markProblem(input.mark, input.comment, claim.verdict);
+  if (problem) throw new InputError(problem, { comment: [problem] });
   const clarify = input.mark === "clarification-requested";
   if (clarify) authorize(viewer, "create", asSubject("Thread", { id: "", tenderId: claim.tenderId, vendorOrgId: claim.vendorOrgId }));
   const db = await getDb();

@@ -2,12 +2,13 @@ import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject, defineAbilityFor } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { approvals, claims, marks, memos, offers, organisations, tenders, users } from "@/db/schema";
+import { approvals, claims, declarations, evidenceRuns, marks, memos, offers, organisations, technicalSignoffs, tenders, users } from "@/db/schema";
 import { CAUTIONS } from "@/app/_components/cautions";
 import { memoDocument } from "@/lib/approvals/memo-content";
 import { memoIdentifier } from "@/lib/approvals/routing";
 import { renderMemo } from "@/lib/pdf/memo";
 import { latestMarks } from "@/lib/review/marks";
+import { countedStatus } from "@/lib/review/evidence";
 import { getObject, isObjectNotFound, putObject, sha256Hex } from "@/lib/storage";
 import { ConflictError, ForbiddenError, NotFoundError } from "./errors";
 import { getCurrentRecommendation, type RecommendationRow } from "./recommendations";
@@ -27,8 +28,12 @@ export async function approvalsGiven(db: Queryable, recommendationId: string) {
     .orderBy(asc(approvals.decidedAt), asc(users.name));
 }
 
-/** The tender's current offers with every claim and its latest mark: the record, not one viewer's view. */
-export async function currentOffersWithClaims(db: Queryable, tenderId: string) {
+/**
+ * The tender's current offers with every claim, its latest mark (with the comment) and its lab
+ * runs, each counted by the channel rule: the record, not one viewer's view.
+ */
+export async function currentOffersWithClaims(db: Queryable, tender: Pick<TenderRow, "id" | "channelModel">) {
+  const tenderId = tender.id;
   const rows = await db
     .select({ offer: offers, vendorName: organisations.name })
     .from(offers)
@@ -39,11 +44,35 @@ export async function currentOffersWithClaims(db: Queryable, tenderId: string) {
   const claimRows = ids.length ? await db.select().from(claims).where(inArray(claims.offerId, ids)).orderBy(asc(claims.pointIndex)) : [];
   const claimIds = claimRows.map((c) => c.id);
   const latest = latestMarks(claimIds.length ? await db.select().from(marks).where(inArray(marks.claimId, claimIds)) : []);
+  const runRows = claimIds.length ? await db.select().from(evidenceRuns).where(inArray(evidenceRuns.claimId, claimIds)).orderBy(asc(evidenceRuns.recordedAt)) : [];
+  const runsOf = (c: (typeof claimRows)[number]) =>
+    runRows
+      .filter((r) => r.claimId === c.id)
+      .map((r) => ({ ...r, status: countedStatus(tender.channelModel, r.channelValue, c.channelValue, r.status).status }));
   return rows.map(({ offer, vendorName }) => ({
     ...offer,
     vendorName,
-    claims: claimRows.filter((c) => c.offerId === offer.id).map((c) => ({ ...c, mark: latest.get(c.id)?.mark ?? null })),
+    claims: claimRows
+      .filter((c) => c.offerId === offer.id)
+      .map((c) => ({ ...c, mark: latest.get(c.id)?.mark ?? null, markComment: latest.get(c.id)?.comment ?? "", runs: runsOf(c) })),
   }));
+}
+
+/** Who signed the technical evaluation, and who declared on the tender: what the memo records of the review. */
+async function technicalRecord(db: Queryable, tenderId: string) {
+  const signatures = await db
+    .select({ name: users.name, signedAt: technicalSignoffs.signedAt, statement: technicalSignoffs.statement })
+    .from(technicalSignoffs)
+    .innerJoin(users, eq(users.id, technicalSignoffs.signedBy))
+    .where(eq(technicalSignoffs.tenderId, tenderId))
+    .orderBy(asc(technicalSignoffs.signedAt));
+  const declared = await db
+    .select({ name: users.name, createdAt: declarations.createdAt, statement: declarations.statement, conflictedOrgIds: declarations.conflictedOrgIds })
+    .from(declarations)
+    .innerJoin(users, eq(users.id, declarations.userId))
+    .where(eq(declarations.tenderId, tenderId))
+    .orderBy(asc(declarations.createdAt));
+  return { signatures, declarations: declared.map(({ conflictedOrgIds, ...d }) => ({ ...d, conflicts: conflictedOrgIds.length })) };
 }
 
 interface RenderOptions {
@@ -61,7 +90,7 @@ export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: Recom
     .innerJoin(organisations, eq(organisations.id, users.organisationId))
     .where(eq(users.id, tender.createdBy));
   const [preparer] = await db.select({ name: users.name }).from(users).where(eq(users.id, rec.preparedBy));
-  const offerList = await currentOffersWithClaims(db, tender.id);
+  const offerList = await currentOffersWithClaims(db, tender);
   const [chosen] = await db
     .select({ moduleName: offers.moduleName, vendorName: organisations.name })
     .from(offers)
@@ -79,6 +108,8 @@ export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: Recom
     recommendation: { ...rec, vendorName: chosen?.vendorName ?? "", moduleName: chosen?.moduleName ?? "", preparedBy: preparer?.name ?? "", preparedAt: rec.preparedAt },
     approvals: options.approvals,
     approvalsNeeded: rec.approvalsNeeded ?? options.approvals.length,
+    safetyRelevant: tender.safetyRelevant,
+    technical: await technicalRecord(db, tender.id),
     cautions: CAUTIONS,
   });
   return renderMemo(document);

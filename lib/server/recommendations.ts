@@ -1,4 +1,5 @@
 import "server-only";
+import { withSafetyCaution } from "@/lib/tenders/safety";
 import { and, desc, eq, inArray } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
@@ -118,10 +119,10 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
     return rec;
   });
   const notice = awaitingApprovalNotice(tender, 0, band?.approvalsNeeded ?? 1, formatMoney(input.value, tender.currency));
-  notify({
+  notify(withSafetyCaution(tender, [{
     to: await addressesWithRole(db, "approver"),
     subject: notice.subject,
     text: `${viewer.name} recommends awarding ${tender.reference} to ${scored.vendorName}: ${input.quantity.toLocaleString("en-GB")} units.\n\nJustification: ${input.justification}\n\n${notice.text}`,
-  });
+  }]));
   return row;
 }

@@ -3,8 +3,9 @@ import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject, pickPermitted, tenderAccess, type ClaimRecord } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, documents, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
+import type { ChannelModel } from "@/db/schema/tenders";
 import { latestMarks } from "@/lib/review/marks";
-import { summariseEvidence } from "@/lib/review/evidence";
+import { summariseRuns } from "@/lib/review/evidence";
 import type { EvidenceSummary } from "@/lib/review/labels";
 import type { ClaimQueueFilters } from "@/lib/validation/review";
 import { ForbiddenError, NotFoundError } from "./errors";
@@ -54,16 +55,16 @@ export function offerFor(viewer: Viewer, offer: typeof offers.$inferSelect, tend
   return visible;
 }
 
-/** Current mark and evidence status per claim; the evidence only where the viewer reads lab runs. */
-async function reviewState(db: Queryable, viewer: Viewer, claimRows: ClaimRecord[]) {
-  const ids = claimRows.map((c) => c.id);
+/** Current mark and evidence status per claim (only runs that count); the evidence only where the viewer reads lab runs. */
+async function reviewState(db: Queryable, viewer: Viewer, claimRows: { claim: ClaimRecord & { channelValue: number }; tender: { channelModel: ChannelModel } }[]) {
+  const ids = claimRows.map((r) => r.claim.id);
   const markRows = ids.length ? await db.select().from(marks).where(inArray(marks.claimId, ids)) : [];
   const runRows = ids.length ? await db.select().from(evidenceRuns).where(inArray(evidenceRuns.claimId, ids)) : [];
   const latest = latestMarks(markRows);
   const evidence = new Map<string, EvidenceSummary | null>();
-  for (const c of claimRows) {
+  for (const { claim: c, tender } of claimRows) {
     const seesRuns = viewer.ability.can("read", asSubject("EvidenceRun", { claimId: c.id, tenderId: c.tenderId, vendorOrgId: c.vendorOrgId }));
-    evidence.set(c.id, seesRuns ? summariseEvidence(runRows.filter((r) => r.claimId === c.id).map((r) => r.status)) : null);
+    evidence.set(c.id, seesRuns ? summariseRuns(tender.channelModel, c.channelValue, runRows.filter((r) => r.claimId === c.id)) : null);
   }
   return { latest, evidence };
 }
@@ -111,7 +112,7 @@ export async function listClaimQueue(viewer: Viewer, filters: Partial<ClaimQueue
   if (filters.tenderId && rows.length > 0 && visible.length === 0 && !isDeclared(viewer, filters.tenderId)) {
     throw refusal(viewer, filters.tenderId, "");
   }
-  const { latest, evidence } = await reviewState(db, viewer, visible.map((r) => r.claim));
+  const { latest, evidence } = await reviewState(db, viewer, visible);
   const vendor = filters.vendor?.toLowerCase();
   return visible
     .map(({ claim, offer, vendorName, tender }): QueueRow => {
@@ -162,7 +163,7 @@ export async function getClaimDetail(viewer: Viewer, claimId: string) {
   const ref = { claimId: claim.id, tenderId: claim.tenderId, vendorOrgId: claim.vendorOrgId };
   const docs = await db.select().from(documents).where(eq(documents.offerId, claim.offerId)).orderBy(asc(documents.uploadedAt));
   const markRows = await db.select().from(marks).where(eq(marks.claimId, claim.id)).orderBy(asc(marks.markedAt));
-  const { evidence } = await reviewState(db, viewer, [claim]);
+  const { evidence } = await reviewState(db, viewer, [row]);
   const can = (action: "mark" | "record" | "create", type: "Claim" | "EvidenceRun" | "Thread") =>
     type === "Claim"
       ? viewer.ability.can(action, claimSubject(claim))
@@ -174,7 +175,7 @@ export async function getClaimDetail(viewer: Viewer, claimId: string) {
     claim,
     vendorName: row.vendorName,
     offer: offerFor(viewer, row.offer, tender),
-    tender: { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, channelModel: tender.channelModel },
+    tender: { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, channelModel: tender.channelModel, safetyRelevant: tender.safetyRelevant },
     documents: docs
       .filter((d) => viewer.ability.can("read", asSubject("Document", { id: d.id, offerId: d.offerId ?? "", tenderId: d.tenderId, vendorOrgId: d.vendorOrgId })))
       .map(({ storageKey: _key, ...d }) => d),

@@ -1,9 +1,9 @@
 import "server-only";
-import { and, asc, eq, inArray } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, tenders, threadMessages, threads } from "@/db/schema";
-import type { MessageInput, ThreadInput } from "@/lib/validation/review";
+import type { CloseThreadInput, MessageInput, ThreadInput } from "@/lib/validation/review";
 import { ConflictError, ForbiddenError, NotFoundError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesOf, addressesWithRole, notify, type Notice } from "./notify";
@@ -73,6 +73,15 @@ async function loadThread(viewer: Viewer, threadId: string) {
   return row;
 }
 
+/** Whether this viewer may write in the thread, and close it (an evaluator, while it is open). */
+function mayOn(viewer: Viewer, thread: ThreadRow, tender: TenderRow) {
+  const live = !CLOSED_STATES.includes(tender.state);
+  return {
+    mayPost: live && viewer.ability.can("post", threadSubject(thread)),
+    mayClose: live && thread.closedAt === null && viewer.ability.can("update", threadSubject(thread)),
+  };
+}
+
 const messagesOf = async (db: Queryable, ids: string[]) =>
   ids.length ? db.select().from(threadMessages).where(inArray(threadMessages.threadId, ids)).orderBy(asc(threadMessages.createdAt)) : [];
 
@@ -84,7 +93,7 @@ export async function getThread(viewer: Viewer, threadId: string) {
     ...thread,
     tenderReference: tender.reference,
     messages: await messagesOf(db, [thread.id]),
-    mayPost: !CLOSED_STATES.includes(tender.state) && viewer.ability.can("post", threadSubject(thread)),
+    ...mayOn(viewer, thread, tender),
   };
 }
 export type ThreadDetail = Awaited<ReturnType<typeof getThread>>;
@@ -105,7 +114,7 @@ export async function listThreads(viewer: Viewer, where: { tenderId?: string; cl
     ...thread,
     tenderReference: tender.reference,
     messages: messages.filter((m) => m.threadId === thread.id),
-    mayPost: !CLOSED_STATES.includes(tender.state) && viewer.ability.can("post", threadSubject(thread)),
+    ...mayOn(viewer, thread, tender),
   }));
 }
 
@@ -130,4 +139,24 @@ export async function postMessage(viewer: Viewer, threadId: string, input: Messa
   });
   notify(await threadNotice(db, tender, thread, viewer, input.body, fromVendor ? "engineers" : "vendor"));
   return message;
+}
+
+/**
+ * An evaluator closes a question with a reason (answered elsewhere, no longer needed): the
+ * technical sign-off waits for every question to be answered or closed. The vendor reads the reason.
+ */
+export async function closeThread(viewer: Viewer, threadId: string, input: CloseThreadInput) {
+  const { thread, tender } = await loadThread(viewer, threadId);
+  authorize(viewer, "update", threadSubject(thread), "Only an engineer who has declared on this tender closes its questions.");
+  if (CLOSED_STATES.includes(tender.state)) throw new ConflictError("The tender is closed: its threads stay as they are.");
+  if (thread.closedAt) throw new ConflictError("This question is already closed.");
+  const db = await getDb();
+  const closed = await db.transaction(async (tx) => {
+    const [row] = await tx.update(threads).set({ closedAt: new Date(), closedBy: viewer.actor.id, closeReason: input.reason }).where(and(eq(threads.id, threadId), isNull(threads.closedAt))).returning();
+    if (!row) throw new ConflictError("This question was closed meanwhile.");
+    await appendLedger(tx, { tenderId: thread.tenderId, actor: ledgerActor(viewer), action: "thread.closed", subjectType: "Thread", subjectId: threadId, data: { reason: input.reason } });
+    return row;
+  });
+  notify(await threadNotice(db, tender, thread, viewer, `The question was closed: ${input.reason}`, "vendor"));
+  return closed;
 }

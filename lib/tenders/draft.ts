@@ -8,7 +8,7 @@ type TenderRow = typeof tenders.$inferSelect;
 export type DraftValues = Pick<
   TenderRow,
   | "title" | "description" | "channelModel" | "operatingPoints" | "targetMetric" | "targetValue" | "maxFrameBits"
-  | "quantity" | "currency" | "weights" | "impossibleRule" | "impossiblePenalty" | "closesAt" | "closesZone"
+  | "quantity" | "currency" | "weights" | "impossibleRule" | "impossiblePenalty" | "safetyRelevant" | "closesAt" | "closesZone"
 >;
 
 type Shared = Omit<DraftValues, "maxFrameBits" | "impossiblePenalty" | "closesAt" | "closesZone">;
@@ -26,6 +26,7 @@ function shared(from: Shared): Shared {
     currency: from.currency,
     weights: { ...from.weights },
     impossibleRule: from.impossibleRule,
+    safetyRelevant: from.safetyRelevant,
   };
 }
 
@@ -68,6 +69,7 @@ export function blankDraftInput(now: Date): TenderInput {
     weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
     impossibleRule: "disqualify",
     impossiblePenalty: 0,
+    safetyRelevant: false,
     closesLocal: `${inAWeek}T12:00`,
     closesZone: DEFAULT_ZONE,
     invitedOrgIds: [],

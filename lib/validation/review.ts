@@ -43,6 +43,10 @@ export type ThreadInput = z.infer<typeof threadSchema>;
 export const messageSchema = z.object({ body: text(4000).min(1, "Write a message.") });
 export type MessageInput = z.infer<typeof messageSchema>;
 
+/** An evaluator closes a question that needs no answer (any more), saying why. */
+export const closeThreadSchema = z.object({ reason: text(1000).min(10, "Say why the question is closed, in at least 10 characters.") });
+export type CloseThreadInput = z.infer<typeof closeThreadSchema>;
+
 const count = (what: string) =>
   z.number({ error: () => `${what} must be a number.` }).int(`${what} must be a whole number.`).min(0, `${what} cannot be negative.`).max(1e15, `${what} is too large.`);
 
@@ -60,6 +64,8 @@ export type EvidenceRunInput = z.infer<typeof evidenceRunSchema>;
 
 export const evidenceImportSchema = z.object({
   csv: z.string().min(1, "The file is empty.").max(1_000_000, "At most 1 MB of CSV."),
+  /** Check every row and say what it would count for, writing nothing. */
+  preview: z.boolean().default(false),
 });
 
 export const signoffSchema = z.object({

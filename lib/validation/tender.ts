@@ -46,6 +46,8 @@ export const tenderFieldsSchema = z.object({
   weights: weightsSchema,
   impossibleRule: z.enum(["disqualify", "penalty"], { error: "Choose what a confirmed impossible claim costs." }),
   impossiblePenalty: num("the penalty").min(0, "Zero or more points.").max(100, "At most 100 points."),
+  /** The radios serve a safety use: verifying lab runs for every accepted claim, two engineers sign. */
+  safetyRelevant: z.boolean({ error: "Say whether the tender is safety-relevant (true or false)." }),
   closesLocal: z.string().regex(LOCAL_DATE_TIME, "Enter the closing date and time."),
   closesZone: z.string().refine(isValidZone, "Choose a time zone."),
   invitedOrgIds: z.array(z.string().min(1)).max(50).refine((ids) => new Set(ids).size === ids.length, "Each organisation once."),
@@ -79,6 +81,7 @@ export const tenderInputSchema = tenderFieldsSchema
     maxFrameBits: tenderFieldsSchema.shape.maxFrameBits.default(null),
     impossibleRule: tenderFieldsSchema.shape.impossibleRule.default("disqualify"),
     impossiblePenalty: tenderFieldsSchema.shape.impossiblePenalty.default(0),
+    safetyRelevant: tenderFieldsSchema.shape.safetyRelevant.default(false),
     invitedOrgIds: tenderFieldsSchema.shape.invitedOrgIds.default([]),
   })
   .superRefine(crossChecks);

@@ -22,7 +22,8 @@ export function engineerRules(builder: RuleBuilder, actor: Actor): void {
     );
     can("mark", "Claim", inDeclared);
     can("record", "EvidenceRun", inDeclared);
-    can(["create", "post"], "Thread", inDeclared);
+    // "update" is closing a question with a reason.
+    can(["create", "post", "update"], "Thread", inDeclared);
   }
   // Signing covers every vendor of the tender, so a conflict with any one of them rules it out.
   if (clean.length > 0) can("sign", "TechnicalSignoff", { tenderId: { $in: clean } });

@@ -26,6 +26,7 @@ const csvRows = (text: string) =>
   text.replace(/^\uFEFF/, "").trim().split(/\r?\n/).map((line) => line.replace(/^"|"$/g, "").split('","'));
 
 test("a buyer opens the envelopes, sorts, exports, tries other weights and recommends an award", async ({ page }) => {
+  await page.setViewportSize({ width: 1440, height: 900 });
   await signIn(page, ACCOUNTS.buyer);
   await page.goto("/tenders");
   // The list names the tender by its title; its row carries the reference.
@@ -55,6 +56,15 @@ test("a buyer opens the envelopes, sorts, exports, tries other weights and recom
   const totals = sorted.map((r) => (r.total === "–" ? -1 : Number(r.total)));
   expect(totals).toEqual([...totals].sort((a, b) => b - a));
   expect(sorted[0].rank).toBe("1");
+  // A disqualified offer shows no score at all; every other score is within 0..100.
+  for (const row of sorted) {
+    const scores = Object.entries(row).filter(([col]) => col.startsWith("score-") || col === "total").map(([, v]) => v);
+    if (row.status.includes("Disqualified")) expect(scores.every((v) => v === "–")).toBe(true);
+    else for (const v of scores) expect(Number(v)).toBeLessThanOrEqual(100);
+  }
+  // At 1,440 px the total price, total score and rank stay in view (pinned).
+  const grid = page.getByRole("region", { name: "Comparison grid" });
+  for (const col of ["totalPrice", "total", "rank"]) await expect(grid.locator(`[role="columnheader"][col-id="${col}"]`)).toBeInViewport();
 
   // CSV export: one header row, then the grid's rows in the grid's order.
   const downloading = page.waitForEvent("download");
@@ -68,8 +78,11 @@ test("a buyer opens the envelopes, sorts, exports, tries other weights and recom
   const totalAt = header.indexOf("Total");
   const rankAt = header.indexOf("Rank");
   expect(lines.map((l) => l[vendorAt])).toEqual(sorted.map((r) => r.vendorName));
-  expect(lines.map((l) => l[totalAt])).toEqual(sorted.map((r) => r.total));
-  expect(lines.map((l) => l[rankAt])).toEqual(sorted.map((r) => r.rank));
+  // Numbers as numbers: the grid's "81.2" is 81.2xxx in the file, and no value is an empty cell.
+  expect(lines.map((l) => (l[totalAt] === "" ? "–" : Number(l[totalAt]).toFixed(1)))).toEqual(sorted.map((r) => r.total));
+  expect(lines.map((l) => (l[rankAt] === "" ? "–" : l[rankAt]))).toEqual(sorted.map((r) => r.rank));
+  const priceAt = header.findIndex((h) => h.startsWith("Total price"));
+  for (const l of lines) expect(l[priceAt]).toMatch(/^\d+(\.\d+)?$/);
 
   // The score sheet of the selected offer.
   await page.getByRole("gridcell", { name: sorted[0].vendorName }).click();

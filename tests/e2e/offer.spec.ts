@@ -38,7 +38,8 @@ async function fillOffer(page: Page, v: Filled) {
   await claim.getByLabel("Metric", { exact: true }).selectOption("bler");
   await claim.getByLabel("Claimed value", { exact: true }).fill(v.claim);
   await form.getByLabel("Unit price", { exact: true }).fill(v.price);
-  await form.getByLabel("Currency", { exact: true }).fill("EUR");
+  // The tender fixes the currency: shown, not typed.
+  await expect(form.getByTestId("offer-currency")).toHaveText("EUR, set by the tender");
   await form.getByLabel("Lead time (weeks)", { exact: true }).fill(v.weeks);
   await form.getByLabel("Warranty (months)", { exact: true }).fill(v.months);
   await form.getByRole("button", { name: /Submit offer|Submit a new version/ }).click();

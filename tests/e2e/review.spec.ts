@@ -2,16 +2,18 @@ import { expect, test, type Page } from "@playwright/test";
 import { ACCOUNTS, signIn, signOut } from "./helpers";
 
 // One journey through the technical evaluation of the gauges tender (RC-2027-001), in order:
-// the engineer declares, reviews, records a lab run, asks a question the vendor answers, marks
-// every claim and signs; the admin finds the e-mails in the Mailroom.
+// the engineer declares, reviews, records a lab run at a milder channel (it does not verify) and
+// one at the claim's, asks a question, cannot sign while it waits, the vendor answers, the engineer
+// gives every claim a final mark and signs; the admin finds the e-mails in the Mailroom.
 test.describe.configure({ mode: "serial" });
 
 let tenderPath = "";
 
-async function markIfUnmarked(page: Page, href: string) {
+/** Accepts the claim, or rejects it when the engine found it impossible, unless it already has a final mark. */
+async function markIfNotFinal(page: Page, href: string) {
   await page.goto(href);
   await expect(page.getByRole("region", { name: "Findings" })).toBeVisible();
-  if ((await page.getByText("Not marked", { exact: true }).count()) === 0) return;
+  if (/^(Accepted|Rejected as impossible)/.test((await page.getByTestId("current-mark").textContent()) ?? "")) return;
   const form = page.getByRole("form", { name: "Mark this claim" });
   const impossible = (await page.locator('main header [data-verdict="impossible"]').count()) > 0;
   if (impossible) {
@@ -60,12 +62,23 @@ test("the engineer records a lab run and asks Marram a question", async ({ page 
   await expect(page.getByRole("region", { name: "Numbers" })).toContainText("Least possible BLER");
 
   const run = page.getByRole("form", { name: "Record a lab run" });
+  // A clean run a hundred times milder than the claim's p = 5e-3, typed with a decimal comma: it does not verify.
+  await run.getByLabel("Channel condition").fill("0,00005");
   await run.getByLabel("Sent").fill("3000000");
   await run.getByLabel("Errors counted").fill("0");
   await run.getByLabel("Confidence").selectOption("0.95");
   await run.getByRole("button", { name: "Record run" }).click();
-  await expect(run.getByRole("status")).toHaveText("Lab run recorded.");
-  await expect(page.getByRole("table", { name: "Lab runs" })).toContainText("0 / 3,000,000");
+  await expect(run.getByRole("status")).toContainText("Lab run recorded: inconclusive.");
+  await expect(run.getByRole("status")).toContainText("milder than the claim's p = 5e-3");
+  const runs = page.getByRole("table", { name: "Lab runs" });
+  await expect(runs.locator('tr[data-status="inconclusive"]')).toContainText("p = 5e-5");
+  await expect(page.getByRole("region", { name: "Charts" })).toContainText("lab runs");
+
+  // The same counts at the claim's own channel verify it.
+  await run.getByLabel("Channel condition").fill("0.005");
+  await run.getByRole("button", { name: "Record run" }).click();
+  await expect(run.getByRole("status")).toContainText("Lab run recorded: verified.");
+  await expect(runs.locator('tr[data-status="verified"]')).toContainText("0 / 3,000,000");
 
   const mark = page.getByRole("form", { name: "Mark this claim" });
   await mark.getByLabel("Clarification requested").check();
@@ -74,6 +87,12 @@ test("the engineer records a lab run and asks Marram a question", async ({ page 
   await mark.getByRole("button", { name: "Record mark" }).click();
   await expect(mark.getByRole("status")).toHaveText("Mark recorded.");
   await expect(page.getByRole("listitem", { name: "Thread: Decoder iterations at storm fade" })).toBeVisible();
+
+  // The sign-off waits for the answer (or a closing reason): no form, and the reason in words.
+  await page.goto(`${tenderPath}/review`);
+  const signoff = page.getByRole("region", { name: "Technical sign-off" });
+  await expect(signoff.getByRole("alert", { name: "Why it cannot be signed yet" })).toContainText("1 question to a vendor is neither answered nor closed");
+  await expect(signoff.getByRole("button", { name: "Sign the technical evaluation" })).toHaveCount(0);
   await signOut(page);
 });
 
@@ -101,14 +120,15 @@ test("the engineer marks every claim and signs the technical evaluation", async 
   const links = page.getByRole("region", { name: "Claims of this tender" }).getByRole("link", { name: /Open claim/ });
   const hrefs = await links.evaluateAll((as) => as.map((a) => a.getAttribute("href")!));
   expect(hrefs.length).toBeGreaterThanOrEqual(8);
-  for (const href of hrefs) await markIfUnmarked(page, href);
+  for (const href of hrefs) await markIfNotFinal(page, href);
 
   await page.goto(`${tenderPath}/review`);
   const signoff = page.getByRole("region", { name: "Technical sign-off" });
-  await expect(signoff).toContainText(`${hrefs.length} of ${hrefs.length} claims marked`);
+  await expect(signoff).toContainText(`${hrefs.length} of ${hrefs.length} claims have a final mark; no question is waiting`);
   await signoff.getByLabel("Statement").fill("Every claim reviewed against the bounds and the lab evidence.");
   await signoff.getByRole("button", { name: "Sign the technical evaluation" }).click();
-  await expect(signoff).toContainText("Signed on");
+  await expect(signoff.getByRole("list", { name: "Signatures" })).toContainText("Every claim reviewed against the bounds and the lab evidence.");
+  await expect(signoff.getByRole("list", { name: "Signatures" })).toContainText("Signed by");
   await expect(page.locator('[data-state="commercial"]')).toBeVisible();
   await signOut(page);
 });

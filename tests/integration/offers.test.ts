@@ -297,8 +297,9 @@ describe("refusals write nothing", () => {
     await refused(await signInAs("buyer@tarnwell.example"), WEIRS(), weirsOffer(), 403, /vendors/);
   });
 
+  let quillfield: Headers;
   it("a claim with k > n, naming the field", async () => {
-    const vendor = await signInAs("tenders@quillfield.example");
+    const vendor = (quillfield = await signInAs("tenders@quillfield.example"));
     const json = await refused(vendor, WEIRS(), weirsOffer({ code: { family: "BCH", decision: "hard", n: 1023, k: 2000 } }), 400, /code\.k/);
     expect(json.fieldErrors["code.k"][0]).toMatch(/at most n \(1023\)/);
   });
@@ -311,6 +312,12 @@ describe("refusals write nothing", () => {
     expect(missing.fieldErrors.claims[0]).toMatch(/each of the tender's 1 operating point/);
     const foreign = await refused(vendor, WEIRS(), weirsOffer({ envelope: { unitPrice: 10, currency: "USD", leadTimeWeeks: 4, warrantyMonths: 12, priceBreaks: [] } }), 400, /highlighted/);
     expect(foreign.fieldErrors["envelope.currency"][0]).toMatch(/EUR/);
+  });
+
+  it("a soft-decision code on a hard-decision (BSC) tender, saying what to do, and storing nothing", async () => {
+    const vendor = quillfield;
+    const json = await refused(vendor, WEIRS(), weirsOffer({ code: { family: "LDPC", decision: "soft", n: 2048, k: 1536 } }), 400, /highlighted/);
+    expect(json.fieldErrors["code.decision"][0]).toMatch(/hard decision \(binary symmetric channel\)/);
   });
 
   it("price breaks out of order, and a zero price", async () => {

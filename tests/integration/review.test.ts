@@ -177,7 +177,7 @@ describe("technical sign-off", () => {
     const before = await ledger("tender.technical-signed");
     const refused = await sign("director", statement);
     expect(refused.status).toBe(409);
-    expect((await refused.json()).error).toMatch(/\d+ of \d+ claims are not marked/);
+    expect((await refused.json()).error).toMatch(/\d+ claims have no final mark yet/);
     expect(await db.select().from(technicalSignoffs)).toHaveLength(0);
     expect((await tenderRow()).state).toBe("technical");
     expect(await ledger("tender.technical-signed")).toBe(before);

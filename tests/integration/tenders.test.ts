@@ -97,6 +97,17 @@ describe("drafting a tender", () => {
     expect(created.actorLabel).toBe("Ines Calloway");
   });
 
+  it("marks a draft safety-relevant when the buyer says so, records the change, and defaults to not", async () => {
+    expect((await row(await createDraft())).safetyRelevant).toBe(false);
+    const id = await createDraft({ safetyRelevant: true });
+    expect((await row(id)).safetyRelevant).toBe(true);
+    expect((await patch(as.buyer, id, { safetyRelevant: "yes" })).status).toBe(400);
+    expect((await patch(as.buyer, id, { safetyRelevant: false })).status).toBe(200);
+    expect((await row(id)).safetyRelevant).toBe(false);
+    const [updated] = await entries(id, "tender.updated");
+    expect(JSON.stringify(updated.data)).toMatch(/safetyRelevant/);
+  });
+
   it("gives each new draft its own reference", async () => {
     const a = await (await post(as.buyer, draftBody())).json();
     const b = await (await post(as.buyer, draftBody())).json();

@@ -4,7 +4,9 @@ import { evidenceRunSchema, markSchema, threadSchema } from "@/lib/validation/re
 import { recordEvidence } from "@/lib/server/evidence";
 import { createMark } from "@/lib/server/marks";
 import { openThread } from "@/lib/server/threads";
-import { runForm, type FormResult } from "@/lib/server/form-action";
+import { revalidatePath } from "next/cache";
+import { EVIDENCE_LABELS } from "@/lib/review/labels";
+import { attemptForm, runForm, type FormResult } from "@/lib/server/form-action";
 
 const claimPaths = (claimId: string) => [`/review/claims/${claimId}`, "/review"];
 
@@ -12,8 +14,13 @@ export async function markClaimAction(claimId: string, values: unknown): Promise
   return runForm(markSchema, values, (viewer, input) => createMark(viewer, String(claimId), input), claimPaths(claimId), "Mark recorded.");
 }
 
+/** Says what the run counts for, and why, since a run at another channel may not count as its counts suggest. */
 export async function recordEvidenceAction(claimId: string, values: unknown): Promise<FormResult> {
-  return runForm(evidenceRunSchema, values, (viewer, input) => recordEvidence(viewer, String(claimId), input), claimPaths(claimId), "Lab run recorded.");
+  const outcome = await attemptForm(evidenceRunSchema, values, (viewer, input) => recordEvidence(viewer, String(claimId), input));
+  if (!outcome.ok) return outcome.result;
+  for (const path of claimPaths(claimId)) revalidatePath(path);
+  const run = outcome.value;
+  return { ok: true, message: `Lab run recorded: ${EVIDENCE_LABELS[run.status].toLowerCase()}. ${run.finding}` };
 }
 
 export async function openThreadAction(claimId: string, values: unknown): Promise<FormResult> {

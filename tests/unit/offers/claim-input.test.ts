@@ -79,6 +79,13 @@ describe("submission rules", () => {
     expect(termsErrors(bec, { claims: [claims[0], { ...claims[1], metric: "ncg" }], envelope: { currency: "EUR" } })["claims.1.metric"]).toBeTruthy();
   });
 
+  it("refuse a soft-decision code on a hard-decision (BSC) tender, saying what to do", () => {
+    const soft = { code: { decision: "soft" as const }, claims, envelope: { currency: "EUR" } };
+    expect(termsErrors({ ...tender, channelModel: "bsc" }, soft)["code.decision"][0]).toMatch(/hard decision \(binary symmetric channel\).*offer the module with a hard-decision decoder/);
+    expect(termsErrors({ ...tender, channelModel: "bsc" }, { ...soft, code: { decision: "hard" } })).toEqual({});
+    expect(termsErrors({ ...tender, channelModel: "biawgn" }, soft)["code.decision"]).toBeUndefined();
+  });
+
   it("evaluateOffer stores the engine's verdict per point and names fields the engine refuses", () => {
     const ok = evaluateOffer(tender, { code: { n: 1024, k: 901 }, claims, envelope: { currency: "EUR" } });
     if (!ok.ok) throw new Error("expected an evaluation");

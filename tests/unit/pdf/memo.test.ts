@@ -8,8 +8,8 @@ const AT = new Date("2027-03-04T10:15:00.000Z");
 
 function sample(overrides: Partial<MemoDocument> = {}): MemoDocument {
   const claims = (verdict: "impossible" | "needs-evidence" | "plausible") => [
-    { point: "Clear weather (p = 1e-3)", claim: "BLER 1e-6", verdict, review: "Accepted" },
-    { point: "Storm fade (p = 5e-3)", claim: "BLER 1e-4", verdict, review: "No mark" },
+    { point: "Clear weather (p = 1e-3)", claim: "BLER 1e-6", verdict, review: "Accepted", evidence: "Verified: 0 errors in 3,000,000 frames at p = 1e-3" },
+    { point: "Storm fade (p = 5e-3)", claim: "BLER 1e-4", verdict, review: "No mark", evidence: "No lab run." },
   ];
   return {
     identifier: "RC-2099-001-M1",
@@ -39,6 +39,10 @@ function sample(overrides: Partial<MemoDocument> = {}): MemoDocument {
       { name: "Rowan Director", at: "4 Mar 2027, 10:15 UTC", comment: "" },
     ],
     approvalsNeeded: 2,
+    technical: {
+      signatures: [{ name: "Sam Engineer", at: "1 Mar 2027, 16:00 UTC", statement: "Every claim reviewed against the bounds." }],
+      declarations: [{ name: "Sam Engineer", at: "20 Feb 2027, 09:00 UTC", statement: "No ties to any vendor.", conflicts: "no conflict" }],
+    },
     cautions: "Verdicts judge coding claims against mathematical limits.",
     ...overrides,
   };
@@ -62,6 +66,10 @@ describe("the award memo PDF", () => {
     expect(text).toContain("Approved by Rowan Director");
     expect(text).toContain("Verdicts judge coding claims against mathematical limits.");
     expect(text).toContain("€300,000.00");
+    expect(text).toContain("Signed by Sam Engineer, 1 Mar 2027, 16:00 UTC");
+    expect(text).toContain("Every claim reviewed against the bounds.");
+    expect(text).toContain("Sam Engineer, 20 Feb 2027, 09:00 UTC: no conflict.");
+    expect(text).toContain("Lab evidence: Verified: 0 errors in 3,000,000 frames at p = 1e-3");
   });
 
   it("prints the memo identifier in the footer of every page", async () => {

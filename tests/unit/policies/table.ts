@@ -88,7 +88,7 @@ const TABLE: Record<Role, Entry[]> = {
     ...declaredOnT1(READ, ["Offer", "Claim", "Document", "Mark", "Thread", "EvidenceRun", "TechnicalSignoff"]),
     ...declaredOnT1("mark", ["Claim"]),
     ...declaredOnT1("record", ["EvidenceRun"]),
-    ...declaredOnT1(["create", "post"], ["Thread"]),
+    ...declaredOnT1(["create", "post", "update"], ["Thread"]),
     ["sign", "TechnicalSignoff", [make.TechnicalSignoff()], [make.TechnicalSignoff({ tenderId: T2 })]],
   ],
 

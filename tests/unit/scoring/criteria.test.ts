@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import {
   buildScoreSheet,
+  csvCell,
   evidenceScore,
   leadTimeScore,
   pointScore,
@@ -147,6 +148,22 @@ describe("the tender's rule for confirmed impossible claims", () => {
     expect(sheet.offers[0].lines.find((l) => l.criterion === "price")!.normalised).toBe(100);
   });
 
+  it("disqualify: the cheaper disqualified offer shows no score at all, and every score stays within 0..100", () => {
+    const sheet = buildScoreSheet(input("disqualify"));
+    const cheap = sheet.offers.find((o) => o.offerId === "Cheap")!;
+    // Before: its price score was 100 x 10 / 5 = 200 on a 0..100 scale.
+    expect(cheap.lines.every((l) => l.normalised === null && l.contribution === null)).toBe(true);
+    expect(cheap.total).toBeNull();
+    expect(cheap.totalPrice).toBe(500);
+    for (const o of sheet.offers) for (const l of o.lines) if (l.normalised !== null) expect(l.normalised).toBeGreaterThanOrEqual(0), expect(l.normalised).toBeLessThanOrEqual(100);
+  });
+
+  it("flags an acceptance that overrides the engine's impossible verdict", () => {
+    const i = input("disqualify");
+    i.offers[0].claims = [claim({ verdict: "impossible", mark: "accepted" })];
+    expect(buildScoreSheet(i).offers.find((o) => o.offerId === "Cheap")!.flags.join(" ")).toMatch(/Accepted although the engine found it impossible \(P\)/);
+  });
+
   it("penalty: subtracts the points (floor 0) and keeps the offer ranked", () => {
     const plain = buildScoreSheet(input("penalty", 0));
     const cheapPlain = plain.offers.find((o) => o.offerId === "Cheap")!;
@@ -182,5 +199,16 @@ describe("the tender's rule for confirmed impossible claims", () => {
     expect(sheet.sealed).toBe(true);
     expect(sheet.offers.every((o) => o.total === null && o.rank === null && o.totalPrice === null)).toBe(true);
     expect(sheet.offers[0].lines.find((l) => l.criterion === "technical")!.normalised).not.toBeNull();
+  });
+});
+
+describe("the Comparison CSV", () => {
+  it("carries numbers as numbers: no currency sign, no thousands separator, no float noise; nothing for no value", () => {
+    expect(csvCell(164000)).toBe("164000");
+    expect(csvCell(81.23456789)).toBe("81.2346");
+    expect(csvCell(0.1 + 0.2)).toBe("0.3");
+    expect(csvCell(null)).toBe("");
+    expect(csvCell("Kestrelink Radio")).toBe("Kestrelink Radio");
+    expect(Number(csvCell(41.05 * 4000))).toBeCloseTo(164200, 6);
   });
 });

@@ -40,6 +40,7 @@ export default async function TenderRequirementsPage({ params }: { params: Promi
           <div><dt className="label">Closes</dt><dd><DateTime value={tender.closesAt} zone={tender.closesZone} /></dd></div>
           {tender.openedAt ? <div><dt className="label">Opened</dt><dd><DateTime value={tender.openedAt} zone={tender.closesZone} /></dd></div> : null}
           <div><dt className="label">If a claim is impossible</dt><dd>{tender.impossibleRule === "disqualify" ? "offer disqualified" : `penalty of ${tender.impossiblePenalty} points`}</dd></div>
+          <div><dt className="label">Safety-relevant</dt><dd>{tender.safetyRelevant ? "yes: verifying lab runs and two engineers' sign-off" : "no"}</dd></div>
         </dl>
         <div>
           <h3 className="label mt-2">Operating points</h3>

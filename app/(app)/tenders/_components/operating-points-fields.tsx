@@ -2,6 +2,7 @@
 
 import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
 import { CHANNEL_LABELS } from "@/lib/format";
+import { formDecimal } from "@/lib/numbers";
 import { CONDITION_RANGES, type TenderFormValues } from "@/lib/validation/tender";
 import { errorAt, FieldError } from "./field-error";
 
@@ -30,7 +31,7 @@ export function OperatingPointsFields() {
             </div>
             <div>
               <label className="sr-only" htmlFor={`op-${i}-value`}>Point {i + 1} {channel.parameter}{unit}</label>
-              <input id={`op-${i}-value`} className="field tabular-nums" type="number" step="any" inputMode="decimal" aria-invalid={Boolean(valueError)} aria-describedby={`op-${i}-value-error`} {...register(`operatingPoints.${i}.value`, { valueAsNumber: true })} />
+              <input id={`op-${i}-value`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(valueError)} aria-describedby={`op-${i}-value-error`} {...register(`operatingPoints.${i}.value`, { setValueAs: formDecimal })} />
               <FieldError id={`op-${i}-value-error`} message={valueError} />
             </div>
             <button type="button" className="btn-quiet" onClick={() => remove(i)} aria-label={`Remove point ${i + 1}`}>Remove</button>

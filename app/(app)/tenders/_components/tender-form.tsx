@@ -4,6 +4,7 @@ import { useState, useTransition } from "react";
 import { FormProvider, useForm, useWatch, type Path } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { CHANNEL_LABELS } from "@/lib/format";
+import { formCount, formDecimal, formOptionalCount } from "@/lib/numbers";
 import { CHANNEL_MODELS, tenderInputSchema, type TenderFormValues, type TenderInput } from "@/lib/validation/tender";
 import { createTenderAction, updateTenderAction, type TenderFormResult } from "../actions";
 import { errorAt, FieldError } from "./field-error";
@@ -18,7 +19,6 @@ interface Props {
   zones: string[];
 }
 
-const optionalNumber = (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v));
 // A lone checkbox gives a string or false, not a list: the schema always gets a list.
 const asList = (v: unknown): string[] => (Array.isArray(v) ? v : typeof v === "string" ? [v] : []);
 const schemaResolver = zodResolver(tenderInputSchema);
@@ -72,11 +72,11 @@ export function TenderForm({ tenderId, defaults, vendors, zones }: Props) {
               <option value="ber">BER (bit error rate, after decoding)</option>
             </select>
           ))}
-          {field("targetValue", "Residual error at most", <input className="field tabular-nums" type="number" step="any" {...invalid("targetValue")} {...register("targetValue", { valueAsNumber: true })} />, "A probability, e.g. 1e-4.")}
-          {field("maxFrameBits", "Longest frame (bits)", <input className="field tabular-nums" type="number" min={1} step={1} {...invalid("maxFrameBits")} {...register("maxFrameBits", { setValueAs: optionalNumber })} />, "Leave empty for no limit.")}
+          {field("targetValue", "Residual error at most", <input className="field tabular-nums" inputMode="decimal" {...invalid("targetValue")} {...register("targetValue", { setValueAs: formDecimal })} />, "A probability, e.g. 1e-4 or 0,0001.")}
+          {field("maxFrameBits", "Longest frame (bits)", <input className="field tabular-nums" inputMode="numeric" {...invalid("maxFrameBits")} {...register("maxFrameBits", { setValueAs: formOptionalCount })} />, "Leave empty for no limit.")}
         </div>
         <div className="grid gap-4 md:grid-cols-3">
-          {field("quantity", "Quantity (units)", <input className="field tabular-nums" type="number" min={1} step={1} {...invalid("quantity")} {...register("quantity", { valueAsNumber: true })} />)}
+          {field("quantity", "Quantity (units)", <input className="field tabular-nums" inputMode="numeric" {...invalid("quantity")} {...register("quantity", { setValueAs: formCount })} />)}
           {field("currency", "Currency", <input className="field uppercase" maxLength={3} {...invalid("currency")} {...register("currency")} />, "ISO 4217, e.g. EUR.")}
         </div>
         <WeightsFields />
@@ -85,8 +85,13 @@ export function TenderForm({ tenderId, defaults, vendors, zones }: Props) {
           <label className="inline-flex items-center gap-2 text-sm"><input type="radio" value="disqualify" {...register("impossibleRule")} /> Disqualify the offer</label>
           <label className="inline-flex items-center gap-2 text-sm"><input type="radio" value="penalty" {...register("impossibleRule")} /> Deduct points</label>
           {rule === "penalty"
-            ? field("impossiblePenalty", "Penalty (points)", <input className="field tabular-nums" type="number" min={0} max={100} step="any" {...invalid("impossiblePenalty")} {...register("impossiblePenalty", { valueAsNumber: true })} />)
+            ? field("impossiblePenalty", "Penalty (points)", <input className="field tabular-nums" inputMode="decimal" {...invalid("impossiblePenalty")} {...register("impossiblePenalty", { setValueAs: formDecimal })} />)
             : null}
+        </fieldset>
+        <fieldset className="space-y-1">
+          <legend className="label">Safety</legend>
+          <label className="inline-flex items-center gap-2 text-sm"><input type="checkbox" {...register("safetyRelevant")} /> Safety-relevant: these radios serve a safety use</label>
+          <p className="text-xs text-ink-faint">Then every accepted claim needs a lab run that verifies it, two engineers sign the technical evaluation, and the memo and notices carry the stronger caution.</p>
         </fieldset>
         <div className="grid gap-4 md:grid-cols-2">
           {field("closesLocal", "Closing date and time", <input className="field tabular-nums" type="datetime-local" {...invalid("closesLocal")} {...register("closesLocal")} />, "Local time in the zone beside it.")}

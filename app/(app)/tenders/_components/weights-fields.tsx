@@ -3,6 +3,7 @@
 import { useFormContext, useWatch } from "react-hook-form";
 import { WEIGHT_KEYS, type TenderFormValues } from "@/lib/validation/tender";
 import { errorAt, FieldError } from "./field-error";
+import { formDecimal } from "@/lib/numbers";
 
 const NAMES: Record<(typeof WEIGHT_KEYS)[number], string> = {
   technical: "Technical",
@@ -28,7 +29,7 @@ export function WeightsFields() {
           return (
             <div key={key}>
               <label className="text-xs text-ink-soft" htmlFor={`w-${key}`}>{NAMES[key]} weight</label>
-              <input id={`w-${key}`} className="field tabular-nums" type="number" min={0} step="any" aria-invalid={Boolean(message)} {...register(`weights.${key}`, { valueAsNumber: true })} />
+              <input id={`w-${key}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(message)} {...register(`weights.${key}`, { setValueAs: formDecimal })} />
               <span className="text-xs text-ink-faint tabular-nums">{share} %</span>
               <FieldError id={`w-${key}-error`} message={message} />
             </div>

@@ -1,5 +1,6 @@
 import { DateTime } from "@/app/_components/date-time";
 import type { ThreadDetail } from "@/lib/server/threads";
+import { CloseThreadForm } from "./close-thread-form";
 import { ReplyForm } from "./reply-form";
 
 /** Clarification threads with their messages, oldest first, and a reply box where the viewer may post. */
@@ -18,7 +19,11 @@ export function ThreadList({ threads, path, empty }: { threads: ThreadDetail[]; 
               </li>
             ))}
           </ol>
+          {t.closedAt ? (
+            <p className="mt-2 text-xs text-ink-soft" data-closed="true">Closed <DateTime value={t.closedAt} />: {t.closeReason}</p>
+          ) : null}
           {t.mayPost ? <ReplyForm threadId={t.id} path={path} subject={t.subject} /> : null}
+          {t.mayClose ? <CloseThreadForm threadId={t.id} path={path} subject={t.subject} /> : null}
         </li>
       ))}
     </ul>

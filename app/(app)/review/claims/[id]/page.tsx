@@ -5,8 +5,7 @@ import { DateTime } from "@/app/_components/date-time";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { formatCondition, formatSci } from "@/lib/format";
 import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
-import { latestMarks } from "@/lib/review/marks";
-import { unitForMetric } from "@/lib/review/evidence";
+import { acceptedAgainstImpossible, latestMarks } from "@/lib/review/marks";
 import { listEvidence } from "@/lib/server/evidence";
 import { orPage, pageViewer } from "@/lib/server/pages";
 import { getClaimDetail } from "@/lib/server/review";
@@ -43,7 +42,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
           <div><dt className="label">Operating point</dt><dd>{claim.pointLabel}: {formatCondition(tender.channelModel, claim.channelValue)}</dd></div>
           <div><dt className="label">Claimed</dt><dd className="tabular-nums">{claimed}</dd></div>
           <div><dt className="label">Code</dt><dd className="tabular-nums">{offer.codeFamily}, {offer.decision} decision{offer.n ? `, n = ${offer.n}` : ""}{offer.k ? `, k = ${offer.k}` : ""}</dd></div>
-          <div><dt className="label">Current mark</dt><dd>{current ? MARK_LABELS[current.mark] : "Not marked"}</dd></div>
+          <div><dt className="label">Current mark</dt><dd data-testid="current-mark">{current ? MARK_LABELS[current.mark] : "Not marked"}{current && acceptedAgainstImpossible({ verdict: claim.verdict, mark: current.mark }) ? <span className="ml-1 font-medium text-verdict-impossible">(against the engine&apos;s verdict)</span> : null}</dd></div>
           {detail.evidenceStatus ? <div><dt className="label">Lab evidence</dt><dd>{EVIDENCE_LABELS[detail.evidenceStatus]}</dd></div> : null}
           <div><dt className="label">Engine</dt><dd className="text-ink-soft">{claim.engineVersion}, <DateTime value={claim.evaluatedAt} /></dd></div>
         </dl>
@@ -51,7 +50,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
 
       <ClaimFindings result={claim.result} />
       <ClaimNumbers result={claim.result} />
-      <ClaimCharts result={claim.result} />
+      <ClaimCharts result={claim.result} runs={(runs ?? []).map((r) => ({ x: r.channelValue, upper: r.upper, label: `lab: ${EVIDENCE_LABELS[r.status].toLowerCase()}` }))} />
 
       <section className="panel" aria-label="Documents">
         <h2>Documents</h2>
@@ -79,17 +78,17 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
             </tbody>
           </table>
         )}
-        {detail.may.mark ? <MarkForm claimId={claim.id} /> : null}
+        {detail.may.mark ? <MarkForm claimId={claim.id} verdict={claim.verdict} /> : null}
       </section>
 
-      {runs ? <EvidencePanel claimId={claim.id} runs={runs} unit={unitForMetric(claim.metric)} channelValue={claim.channelValue} claimedRate={claim.metric === "ncg" ? claim.ncgOutputBer : claim.value} mayRecord={detail.may.record} /> : null}
+      {runs ? <EvidencePanel claim={claim} model={tender.channelModel} runs={runs} mayRecord={detail.may.record} /> : null}
 
       <section className="panel space-y-3" aria-label="Clarification threads">
         <h2>Clarification threads</h2>
         <ThreadList threads={threads} path={`/review/claims/${claim.id}`} empty="No question asked about this claim." />
         {detail.may.openThread ? <OpenThreadForm claimId={claim.id} /> : null}
       </section>
-      <Cautions />
+      <Cautions safety={tender.safetyRelevant} />
     </div>
   );
 }

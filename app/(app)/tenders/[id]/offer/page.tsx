@@ -37,7 +37,8 @@ function defaultsFor(tender: TenderWithInvites, current: OfferView | null): Offe
     })),
     envelope: {
       unitPrice: current?.unitPrice as number,
-      currency: current?.currency ?? tender.currency,
+      // The tender fixes the currency: the form shows it and sends it.
+      currency: tender.currency,
       leadTimeWeeks: current?.leadTimeWeeks as number,
       warrantyMonths: current?.warrantyMonths as number,
       priceBreaks: current?.priceBreaks ?? [],

@@ -14,7 +14,7 @@ import { getTender, tenderSubject } from "@/lib/server/tenders";
 import { listThreads } from "@/lib/server/threads";
 import { ThreadList } from "@/app/(app)/threads/_components/thread-list";
 import { DeclarationForm } from "./_components/declaration-form";
-import { SignoffForm } from "./_components/signoff-form";
+import { SignoffCard } from "./_components/signoff-card";
 
 export const metadata: Metadata = { title: "Review" };
 
@@ -56,20 +56,7 @@ export default async function TenderReviewPage({ params }: { params: Promise<{ i
 
       {claims ? <ClaimsTable claims={claims} vendor={vendor} /> : null}
 
-      {signoff ? (
-        <section className="panel space-y-2" aria-label="Technical sign-off">
-          <h2>Technical sign-off</h2>
-          {signoff.signoff ? (
-            <p className="text-sm">Signed on <DateTime value={signoff.signoff.signedAt} />: “{signoff.signoff.statement}”</p>
-          ) : (
-            <>
-              <p className="text-sm">{signoff.check.total - signoff.check.unmarked} of {signoff.check.total} claims marked.{signoff.check.reason ? ` ${signoff.check.reason}` : ""}</p>
-              {signoff.maySign && signoff.check.ok ? <SignoffForm tenderId={id} /> : null}
-              {!signoff.maySign ? <p className="text-xs text-ink-soft">Only an engineer who declared no conflict on this tender signs it.</p> : null}
-            </>
-          )}
-        </section>
-      ) : null}
+      {signoff ? <SignoffCard tenderId={id} state={signoff} /> : null}
 
       {threads ? (
         <section className="panel space-y-3" aria-label={vendor ? "Questions from the evaluators" : "Clarification threads"}>
@@ -77,7 +64,7 @@ export default async function TenderReviewPage({ params }: { params: Promise<{ i
           <ThreadList threads={threads} path={`/tenders/${id}/review`} empty="No question has been asked on this tender." />
         </section>
       ) : null}
-      <Cautions />
+      <Cautions safety={tender.safetyRelevant} />
     </div>
   );
 }

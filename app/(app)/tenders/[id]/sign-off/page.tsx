@@ -33,7 +33,7 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
         ) : (
           <p className="panel text-sm text-ink-soft">There is no award recommendation here for you to see{view.declared ? " yet" : ""}.</p>
         )}
-        <Cautions />
+        <Cautions safety={view.tender.safetyRelevant} />
       </div>
     );
   }
@@ -112,7 +112,7 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
           {(view.decisions ?? []).length === 0 ? <li className="text-ink-soft">No decision yet.</li> : null}
         </ul>
       </section>
-      <Cautions />
+      <Cautions safety={view.tender.safetyRelevant} />
     </div>
   );
 }

@@ -1,9 +1,9 @@
-import { ChannelChart, RateChart } from "@/app/_components/bound-charts";
+import { ChannelChart, RateChart, type ChartRun } from "@/app/_components/bound-charts";
 import { claimResultSchema } from "@/lib/bounds";
 import { boundViewOfResult, buildBoundCharts } from "@/lib/explorer";
 
-/** The claim against the bounds at its own n and k, with the same charts as the Bound explorer. */
-export function ClaimCharts({ result }: { result: unknown }) {
+/** The claim against the bounds at its own n and k, with the same charts as the Bound explorer, and its lab runs (upper bounds) where the viewer reads them. */
+export function ClaimCharts({ result, runs = [] }: { result: unknown; runs?: ChartRun[] }) {
   const parsed = claimResultSchema.safeParse(result);
   const view = parsed.success ? boundViewOfResult(parsed.data) : null;
   if (!view) {
@@ -22,8 +22,9 @@ export function ClaimCharts({ result }: { result: unknown }) {
         <h2>The claim against the bounds</h2>
         <a href={`/explorer?${query}`} className="text-sm">Open in the Bound explorer</a>
       </div>
+      {runs.length > 0 ? <p className="text-xs text-ink-soft">Open circles: lab runs, at their channel and the upper bound of their measured error rate.</p> : null}
       <div className="grid gap-5 lg:grid-cols-2">
-        <ChannelChart charts={charts} />
+        <ChannelChart charts={charts} runs={runs} />
         <RateChart charts={charts} />
       </div>
     </section>

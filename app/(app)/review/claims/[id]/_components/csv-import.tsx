@@ -2,67 +2,79 @@
 
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import Papa from "papaparse";
+import { EVIDENCE_LABELS } from "@/lib/review/labels";
+import type { EvidenceStatus } from "@/db/schema/evaluation";
 
 interface Report {
   error?: string;
-  stored?: { line: number; status: string }[];
+  preview?: boolean;
+  stored?: { line: number; status: EvidenceStatus; finding: string }[];
   rejected?: { line: number; reasons: string[] }[];
 }
 
-/** Reads a lab's CSV in the browser (with progress), sends it, and lists what was stored and what was refused. */
-export function CsvImport({ claimId }: { claimId: string }) {
+/**
+ * Reads a lab's CSV file, shows what each row would count for (or why it is refused), and stores
+ * the valid rows only when the engineer confirms. A template for this claim can be downloaded.
+ */
+export function CsvImport({ claimId, template }: { claimId: string; template: string }) {
   const router = useRouter();
-  const [progress, setProgress] = useState<number | null>(null);
+  const [csv, setCsv] = useState<string | null>(null);
   const [phase, setPhase] = useState("");
   const [report, setReport] = useState<Report | null>(null);
+  const [busy, setBusy] = useState(false);
 
-  const send = async (csv: string) => {
-    setPhase("Checking and storing…");
+  const send = async (text: string, preview: boolean) => {
+    setBusy(true);
+    setPhase(preview ? "Checking every row…" : "Storing…");
     const response = await fetch(`/api/v1/claims/${claimId}/evidence/import`, {
       method: "POST",
       headers: { "content-type": "application/json" },
-      body: JSON.stringify({ csv }),
+      body: JSON.stringify({ csv: text, preview }),
     });
     const body: Report = await response.json().catch(() => ({ error: "The server's answer could not be read." }));
+    setBusy(false);
     setReport(body);
-    setProgress(100);
-    setPhase(response.ok ? `Stored ${body.stored?.length ?? 0} runs.` : body.error ?? "Nothing was stored.");
-    if (response.ok) router.refresh();
+    if (!response.ok) return setPhase(body.error ?? "Nothing was stored.");
+    const count = body.stored?.length ?? 0;
+    if (preview) return setPhase(count === 0 ? "No row can be stored: see why below." : `${count} row${count === 1 ? "" : "s"} can be stored; ${body.rejected?.length ?? 0} refused. Nothing is stored until you confirm.`);
+    setCsv(null);
+    setPhase(`Stored ${count} run${count === 1 ? "" : "s"}.`);
+    router.refresh();
   };
 
-  const choose = (file: File | undefined) => {
-    if (!file) return;
+  const choose = async (file: File | undefined) => {
     setReport(null);
-    setProgress(0);
-    let rows = 0;
-    Papa.parse<string[]>(file, {
-      skipEmptyLines: "greedy",
-      step: (row) => {
-        rows += 1;
-        setProgress(Math.round((100 * row.meta.cursor) / Math.max(file.size, 1) * 0.8));
-      },
-      complete: async () => {
-        setPhase(`Read ${Math.max(rows - 1, 0)} data rows.`);
-        await send(await file.text());
-      },
-      error: (err) => setPhase(`The file could not be read: ${err.message}`),
-    });
+    setCsv(null);
+    if (!file) return;
+    const text = await file.text();
+    setCsv(text);
+    await send(text, true);
   };
 
+  const rows = [
+    ...(report?.stored ?? []).map((r) => ({ line: r.line, outcome: EVIDENCE_LABELS[r.status], why: r.finding, ok: true })),
+    ...(report?.rejected ?? []).map((r) => ({ line: r.line, outcome: "Refused", why: r.reasons.join(" "), ok: false })),
+  ].sort((a, b) => a.line - b.line);
   return (
     <div className="space-y-2" aria-label="Import lab runs" role="group">
       <h3 className="text-sm font-semibold">Import runs from a CSV file</h3>
-      <p className="text-xs text-ink-soft">Columns: claim_id (or vendor and point), channel, unit (bits or frames), trials, errors, confidence, note. Rows without a claim count for this one.</p>
+      <p className="text-xs text-ink-soft">
+        Columns: claim_id (or vendor and point), channel, unit (bits or frames), trials, errors, confidence, note. Rows without a claim count for this one; rows without a channel are at the claim&apos;s.{" "}
+        <a href={`data:text/csv;charset=utf-8,${encodeURIComponent(template)}`} download="lab-runs-template.csv">Download a template</a>
+      </p>
       <label className="label" htmlFor="csv-file">CSV file</label>
       <input id="csv-file" type="file" accept=".csv,text/csv" className="text-sm" onChange={(e) => choose(e.target.files?.[0])} />
-      {progress !== null ? <progress aria-label="Import progress" max={100} value={progress} className="w-full" /> : null}
       {phase ? <p role="status" className="text-sm">{phase}</p> : null}
-      {report?.rejected && report.rejected.length > 0 ? (
-        <table className="data-table" aria-label="Rejected rows">
-          <thead><tr><th>Line</th><th>Why it was refused</th></tr></thead>
-          <tbody>{report.rejected.map((r) => <tr key={r.line}><td className="tabular-nums">{r.line}</td><td>{r.reasons.join(" ")}</td></tr>)}</tbody>
+      {rows.length > 0 ? (
+        <table className="data-table" aria-label={report?.preview ? "Rows to import" : "Imported rows"}>
+          <thead><tr><th>Line</th><th>Outcome</th><th>Why</th></tr></thead>
+          <tbody>{rows.map((r) => <tr key={r.line} data-ok={r.ok}><td className="tabular-nums">{r.line}</td><td>{r.outcome}</td><td className="text-xs">{r.why}</td></tr>)}</tbody>
         </table>
+      ) : null}
+      {report?.preview && csv && (report.stored?.length ?? 0) > 0 ? (
+        <button type="button" className="btn" disabled={busy} onClick={() => send(csv, false)}>
+          Store {report.stored!.length} run{report.stored!.length === 1 ? "" : "s"}
+        </button>
       ) : null}
     </div>
   );

@@ -6,19 +6,23 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { MARKS } from "@/db/schema/evaluation";
 import { MARK_LABELS } from "@/lib/review/labels";
+import { JUSTIFICATION_MIN } from "@/lib/review/marks";
+import type { Verdict } from "@/db/schema/offers";
 import { markSchema, type MarkInput } from "@/lib/validation/review";
 import type { FormResult } from "@/lib/server/form-action";
 import { markClaimAction } from "@/app/(app)/review/actions";
 import { FieldError, FormStatus } from "@/app/_components/form-status";
 
-export function MarkForm({ claimId }: { claimId: string }) {
+/** No mark is chosen for the engineer; accepting an impossible claim asks for a justification. */
+export function MarkForm({ claimId, verdict }: { claimId: string; verdict: Verdict }) {
   const [result, setResult] = useState<FormResult>({});
   const [pending, startTransition] = useTransition();
   const { register, handleSubmit, watch, reset, setError, formState } = useForm<z.input<typeof markSchema>, unknown, MarkInput>({
     resolver: zodResolver(markSchema),
-    defaultValues: { mark: "accepted", comment: "", subject: "" },
+    defaultValues: { mark: undefined, comment: "", subject: "" },
   });
   const chosen = watch("mark");
+  const overrides = chosen === "accepted" && verdict === "impossible";
   const submit = handleSubmit((values) =>
     startTransition(async () => {
       const outcome = await markClaimAction(claimId, values);
@@ -37,6 +41,7 @@ export function MarkForm({ claimId }: { claimId: string }) {
             <label key={m} className="inline-flex items-center gap-1"><input type="radio" value={m} {...register("mark")} /> {MARK_LABELS[m]}</label>
           ))}
         </div>
+        <FieldError message={errors.mark?.message} />
       </fieldset>
       {chosen === "clarification-requested" ? (
         <div>
@@ -46,8 +51,16 @@ export function MarkForm({ claimId }: { claimId: string }) {
         </div>
       ) : null}
       <div>
-        <label className="label" htmlFor="mark-comment">{chosen === "clarification-requested" ? "Question to the vendor" : "Comment"}{chosen === "accepted" ? " (optional)" : ""}</label>
-        <textarea id="mark-comment" rows={3} className="field" {...register("comment")} />
+        <label className="label" htmlFor="mark-comment">
+          {chosen === "clarification-requested" ? "Question to the vendor" : overrides ? "Justification" : "Comment"}
+          {chosen === "accepted" && !overrides ? " (optional)" : ""}
+        </label>
+        {overrides ? (
+          <p className="text-xs text-ink-soft" id="mark-comment-help">
+            The engine found this claim impossible. Accepting it needs a written justification of at least {JUSTIFICATION_MIN} characters, and is flagged on the Comparison, the Sign-off tab and the memo.
+          </p>
+        ) : null}
+        <textarea id="mark-comment" rows={3} className="field" aria-describedby={overrides ? "mark-comment-help" : undefined} {...register("comment")} />
         <FieldError message={errors.comment?.message} />
       </div>
       <FormStatus result={result} />

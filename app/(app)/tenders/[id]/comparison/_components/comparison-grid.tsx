@@ -5,7 +5,7 @@ import type { ColDef, ColGroupDef, GridApi, ValueFormatterParams } from "ag-grid
 import { DataGrid } from "@/app/_components/data-grid";
 import { VerdictBadge, type Verdict } from "@/app/_components/verdict-badge";
 import { formatMoney } from "@/lib/format";
-import { comparisonRows, CRITERIA, CRITERION_LABELS, type ComparisonRow, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
+import { comparisonRows, CRITERIA, CRITERION_LABELS, csvCell, type ComparisonRow, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
 
 const score = (p: ValueFormatterParams<ComparisonRow>) => (p.value == null ? "–" : Number(p.value).toFixed(1));
 const numeric = { type: "rightAligned", filter: "agNumberColumnFilter", width: 110 } as const;
@@ -49,7 +49,8 @@ function columnsFor(input: ScoringInput, currency: string): (ColDef<ComparisonRo
     {
       headerName: "Commercial",
       children: [
-        { field: "totalPrice", headerName: `Total price (${currency})`, ...numeric, width: 160, valueFormatter: money },
+        // Total price, total score and rank stay in view however far the grid scrolls.
+        { field: "totalPrice", headerName: `Total price (${currency})`, ...numeric, width: 160, valueFormatter: money, pinned: "right" },
         { field: "unitPrice", headerName: `Unit price (${currency})`, ...numeric, width: 140, valueFormatter: money },
         { field: "leadTimeWeeks", headerName: "Lead time (weeks)", ...numeric, width: 140 },
         { field: "warrantyMonths", headerName: "Warranty (months)", ...numeric, width: 140 },
@@ -65,8 +66,8 @@ function columnsFor(input: ScoringInput, currency: string): (ColDef<ComparisonRo
           valueFormatter: score,
           ...numeric,
         })),
-        { field: "total", headerName: "Total", ...numeric, width: 100, valueFormatter: score },
-        { field: "rank", headerName: "Rank", ...numeric, width: 90, valueFormatter: (p) => (p.value == null ? "–" : String(p.value)) },
+        { field: "total", headerName: "Total", ...numeric, width: 100, valueFormatter: score, pinned: "right" },
+        { field: "rank", headerName: "Rank", ...numeric, width: 80, valueFormatter: (p) => (p.value == null ? "–" : String(p.value)), pinned: "right" },
         { field: "status", headerName: "Status", filter: true, width: 260, tooltipField: "status" },
       ],
     },
@@ -90,7 +91,8 @@ export function ComparisonGrid({
   const [api, setApi] = useState<GridApi<ComparisonRow> | null>(null);
   const rows = useMemo(() => comparisonRows(input, sheet), [input, sheet]);
   const columns = useMemo(() => columnsFor(input, sheet.currency), [input, sheet.currency]);
-  const exportCsv = () => api?.exportDataAsCsv({ fileName: `${reference}-comparison.csv`, skipColumnGroupHeaders: true });
+  const exportCsv = () =>
+    api?.exportDataAsCsv({ fileName: `${reference}-comparison.csv`, skipColumnGroupHeaders: true, processCellCallback: (p) => csvCell(p.value) });
 
   return (
     <section className="space-y-2" aria-label="Comparison">

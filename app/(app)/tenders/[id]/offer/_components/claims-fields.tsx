@@ -5,9 +5,8 @@ import { errorAt, FieldError } from "@/app/(app)/tenders/_components/field-error
 import { formatCondition } from "@/lib/format";
 import type { ChannelModel } from "@/lib/offers";
 import type { OfferFormValues } from "@/lib/validation/offer";
+import { formDecimal, formOptionalDecimal } from "@/lib/numbers";
 
-const toNumber = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : Number(v));
-const toNullable = (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v));
 
 function ClaimRow({ index, label, condition, allowNcg }: { index: number; label: string; condition: string; allowNcg: boolean }) {
   const { register, control, formState } = useFormContext<OfferFormValues>();
@@ -33,13 +32,13 @@ function ClaimRow({ index, label, condition, allowNcg }: { index: number; label:
       </div>
       <div>
         <label className="label" htmlFor={id("value")}>{metric === "ncg" ? "Gain (dB)" : "Claimed value"}</label>
-        <input id={id("value")} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err("value"))} aria-describedby={`${id("value")}-error`} {...register(`claims.${index}.value`, { setValueAs: toNumber })} />
+        <input id={id("value")} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err("value"))} aria-describedby={`${id("value")}-error`} {...register(`claims.${index}.value`, { setValueAs: formDecimal })} />
         <FieldError id={`${id("value")}-error`} message={err("value")} />
       </div>
       {metric === "ncg" ? (
         <div>
           <label className="label" htmlFor={id("out")}>Output BER of the gain</label>
-          <input id={id("out")} className="field tabular-nums" inputMode="decimal" placeholder="e.g. 1e-15" aria-describedby={`${id("out")}-error`} {...register(`claims.${index}.ncgOutputBer`, { setValueAs: toNullable })} />
+          <input id={id("out")} className="field tabular-nums" inputMode="decimal" placeholder="e.g. 1e-15" aria-describedby={`${id("out")}-error`} {...register(`claims.${index}.ncgOutputBer`, { setValueAs: formOptionalDecimal })} />
           <FieldError id={`${id("out")}-error`} message={err("ncgOutputBer")} />
         </div>
       ) : null}
@@ -62,4 +61,3 @@ export function ClaimsFields({ model, points }: { model: ChannelModel; points: {
   );
 }
 
-export { toNullable, toNumber };

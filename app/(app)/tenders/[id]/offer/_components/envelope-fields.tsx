@@ -3,17 +3,17 @@
 import { useFieldArray, useFormContext } from "react-hook-form";
 import { errorAt, FieldError } from "@/app/(app)/tenders/_components/field-error";
 import type { OfferFormValues } from "@/lib/validation/offer";
-import { toNumber } from "./claims-fields";
+import { formCount, formDecimal } from "@/lib/numbers";
 
 /** The sealed commercial envelope: only the vendor and, once opened, the buyer ever read it. */
-export function EnvelopeFields() {
+export function EnvelopeFields({ currency }: { currency: string }) {
   const { register, control, formState } = useFormContext<OfferFormValues>();
   const { fields, append, remove } = useFieldArray({ control, name: "envelope.priceBreaks" });
   const err = (path: string) => errorAt(formState.errors, `envelope.${path}`);
   const numeric = (path: "unitPrice" | "leadTimeWeeks" | "warrantyMonths", label: string) => (
     <div>
       <label className="label" htmlFor={`env-${path}`}>{label}</label>
-      <input id={`env-${path}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err(path))} aria-describedby={`env-${path}-error`} {...register(`envelope.${path}`, { setValueAs: toNumber })} />
+      <input id={`env-${path}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err(path))} aria-describedby={`env-${path}-error`} {...register(`envelope.${path}`, { setValueAs: path === "unitPrice" ? formDecimal : formCount })} />
       <FieldError id={`env-${path}-error`} message={err(path)} />
     </div>
   );
@@ -24,8 +24,9 @@ export function EnvelopeFields() {
       <div className="grid gap-3 md:grid-cols-4">
         {numeric("unitPrice", "Unit price")}
         <div>
-          <label className="label" htmlFor="env-currency">Currency</label>
-          <input id="env-currency" className="field uppercase" maxLength={3} aria-describedby="env-currency-error" {...register("envelope.currency")} />
+          <span className="label" id="env-currency-label">Currency</span>
+          <p className="py-1.5 text-sm font-medium" aria-labelledby="env-currency-label" data-testid="offer-currency">{currency}, set by the tender</p>
+          <input type="hidden" {...register("envelope.currency")} />
           <FieldError id="env-currency-error" message={err("currency")} />
         </div>
         {numeric("leadTimeWeeks", "Lead time (weeks)")}
@@ -37,12 +38,12 @@ export function EnvelopeFields() {
           <div key={field.id} role="group" aria-label={`Price break ${i + 1}`} className="grid grid-cols-[10rem_10rem_auto] items-start gap-2">
             <div>
               <label className="sr-only" htmlFor={`pb-${i}-q`}>Break {i + 1} from quantity</label>
-              <input id={`pb-${i}-q`} className="field tabular-nums" placeholder="from units" inputMode="numeric" {...register(`envelope.priceBreaks.${i}.minQuantity`, { setValueAs: toNumber })} />
+              <input id={`pb-${i}-q`} className="field tabular-nums" placeholder="from units" inputMode="numeric" {...register(`envelope.priceBreaks.${i}.minQuantity`, { setValueAs: formCount })} />
               <FieldError id={`pb-${i}-q-error`} message={err(`priceBreaks.${i}.minQuantity`)} />
             </div>
             <div>
               <label className="sr-only" htmlFor={`pb-${i}-p`}>Break {i + 1} unit price</label>
-              <input id={`pb-${i}-p`} className="field tabular-nums" placeholder="unit price" inputMode="decimal" {...register(`envelope.priceBreaks.${i}.unitPrice`, { setValueAs: toNumber })} />
+              <input id={`pb-${i}-p`} className="field tabular-nums" placeholder="unit price" inputMode="decimal" {...register(`envelope.priceBreaks.${i}.unitPrice`, { setValueAs: formDecimal })} />
               <FieldError id={`pb-${i}-p-error`} message={err(`priceBreaks.${i}.unitPrice`)} />
             </div>
             <button type="button" className="btn-quiet" onClick={() => remove(i)} aria-label={`Remove price break ${i + 1}`}>Remove</button>

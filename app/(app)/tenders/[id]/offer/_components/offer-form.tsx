@@ -7,7 +7,8 @@ import { errorAt, FieldError } from "@/app/(app)/tenders/_components/field-error
 import type { ChannelModel } from "@/lib/offers";
 import { offerSchema, type OfferFormValues, type OfferInput } from "@/lib/validation/offer";
 import { submitOfferAction, type OfferFormResult } from "../actions";
-import { ClaimsFields, toNullable } from "./claims-fields";
+import { formOptionalCount, formOptionalDecimal } from "@/lib/numbers";
+import { ClaimsFields } from "./claims-fields";
 import { EnvelopeFields } from "./envelope-fields";
 
 interface Props {
@@ -44,7 +45,7 @@ export function OfferForm({ tenderId, model, points, defaults, resubmission }: P
   const codeNumber = (name: "n" | "k" | "rate" | "overhead", label: string) => (
     <div>
       <label className="label" htmlFor={`code-${name}`}>{label}</label>
-      <input id={`code-${name}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err(`code.${name}`))} aria-describedby={`code-${name}-error`} {...register(`code.${name}`, { setValueAs: toNullable })} />
+      <input id={`code-${name}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err(`code.${name}`))} aria-describedby={`code-${name}-error`} {...register(`code.${name}`, { setValueAs: name === "n" || name === "k" ? formOptionalCount : formOptionalDecimal })} />
       <FieldError id={`code-${name}-error`} message={err(`code.${name}`)} />
     </div>
   );
@@ -67,8 +68,9 @@ export function OfferForm({ tenderId, model, points, defaults, resubmission }: P
               <label className="label" htmlFor="code-decision">Decoder input</label>
               <select id="code-decision" className="field" {...register("code.decision")}>
                 <option value="hard">Hard decision</option>
-                <option value="soft">Soft decision</option>
+                <option value="soft" disabled={model === "bsc"}>Soft decision{model === "bsc" ? " (not on this hard-decision tender)" : ""}</option>
               </select>
+              <FieldError id="code-decision-error" message={err("code.decision")} />
             </div>
           </div>
           <p className="text-xs text-ink-soft">Give n and k, or a code rate, or an overhead (n/k − 1); n may accompany a rate or an overhead.</p>
@@ -80,7 +82,7 @@ export function OfferForm({ tenderId, model, points, defaults, resubmission }: P
           </div>
         </section>
         <ClaimsFields model={model} points={points} />
-        <EnvelopeFields />
+        <EnvelopeFields currency={defaults.envelope.currency} />
         <button type="submit" className="btn" disabled={pending}>
           {pending ? "Submitting…" : resubmission ? "Submit a new version" : "Submit offer"}
         </button>

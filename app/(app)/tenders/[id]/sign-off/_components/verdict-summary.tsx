@@ -1,6 +1,6 @@
 import { VerdictBadge } from "@/app/_components/verdict-badge";
-import { claimWords } from "@/lib/approvals/memo-content";
-import { MARK_LABELS } from "@/lib/review/labels";
+import { claimWords, reviewWords } from "@/lib/approvals/memo-content";
+import { acceptedAgainstImpossible } from "@/lib/review/marks";
 import type { AwardSignOff } from "@/lib/server/award-sign-off";
 
 type Offers = NonNullable<AwardSignOff["offers"]>;
@@ -21,7 +21,7 @@ export function VerdictSummary({ offers }: { offers: Offers }) {
                 <td>{c.point}</td>
                 <td className="tabular-nums">{claimWords(c)}</td>
                 <td><VerdictBadge verdict={c.verdict} /></td>
-                <td className="text-ink-soft">{c.mark ? MARK_LABELS[c.mark] : "Not marked"}</td>
+                <td className={acceptedAgainstImpossible(c) ? "font-medium text-verdict-impossible" : "text-ink-soft"} data-flag={acceptedAgainstImpossible(c) || undefined}>{reviewWords(c)}</td>
               </tr>
             )),
           )}

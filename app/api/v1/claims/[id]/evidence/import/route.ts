@@ -4,26 +4,27 @@ import { importEvidence } from "@/lib/server/evidence";
 import { requireViewer } from "@/lib/server/session";
 import { evidenceImportSchema } from "@/lib/validation/review";
 
-/** The CSV as a multipart "file" field, or as JSON { csv }. */
-async function readCsv(request: Request): Promise<string> {
+/** The CSV as a multipart "file" field (with "preview" set to "true" for a preview), or as JSON { csv, preview }. */
+async function readCsv(request: Request): Promise<{ csv: string; preview: boolean }> {
   if (!(request.headers.get("content-type") ?? "").startsWith("multipart/form-data")) {
-    return (await readJson(request, evidenceImportSchema)).csv;
+    return readJson(request, evidenceImportSchema);
   }
   if (Number(request.headers.get("content-length") ?? 0) > MAX_JSON_BYTES) throw new AppError("The file is larger than 1 MB.", 413);
   const form = await request.formData().catch(() => null);
   const file = form?.get("file");
   if (!file || typeof file === "string") throw new InputError("Attach the CSV file as the field \"file\".", { file: ["Choose a CSV file."] });
   if (file.size > MAX_JSON_BYTES) throw new AppError("The file is larger than 1 MB.", 413);
-  const parsed = evidenceImportSchema.safeParse({ csv: await file.text() });
+  const parsed = evidenceImportSchema.safeParse({ csv: await file.text(), preview: form?.get("preview") === "true" });
   if (!parsed.success) throw new InputError("The file is empty.", { file: ["The file is empty."] });
-  return parsed.data.csv;
+  return parsed.data;
 }
 
-/** 201 when rows were stored (the rejected ones listed), 422 when no row could be stored. */
+/** A preview answers 200 with every row's outcome; an import 201 when rows were stored (the rejected ones listed), 422 when none could be. */
 export const POST = jsonRoute(async (request, { params }: { params: Promise<{ id: string }> }) => {
   const viewer = await requireViewer(request.headers);
-  const csv = await readCsv(request);
-  const outcome = await importEvidence(viewer, (await params).id, csv);
+  const { csv, preview } = await readCsv(request);
+  const outcome = await importEvidence(viewer, (await params).id, csv, { preview });
+  if (preview) return Response.json(outcome, { status: 200 });
   if (outcome.stored.length === 0) {
     return Response.json({ error: "No row of the file could be stored.", ...outcome }, { status: 422 });
   }
