@@ -28,10 +28,14 @@ const envSchema = z.object({
   SEED: optional(z.enum(["demo", "none"])),
   /** A production build that runs as a demo: local fakes, demo data, a "demo" marker on every page. */
   DEMO: flag,
+  /** Worker threads for the bounds engine (lib/runtime/engine-pool.ts). */
+  ENGINE_WORKERS: optional(z.coerce.number().int().min(1).max(32)).transform((v) => v ?? 2),
+  /** How long one request may wait for the engine, queue included, before it is stopped and answered with an error. */
+  ENGINE_DEADLINE_MS: optional(z.coerce.number().int().min(100).max(600_000)).transform((v) => v ?? 10_000),
+  /** Tests only (ignored unless NODE_ENV=test): every engine task first spins this long, like a claim that never ends. */
+  ENGINE_TEST_DELAY_MS: optional(z.coerce.number().int().min(0).max(600_000)),
   /** Set by the starter (lib/runtime/start.ts) for the server it runs: that process holds the data folder. */
   RATECOURT_DATA_LOCK_PID: optional(z.coerce.number().int().positive()),
-  /** Where the local SMTP fake keeps the captured mail (shared by the fake and the Mailroom). */
-  RATECOURT_MAIL_CAPTURE_FILE: optional(z.string()),
   /** Read by the Next.js build and the starter, never by the app; listed so that typos show. */
   NEXT_PHASE: optional(z.string()),
 });
