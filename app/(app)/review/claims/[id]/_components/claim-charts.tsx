@@ -1,9 +1,10 @@
 import { ChannelChart, RateChart } from "@/app/_components/bound-charts";
 import { claimResultSchema } from "@/lib/bounds";
-import { boundViewOfResult, buildBoundCharts } from "@/lib/explorer";
+import { boundViewOfResult } from "@/lib/explorer";
+import { boundCharts } from "@/lib/server/engine";
 
 /** The claim against the bounds at its own n and k, with the same charts as the Bound explorer. */
-export function ClaimCharts({ result }: { result: unknown }) {
+export async function ClaimCharts({ result }: { result: unknown }) {
   const parsed = claimResultSchema.safeParse(result);
   const view = parsed.success ? boundViewOfResult(parsed.data) : null;
   if (!view) {
@@ -14,7 +15,7 @@ export function ClaimCharts({ result }: { result: unknown }) {
       </section>
     );
   }
-  const charts = buildBoundCharts(view);
+  const { charts, refusal } = await boundCharts(view);
   const query = new URLSearchParams({ model: view.model, x: String(view.x), n: String(view.n), k: String(view.k), target: String(view.target) });
   return (
     <section className="panel space-y-3" aria-label="Charts">
@@ -22,10 +23,14 @@ export function ClaimCharts({ result }: { result: unknown }) {
         <h2>The claim against the bounds</h2>
         <a href={`/explorer?${query}`} className="text-sm">Open in the Bound explorer</a>
       </div>
-      <div className="grid gap-5 lg:grid-cols-2">
-        <ChannelChart charts={charts} />
-        <RateChart charts={charts} />
-      </div>
+      {charts ? (
+        <div className="grid gap-5 lg:grid-cols-2">
+          <ChannelChart charts={charts} />
+          <RateChart charts={charts} />
+        </div>
+      ) : (
+        <p role="alert" className="text-sm text-verdict-impossible">{refusal}</p>
+      )}
     </section>
   );
 }
