@@ -28,6 +28,8 @@ const envSchema = z.object({
   SEED: optional(z.enum(["demo", "none"])),
   /** A production build that runs as a demo: local fakes, demo data, a "demo" marker on every page. */
   DEMO: flag,
+  /** Where the running server writes backups (default: a folder beside the data folder, <DATA_DIR>-backups). */
+  BACKUP_DIR: optional(z.string()),
   /** Worker threads for the bounds engine (lib/runtime/engine-pool.ts). */
   ENGINE_WORKERS: optional(z.coerce.number().int().min(1).max(32)).transform((v) => v ?? 2),
   /** How long one request may wait for the engine, queue included, before it is stopped and answered with an error. */
@@ -42,7 +44,8 @@ const envSchema = z.object({
 
 type RawEnv = z.infer<typeof envSchema>;
 
-export type Env = RawEnv & {
+export type Env = Omit<RawEnv, "BACKUP_DIR"> & {
+  BACKUP_DIR: string;
   /** Development, tests, or a production build started with DEMO=1. */
   demoMode: boolean;
   /** Whether the demo scenario is loaded into an empty database. */
@@ -66,6 +69,7 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
   const demoMode = raw.NODE_ENV !== "production" || raw.DEMO;
   return {
     ...raw,
+    BACKUP_DIR: path.resolve(raw.BACKUP_DIR ?? `${raw.DATA_DIR}-backups`),
     demoMode,
     seedDemo: raw.SEED ? raw.SEED === "demo" : demoMode,
     appUrl: (raw.BETTER_AUTH_URL ?? `http://localhost:${raw.PORT}`).replace(/\/$/, ""),
