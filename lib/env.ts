@@ -1,4 +1,5 @@
 // The one reader of process.env: every setting is parsed here, with zod, and nowhere else.
+import os from "node:os";
 import path from "node:path";
 import { z } from "zod";
 
@@ -30,8 +31,8 @@ const envSchema = z.object({
   DEMO: flag,
   /** Where the running server writes backups (default: a folder beside the data folder, <DATA_DIR>-backups). */
   BACKUP_DIR: optional(z.string()),
-  /** Worker threads for the bounds engine (lib/runtime/engine-pool.ts). */
-  ENGINE_WORKERS: optional(z.coerce.number().int().min(1).max(32)).transform((v) => v ?? 2),
+  /** Worker threads for the bounds engine (lib/runtime/engine-pool.ts); by default one core is left to serve requests. */
+  ENGINE_WORKERS: optional(z.coerce.number().int().min(1).max(32)).transform((v) => v ?? Math.max(1, Math.min(8, os.availableParallelism() - 1))),
   /** How long one request may wait for the engine, queue included, before it is stopped and answered with an error. */
   ENGINE_DEADLINE_MS: optional(z.coerce.number().int().min(100).max(600_000)).transform((v) => v ?? 10_000),
   /** Tests only (ignored unless NODE_ENV=test): every engine task first spins this long, like a claim that never ends. */
