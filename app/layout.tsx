@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import localFont from "next/font/local";
+import { DemoMarker } from "./_components/demo-marker";
 import "./globals.css";
 
 // Inter ships inside the app from its npm package; nothing is fetched at build or run time.
@@ -18,7 +19,10 @@ export const metadata: Metadata = {
 export default function RootLayout({ children }: { children: React.ReactNode }) {
   return (
     <html lang="en" className={sans.variable}>
-      <body className="min-h-screen font-sans">{children}</body>
+      <body className="min-h-screen font-sans">
+        {children}
+        <DemoMarker />
+      </body>
     </html>
   );
 }

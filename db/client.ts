@@ -2,6 +2,7 @@ import "server-only";
 import { count } from "drizzle-orm";
 import path from "node:path";
 import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
+import type { PGliteInterface } from "@electric-sql/pglite";
 import { env } from "@/lib/env";
 import { holdDataFolder } from "@/lib/runtime/data-lock";
 import * as schema from "./schema/index";
@@ -15,6 +16,8 @@ export type Queryable = Db | Tx;
 interface Handle {
   db: Db;
   close: () => Promise<void>;
+  /** The embedded database itself, when there is one (backups dump it). */
+  pglite?: PGliteInterface;
 }
 
 /** The data folder: PGlite's files and the local object store live below it. */
@@ -40,7 +43,7 @@ async function openPglite(): Promise<Handle> {
   }
   const db = drizzle(client, { schema });
   await migrate(db, { migrationsFolder: migrationsFolder() });
-  return { db: db as unknown as Db, close: () => client.close() };
+  return { db: db as unknown as Db, close: () => client.close(), pglite: client };
 }
 
 async function openServer(url: string): Promise<Handle> {
@@ -90,6 +93,12 @@ export async function getDb(): Promise<Db> {
     throw error;
   });
   return (await holder[KEY]).db;
+}
+
+/** The process's embedded database, or null when DATABASE_URL names a PostgreSQL server. */
+export async function embeddedDatabase(): Promise<PGliteInterface | null> {
+  await getDb();
+  return (await holder[KEY])?.pglite ?? null;
 }
 
 /** Closes the process's database (tests and scripts). */

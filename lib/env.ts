@@ -1,4 +1,5 @@
 // The one reader of process.env: every setting is parsed here, with zod, and nowhere else.
+import os from "node:os";
 import path from "node:path";
 import { z } from "zod";
 
@@ -29,17 +30,24 @@ const envSchema = z.object({
   SEED: optional(z.enum(["demo", "none"])),
   /** A production build that runs as a demo: local fakes, demo data, a "demo" marker on every page. */
   DEMO: flag,
+  /** Where the running server writes backups (default: a folder beside the data folder, <DATA_DIR>-backups). */
+  BACKUP_DIR: optional(z.string()),
+  /** Worker threads for the bounds engine (lib/runtime/engine-pool.ts); by default one core is left to serve requests. */
+  ENGINE_WORKERS: optional(z.coerce.number().int().min(1).max(32)).transform((v) => v ?? Math.max(1, Math.min(8, os.availableParallelism() - 1))),
+  /** How long one request may wait for the engine, queue included, before it is stopped and answered with an error. */
+  ENGINE_DEADLINE_MS: optional(z.coerce.number().int().min(100).max(600_000)).transform((v) => v ?? 10_000),
+  /** Tests only (ignored unless NODE_ENV=test): every engine task first spins this long, like a claim that never ends. */
+  ENGINE_TEST_DELAY_MS: optional(z.coerce.number().int().min(0).max(600_000)),
   /** Set by the starter (lib/runtime/start.ts) for the server it runs: that process holds the data folder. */
   RATECOURT_DATA_LOCK_PID: optional(z.coerce.number().int().positive()),
-  /** Where the local SMTP fake keeps the captured mail (shared by the fake and the Mailroom). */
-  RATECOURT_MAIL_CAPTURE_FILE: optional(z.string()),
   /** Read by the Next.js build and the starter, never by the app; listed so that typos show. */
   NEXT_PHASE: optional(z.string()),
 });
 
 type RawEnv = z.infer<typeof envSchema>;
 
-export type Env = RawEnv & {
+export type Env = Omit<RawEnv, "BACKUP_DIR"> & {
+  BACKUP_DIR: string;
   /** Development, tests, or a production build started with DEMO=1. */
   demoMode: boolean;
   /** Whether the demo scenario is loaded into an empty database. */
@@ -63,6 +71,7 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
   const demoMode = raw.NODE_ENV !== "production" || raw.DEMO;
   return {
     ...raw,
+    BACKUP_DIR: path.resolve(raw.BACKUP_DIR ?? `${raw.DATA_DIR}-backups`),
     demoMode,
     seedDemo: raw.SEED ? raw.SEED === "demo" : demoMode,
     appUrl: (raw.BETTER_AUTH_URL ?? `http://localhost:${raw.PORT}`).replace(/\/$/, ""),

@@ -69,6 +69,7 @@ export interface MemoRecord { tenderId: string }
 export type MemoCheckRecord = object;
 export type MailroomRecord = object;
 export type BoundsRecord = object;
+export type BackupRecord = object;
 
 export interface SubjectRecords {
   Organisation: OrganisationRecord;
@@ -92,6 +93,7 @@ export interface SubjectRecords {
   MemoCheck: MemoCheckRecord;
   Mailroom: MailroomRecord;
   Bounds: BoundsRecord;
+  Backup: BackupRecord;
 }
 
 // Compile-time check that every subject has a record shape and nothing else does.

@@ -56,6 +56,7 @@ export const SUBJECTS = [
   "MemoCheck",
   "Mailroom",
   "Bounds",
+  "Backup",
 ] as const;
 export type SubjectType = (typeof SUBJECTS)[number];
 

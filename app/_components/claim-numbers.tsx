@@ -13,9 +13,13 @@ function parse(result: unknown): ClaimResult | null {
   return parsed.success ? parsed.data : null;
 }
 
+// A claim the engine did not finish in time is stored with its findings only.
+const findingsOnly = claimResultSchema.pick({ findings: true });
+
 /** The findings in words, each with the published result behind it. */
 export function ClaimFindings({ result }: { result: unknown }) {
-  const r = parse(result);
+  const parsed = findingsOnly.safeParse(result);
+  const r = parsed.success ? parsed.data : null;
   return (
     <section className="panel" aria-label="Findings">
       <h2>Findings</h2>

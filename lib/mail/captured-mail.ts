@@ -1,5 +1,6 @@
 import { mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
+import { localEndpoints } from "../runtime/local-endpoints";
 
 // Mail the local fake SMTP server received; the Mailroom page (development only) lists it.
 export type CapturedMail = {
@@ -15,13 +16,6 @@ export type CapturedMail = {
 
 export const MAX_CAPTURED_MAIL = 500;
 
-/**
- * When set, captured mail lives in this JSON file instead of process memory. The fake SMTP
- * server may run in the process that starts Next while pages render in another one; both
- * inherit this variable from startLocalServices and so read and write the same list.
- */
-export const MAIL_CAPTURE_FILE_ENV = "MAIL_CAPTURE_FILE";
-
 // Next.js can load this module twice in one process; one list must serve both copies.
 const STORE_KEY = Symbol.for("ratecourt.mail.captured");
 type Store = { messages: CapturedMail[] };
@@ -32,8 +26,9 @@ function memoryStore(): Store {
   return holder[STORE_KEY];
 }
 
+/** The data folder's mailroom file while the local SMTP fake runs (it survives restarts), else memory. */
 function captureFile(): string | undefined {
-  return process.env[MAIL_CAPTURE_FILE_ENV] || undefined;
+  return localEndpoints().mailCaptureFile;
 }
 
 function readFromFile(file: string): CapturedMail[] {

@@ -1,5 +1,7 @@
 import nodemailer, { type Transporter } from "nodemailer";
 import { z } from "zod";
+import { env } from "../env";
+import { localEndpoints } from "../runtime/local-endpoints";
 
 export const DEFAULT_MAIL_FROM = "Ratecourt <noreply@ratecourt.invalid>";
 
@@ -23,11 +25,12 @@ export type RetryPolicy = {
 
 export const DEFAULT_RETRY: RetryPolicy = { attempts: 4, backoffMs: 1000 };
 
-/** Read at each send: startLocalServices sets SMTP_URL after this module may have loaded. */
+/** The operator's mail server (SMTP_URL), else the local fake while it runs; read at each send. */
 export function getMailConfig(): { smtpUrl: string | undefined; from: string } {
+  const settings = env();
   return {
-    smtpUrl: process.env.SMTP_URL || undefined,
-    from: process.env.MAIL_FROM || DEFAULT_MAIL_FROM,
+    smtpUrl: settings.SMTP_URL ?? localEndpoints().smtpUrl,
+    from: settings.MAIL_FROM ?? DEFAULT_MAIL_FROM,
   };
 }
 
@@ -61,7 +64,7 @@ function transportFor(smtpUrl: string): Transporter {
 export async function sendMail(message: MailMessage): Promise<{ messageId: string }> {
   const parsed = mailMessageSchema.parse(message);
   const { smtpUrl, from } = getMailConfig();
-  if (!smtpUrl) throw new Error("SMTP_URL is not set: no mail server to send through");
+  if (!smtpUrl) throw new Error("No mail server to send through: set SMTP_URL, or run in demo mode where the local one starts with the server");
   const info = await transportFor(smtpUrl).sendMail({ from, ...parsed });
   return { messageId: String(info.messageId) };
 }

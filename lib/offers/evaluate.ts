@@ -1,7 +1,14 @@
-// Computes every claim's verdict with the bounds engine before anything is stored.
-import { claimSchema, evaluateClaim, type ClaimResult } from "@/lib/bounds";
+import { claimSchema, ENGINE_VERSION, evaluateClaim, type ClaimInput, type ClaimResult } from "@/lib/bounds";
 import { claimInputFor, type ClaimMetric, type OfferClaim, type OfferCode } from "./claim-input";
 import { termsErrors, type TenderTerms, type VerdictName } from "./rules";
+
+/** What is stored for a claim the engine did not finish (past the deadline): no verdict of its own. */
+export interface UnfinishedResult {
+  verdict: "needs-evidence";
+  findings: ClaimResult["findings"];
+  engineError: string;
+  engineVersion: string;
+}
 
 export interface EvaluatedClaim {
   pointIndex: number;
@@ -11,7 +18,7 @@ export interface EvaluatedClaim {
   value: number;
   ncgOutputBer: number | null;
   verdict: VerdictName;
-  result: ClaimResult;
+  result: ClaimResult | UnfinishedResult;
   engineVersion: string;
 }
 
@@ -21,6 +28,14 @@ export interface OfferTerms {
   envelope: { currency: string };
 }
 
+/** One claim of an offer, ready for the engine. */
+export interface PreparedClaim {
+  claim: OfferClaim & { pointIndex: number };
+  point: TenderTerms["operatingPoints"][number];
+  input: ClaimInput;
+}
+
+export type PreparedOffer = { ok: true; claims: PreparedClaim[] } | { ok: false; fieldErrors: Record<string, string[]> };
 export type Evaluation = { ok: true; claims: EvaluatedClaim[] } | { ok: false; fieldErrors: Record<string, string[]> };
 
 /** Where an engine input error belongs on the offer form: code fields on the code, the rest on the claim. */
@@ -30,11 +45,11 @@ function fieldOf(path: PropertyKey[], index: number, metric: ClaimMetric): strin
   return `claims.${index}.value`;
 }
 
-/** Checks the submission against the tender, then evaluates each claim at its operating point. */
-export function evaluateOffer(tender: TenderTerms, input: OfferTerms): Evaluation {
+/** The tender's terms and the engine's input rules, checked before any claim is evaluated. */
+export function prepareOffer(tender: TenderTerms, input: OfferTerms): PreparedOffer {
   const fieldErrors = termsErrors(tender, input);
   if (Object.keys(fieldErrors).length > 0) return { ok: false, fieldErrors };
-  const claims: EvaluatedClaim[] = [];
+  const claims: PreparedClaim[] = [];
   input.claims.forEach((claim, i) => {
     const point = tender.operatingPoints[claim.pointIndex];
     const parsed = claimSchema.safeParse(claimInputFor(tender.channelModel, point.value, input.code, claim));
@@ -42,19 +57,39 @@ export function evaluateOffer(tender: TenderTerms, input: OfferTerms): Evaluatio
       for (const issue of parsed.error.issues) (fieldErrors[fieldOf(issue.path, i, claim.metric)] ??= []).push(issue.message);
       return;
     }
-    const result = evaluateClaim(parsed.data);
-    claims.push({
-      pointIndex: claim.pointIndex,
-      pointLabel: point.label,
-      channelValue: point.value,
-      metric: claim.metric,
-      value: claim.value,
-      ncgOutputBer: claim.metric === "ncg" ? (claim.ncgOutputBer ?? null) : null,
-      verdict: result.verdict,
-      result,
-      engineVersion: result.engineVersion,
-    });
+    claims.push({ claim, point, input: parsed.data });
   });
   if (Object.keys(fieldErrors).length > 0) return { ok: false, fieldErrors };
-  return { ok: true, claims: claims.sort((a, b) => a.pointIndex - b.pointIndex) };
+  return { ok: true, claims: claims.sort((a, b) => a.claim.pointIndex - b.claim.pointIndex) };
+}
+
+/** A prepared claim with the engine's result, or with the reason it has none (stored as needing evidence). */
+export function evaluatedClaim({ claim, point }: PreparedClaim, outcome: ClaimResult | { engineError: string }): EvaluatedClaim {
+  const result: ClaimResult | UnfinishedResult =
+    "engineError" in outcome
+      ? {
+          verdict: "needs-evidence",
+          findings: [{ code: "engine-unfinished", severity: "gap", message: outcome.engineError, source: "Ratecourt: the bounds engine's time limit per request" }],
+          engineError: outcome.engineError,
+          engineVersion: ENGINE_VERSION,
+        }
+      : outcome;
+  return {
+    pointIndex: claim.pointIndex,
+    pointLabel: point.label,
+    channelValue: point.value,
+    metric: claim.metric,
+    value: claim.value,
+    ncgOutputBer: claim.metric === "ncg" ? (claim.ncgOutputBer ?? null) : null,
+    verdict: result.verdict,
+    result,
+    engineVersion: result.engineVersion,
+  };
+}
+
+/** The whole offer evaluated here and now (the demo data; requests use the worker pool instead). */
+export function evaluateOffer(tender: TenderTerms, input: OfferTerms): Evaluation {
+  const prepared = prepareOffer(tender, input);
+  if (!prepared.ok) return prepared;
+  return { ok: true, claims: prepared.claims.map((item) => evaluatedClaim(item, evaluateClaim(item.input))) };
 }

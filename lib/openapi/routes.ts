@@ -99,4 +99,5 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/tenders/{id}/memo/preview", tag: "Memo", summary: "Preview the award memo before approval", produces: "application/pdf" },
   { method: "post", path: "/memo-check", tag: "Memo", summary: "Check a memo file or fingerprint", body: fingerprintSchema, upload: { file: "the memo PDF" }, public: true },
   { method: "get", path: "/ledger/verify", tag: "Ledger", summary: "Re-verify the whole ledger chain" },
+  { method: "post", path: "/backups", tag: "Operations", summary: "Back up the embedded database and object store while the server runs (admin)", created: true },
 ];

@@ -1,18 +1,23 @@
 import "server-only";
-import { claimSchema, evaluateClaim, formatClaimError, type ClaimResult } from "@/lib/bounds";
+import { claimSchema, formatClaimError, type ClaimResult } from "@/lib/bounds";
 import { fieldErrorsOf } from "@/lib/validation/messages";
+import { describeClaim, inEngine } from "./engine";
 import { authorize, type Viewer } from "./session";
 import { InputError } from "./errors";
 
 export const MAX_CLAIMS_PER_REQUEST = 1000;
 
-/** One claim, or an array of up to 1,000, judged by the bounds engine; every bad claim is named by its position. */
-export function evaluateClaims(viewer: Viewer, body: unknown): ClaimResult | ClaimResult[] {
+/**
+ * One claim, or an array of up to 1,000, judged by the bounds engine in the worker pool; every bad
+ * claim is named by its position, and so is a claim the engine could not finish in time.
+ */
+export async function evaluateClaims(viewer: Viewer, body: unknown): Promise<ClaimResult | ClaimResult[]> {
   authorize(viewer, "use", "Bounds");
   if (!Array.isArray(body)) {
     const parsed = claimSchema.safeParse(body);
     if (!parsed.success) throw new InputError(formatClaimError(parsed.error), fieldErrorsOf(parsed.error));
-    return evaluateClaim(parsed.data);
+    const [result] = await inEngine("claims", [parsed.data], () => `this claim (${describeClaim(parsed.data)})`, "It has no verdict: check its values for an extreme channel value, block length or target.");
+    return result;
   }
   if (body.length === 0) throw new InputError("Send one claim, or an array of 1 to 1000 claims.");
   if (body.length > MAX_CLAIMS_PER_REQUEST) {
@@ -28,5 +33,11 @@ export function evaluateClaims(viewer: Viewer, body: unknown): ClaimResult | Cla
     return null;
   });
   if (problems.length > 0) throw new InputError(problems.slice(0, 20).join("; "), fieldErrors);
-  return claims.map((claim) => evaluateClaim(claim!));
+  const valid = claims.map((claim) => claim!);
+  return inEngine(
+    "claims",
+    valid,
+    (error) => (error.started ? `claim [${error.done}] (${describeClaim(valid[error.done])})` : `these ${valid.length} claims`),
+    "No verdicts are returned for this batch: send that claim on its own, or leave it out.",
+  );
 }

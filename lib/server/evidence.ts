@@ -5,8 +5,9 @@ import { getDb, type Queryable } from "@/db/client";
 import { claims, evidenceRuns, offers } from "@/db/schema";
 import type { EvidenceResult } from "@/lib/bounds";
 import { assessRun, type EvidenceUnit } from "@/lib/review/evidence";
-import { validateEvidenceRows, type CsvClaim, type CsvReport, type ValidRow } from "@/lib/review/csv";
+import type { CsvClaim, CsvReport, ValidRow } from "@/lib/review/csv";
 import type { EvidenceRunInput } from "@/lib/validation/review";
+import { inEngine } from "./engine";
 import { ConflictError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
 import { claimJoin, loadClaim, type LoadedClaim } from "./review";
@@ -121,7 +122,7 @@ export async function importEvidence(viewer: Viewer, claimId: string, csv: strin
   const recordable: CsvClaim[] = rows
     .filter((r) => viewer.ability.can("record", runSubject(r.claim)))
     .map(({ claim: c, vendorName, tender }) => ({ ...c, vendorName, channelModel: tender.channelModel }));
-  const report = validateEvidenceRows(csv, recordable, claimId);
+  const report = await inEngine("csv", { csv, claims: recordable, fallbackId: claimId }, () => "checking this lab file", "Nothing was stored: split the file into smaller ones and import them one by one.");
   if (report.fileErrors.length > 0) throw new InputError(report.fileErrors.join(" "), { csv: report.fileErrors });
   const outcome = (row: ValidRow, id: string | null): ImportedRow => ({ line: row.line, id, claimId: row.claimId, status: row.result.status, upper: row.result.upper, finding: row.finding });
   if (options.preview) return { preview: true, stored: report.valid.map((row) => outcome(row, null)), rejected: report.rejected, fileErrors: [] };

@@ -4,9 +4,11 @@ import { asSubject, pickPermitted } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, offers, organisations } from "@/db/schema";
 import type { ClaimResult } from "@/lib/bounds";
-import { currentVersion, documentRecord, evaluateOffer, keyFinding, nextVersion, offerRecord, submissionRefusal, verdictSummary, type EvaluatedClaim, type OfferTenderState } from "@/lib/offers";
+import { currentVersion, documentRecord, evaluatedClaim, keyFinding, nextVersion, offerRecord, prepareOffer, submissionRefusal, verdictSummary, type EvaluatedClaim, type OfferTenderState, type PreparedClaim } from "@/lib/offers";
+import { isEngineDeadline, runEngine } from "@/lib/runtime/engine-pool";
 import type { OfferInput } from "@/lib/validation/offer";
 import { documentsFor, documentView, type DocumentRow } from "./documents";
+import { unfinishedMessage } from "./engine";
 import { ConflictError, InputError, NotFoundError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesOf, notify } from "./notify";
@@ -145,6 +147,25 @@ export async function writeOfferVersion(tx: Queryable, v: OfferVersionInput): Pr
   return row;
 }
 
+/**
+ * Each claim in the worker pool, all within the request's deadline. A claim the engine does not
+ * finish in time is kept, with the reason and without a verdict of its own (it needs evidence).
+ */
+async function evaluateClaimsOf(prepared: PreparedClaim[]): Promise<EvaluatedClaim[]> {
+  return Promise.all(
+    prepared.map(async (item) => {
+      try {
+        const [result] = await runEngine("claims", [item.input]);
+        return evaluatedClaim(item, result);
+      } catch (error) {
+        if (!isEngineDeadline(error)) throw error;
+        const what = `the claim at ${item.point.label}`;
+        return evaluatedClaim(item, { engineError: `${unfinishedMessage(error, what)} It is stored without a verdict of its own and needs evidence.` });
+      }
+    }),
+  );
+}
+
 /** Submits (or resubmits) the viewer's organisation's offer while the tender is open and before it closes. */
 export async function submitOffer(viewer: Viewer, tenderId: string, input: OfferInput, now = new Date()): Promise<OfferView> {
   const tender = await getTender(viewer, tenderId);
@@ -154,14 +175,15 @@ export async function submitOffer(viewer: Viewer, tenderId: string, input: Offer
   const vendorOrgId = viewer.actor.organisationId;
   const draft = { id: "new", tenderId, vendorOrgId, tenderState: tender.state, envelopeOpened: false };
   authorize(viewer, "submit", asSubject("Offer", draft), "Your organisation may not submit to this tender.");
-  const evaluation = evaluateOffer(tender, input);
-  if (!evaluation.ok) throw new InputError("The offer does not fit this tender: check the highlighted fields.", evaluation.fieldErrors);
+  const prepared = prepareOffer(tender, input);
+  if (!prepared.ok) throw new InputError("The offer does not fit this tender: check the highlighted fields.", prepared.fieldErrors);
+  const evaluated = await evaluateClaimsOf(prepared.claims);
 
   const db = await getDb();
   const row = await db.transaction((tx) =>
-    writeOfferVersion(tx, { tender, vendorOrgId, actor: ledgerActor(viewer), input, claims: evaluation.claims, at: now }),
+    writeOfferVersion(tx, { tender, vendorOrgId, actor: ledgerActor(viewer), input, claims: evaluated, at: now }),
   );
-  const summary = verdictSummary(evaluation.claims.map((c) => c.verdict));
+  const summary = verdictSummary(evaluated.map((c) => c.verdict));
   notify({
     to: await addressesOf(db, [vendorOrgId]),
     subject: `${tender.reference}: offer version ${row.version} received`,

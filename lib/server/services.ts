@@ -1,19 +1,19 @@
 import "server-only";
 import { dataDir } from "@/db/client";
 import { startLocalServices } from "@/lib/dev/services";
-
-// Read once at load, before the local fakes write their own addresses into the environment.
-const operatorSmtp = Boolean(process.env.SMTP_URL);
+import { env } from "@/lib/env";
 
 /**
- * Starts the local SMTP and S3 fakes inside this server process the first time mail or storage is
- * needed, unless the operator configured hosted services (SMTP_URL, S3_ENDPOINT).
+ * In demo mode, starts the local SMTP and S3 fakes inside this server process the first time mail
+ * or storage is needed, except where SMTP_URL / S3_ENDPOINT name hosted services. In production
+ * (not a demo) nothing starts: env() has already required those settings.
  */
 export async function ensureLocalServices(): Promise<void> {
+  if (!env().demoMode) return;
   await startLocalServices({ dataDir: dataDir() });
 }
 
-/** The Mailroom exists only while the local SMTP fake catches the mail. */
+/** The Mailroom exists only in demo mode while the local SMTP fake catches the mail. */
 export function mailroomEnabled(): boolean {
-  return !operatorSmtp;
+  return env().demoMode && !env().SMTP_URL;
 }

@@ -1,7 +1,6 @@
 // The fake S3 server is imported from "./fake-s3" directly, so route handlers never bundle it.
 export {
   DEFAULT_S3_BUCKET,
-  DEFAULT_S3_PORT,
   deleteObject,
   ensureBucket,
   getObject,

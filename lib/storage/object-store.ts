@@ -6,28 +6,37 @@ import {
   PutObjectCommand,
   S3Client,
 } from "@aws-sdk/client-s3";
+import { env } from "../env";
+import { localEndpoints } from "../runtime/local-endpoints";
 import { sha256Hex } from "./files";
 
-/** Where the local fake listens unless that port is taken (see lib/dev/services.ts). */
-export const DEFAULT_S3_PORT = 4569;
 export const DEFAULT_S3_BUCKET = "ratecourt";
-export const FAKE_S3_CREDENTIAL = "S3RVER";
 
 export type StorageConfig = {
   endpoint: string;
   bucket: string;
+  region: string;
   accessKeyId: string;
   secretAccessKey: string;
 };
 
-/** Read at each call: startLocalServices sets S3_ENDPOINT after this module may have loaded. */
+/** The operator's storage (S3_ENDPOINT and its keys), else the local object store while it runs; read at each call. */
 export function getStorageConfig(): StorageConfig {
-  return {
-    endpoint: process.env.S3_ENDPOINT || `http://127.0.0.1:${DEFAULT_S3_PORT}`,
-    bucket: process.env.S3_BUCKET || DEFAULT_S3_BUCKET,
-    accessKeyId: process.env.S3_ACCESS_KEY_ID || FAKE_S3_CREDENTIAL,
-    secretAccessKey: process.env.S3_SECRET_ACCESS_KEY || FAKE_S3_CREDENTIAL,
-  };
+  const settings = env();
+  if (settings.S3_ENDPOINT) {
+    return {
+      endpoint: settings.S3_ENDPOINT,
+      bucket: settings.S3_BUCKET ?? DEFAULT_S3_BUCKET,
+      region: settings.S3_REGION,
+      accessKeyId: settings.S3_ACCESS_KEY_ID ?? "",
+      secretAccessKey: settings.S3_SECRET_ACCESS_KEY ?? "",
+    };
+  }
+  const local = localEndpoints().objectStore;
+  if (!local) {
+    throw new Error("No object storage: set S3_ENDPOINT with S3_BUCKET and its keys, or run in demo mode where the local store starts with the server.");
+  }
+  return { ...local, region: "us-east-1" };
 }
 
 /** Thrown by getObject for a key that does not exist; route handlers answer 404. */
@@ -55,13 +64,13 @@ function state(): StorageState {
 }
 
 function clientFor(config: StorageConfig): S3Client {
-  const cacheKey = [config.endpoint, config.accessKeyId, config.secretAccessKey].join("\n");
+  const cacheKey = [config.endpoint, config.region, config.accessKeyId, config.secretAccessKey].join("\n");
   const { clients } = state();
   let client = clients.get(cacheKey);
   if (!client) {
     client = new S3Client({
       endpoint: config.endpoint,
-      region: "us-east-1",
+      region: config.region,
       forcePathStyle: true,
       credentials: { accessKeyId: config.accessKeyId, secretAccessKey: config.secretAccessKey },
       // The default checksums are not understood by every S3-compatible service (the fake

@@ -2,7 +2,7 @@ import type { Actor } from "../actor";
 import type { RuleBuilder } from "../types";
 import { READ } from "./shared";
 
-/** People, organisations and the approval-limit table; the ledger; no award decisions. */
+/** People, organisations and the approval-limit table; the ledger; backups; no award decisions. */
 export function adminRules({ can, cannot }: RuleBuilder, actor: Actor): void {
   can("manage", ["User", "Organisation", "ApprovalLimit"]);
   cannot("delete", ["User", "Organisation"]).because(
@@ -14,4 +14,5 @@ export function adminRules({ can, cannot }: RuleBuilder, actor: Actor): void {
   // The ledger is shown on the tender page, so the tender itself is readable too.
   can([...READ], ["Ledger", "Tender"]);
   can("use", "Mailroom");
+  can("create", "Backup");
 }

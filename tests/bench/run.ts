@@ -3,7 +3,7 @@
 import type { BenchCase, BenchRow } from "./types";
 
 // A module exports `benches` (each run timed here) or `report()` (it times itself and returns rows).
-const MODULES = ["./bounds.bench.ts", "./comparison.bench.ts"];
+const MODULES = ["./bounds.bench.ts", "./comparison.bench.ts", "./engine-pool.bench.ts"];
 
 function quantile(sorted: number[], q: number): number {
   return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];

@@ -14,6 +14,7 @@ import {
 } from "@/lib/mail";
 import { MAX_CAPTURED_MAIL, recordCapturedMail, type CapturedMail } from "@/lib/mail/captured-mail";
 import { startFakeSmtp, type FakeSmtp } from "@/lib/mail/fake-smtp";
+import { recordLocalEndpoints } from "@/lib/runtime/local-endpoints";
 
 let fake: FakeSmtp;
 
@@ -30,8 +31,6 @@ function sample(id: string): CapturedMail {
 }
 
 beforeAll(async () => {
-  delete process.env.MAIL_CAPTURE_FILE;
-  delete process.env.MAIL_FROM;
   fake = await startFakeSmtp({ port: 0, host: "127.0.0.1" });
 });
 
@@ -40,7 +39,7 @@ afterAll(async () => {
 });
 
 beforeEach(() => {
-  process.env.SMTP_URL = fake.url;
+  recordLocalEndpoints({ smtpUrl: fake.url, mailCaptureFile: undefined });
   clearCapturedMail();
 });
 
@@ -92,7 +91,7 @@ describe("queueMail", () => {
   });
 
   it("neither throws nor blocks when the server is unreachable, retries with backoff, then gives up", async () => {
-    process.env.SMTP_URL = await closedPortUrl();
+    recordLocalEndpoints({ smtpUrl: await closedPortUrl() });
     const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
 
     const before = performance.now();
@@ -120,7 +119,7 @@ describe("queueMail", () => {
       },
     });
     await new Promise<void>((resolve) => refusing.listen(0, "127.0.0.1", resolve));
-    process.env.SMTP_URL = `smtp://127.0.0.1:${(refusing.server.address() as AddressInfo).port}`;
+    recordLocalEndpoints({ smtpUrl: `smtp://127.0.0.1:${(refusing.server.address() as AddressInfo).port}` });
     const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
     try {
       queueMail({ to: "nobody@example.test", subject: "Refused", text: "x" }, { attempts: 4, backoffMs: 5_000 });
@@ -155,22 +154,22 @@ describe("captured store", () => {
     expect(listCapturedMail()).toEqual([]);
   });
 
-  it("goes through a file when MAIL_CAPTURE_FILE is set, for a server in another process", async () => {
+  it("goes through the data folder's file while the local fake records one, so the Mailroom survives restarts", async () => {
     const folder = mkdtempSync(path.join(tmpdir(), "ratecourt-mail-"));
     const file = path.join(folder, "nested", "mailroom.json");
-    process.env.MAIL_CAPTURE_FILE = file;
+    recordLocalEndpoints({ mailCaptureFile: file });
     try {
       await sendMail({ to: "v@example.test", subject: "On file", text: "" });
       expect(existsSync(file)).toBe(true);
       expect(listCapturedMail().map((mail) => mail.subject)).toEqual(["On file"]);
-      delete process.env.MAIL_CAPTURE_FILE;
+      recordLocalEndpoints({ mailCaptureFile: undefined });
       expect(listCapturedMail()).toEqual([]); // nothing went to memory
-      process.env.MAIL_CAPTURE_FILE = file;
+      recordLocalEndpoints({ mailCaptureFile: file });
       clearCapturedMail();
       expect(existsSync(file)).toBe(false);
       expect(listCapturedMail()).toEqual([]);
     } finally {
-      delete process.env.MAIL_CAPTURE_FILE;
+      recordLocalEndpoints({ mailCaptureFile: undefined });
       rmSync(folder, { recursive: true, force: true });
     }
   });

@@ -24,9 +24,6 @@ const as: Record<string, Headers> = {};
 const ENVELOPE = ["unitPrice", "leadTimeWeeks", "warrantyMonths", "priceBreaks"];
 
 beforeAll(async () => {
-  delete process.env.SMTP_URL;
-  delete process.env.S3_ENDPOINT;
-  delete process.env.MAIL_CAPTURE_FILE;
   services = await startLocalServices({ dataDir: mkdtempSync(path.join(tmpdir(), "rc-review-")), smtpPort: 0, s3Port: 0 });
   db = await freshDatabase();
   fx = await reviewFixtures(db);

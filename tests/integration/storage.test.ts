@@ -1,11 +1,12 @@
 import { randomBytes, createHash } from "node:crypto";
-import { mkdtempSync, rmSync } from "node:fs";
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import { createServer, type AddressInfo, type Server } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { startLocalServices } from "@/lib/dev/services";
+import { objectStoreCredentialsFile, startLocalServices } from "@/lib/dev/services";
 import { listCapturedMail, sendMail } from "@/lib/mail";
+import { localEndpoints, recordLocalEndpoints } from "@/lib/runtime/local-endpoints";
 import {
   checkPdfUpload,
   deleteObject,
@@ -19,18 +20,20 @@ import {
   sniffPdf,
 } from "@/lib/storage";
 import { startFakeS3, type FakeS3 } from "@/lib/storage/fake-s3";
+import { setEnv } from "../support/env";
 
 const ascii = (text: string) => new TextEncoder().encode(text);
 const MINIMAL_PDF = ascii("%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n");
 
 let folder: string;
 let fake: FakeS3;
+const credentials = { accessKeyId: "RCTESTKEY", secretAccessKey: "test-secret-for-this-file" };
+const useFake = () => recordLocalEndpoints({ objectStore: { endpoint: fake.endpoint, bucket: fake.bucket, ...credentials } });
 
 beforeAll(async () => {
   folder = mkdtempSync(path.join(tmpdir(), "ratecourt-storage-"));
-  fake = await startFakeS3({ port: 0, directory: path.join(folder, "objects") });
-  process.env.S3_ENDPOINT = fake.endpoint;
-  delete process.env.S3_BUCKET;
+  fake = await startFakeS3({ port: 0, directory: path.join(folder, "objects"), credentials });
+  useFake();
 });
 
 afterAll(async () => {
@@ -66,13 +69,13 @@ describe("object storage against the fake S3 server", () => {
   });
 
   it("creates a bucket that does not exist yet on first write", async () => {
-    process.env.S3_BUCKET = "ratecourt-second";
+    recordLocalEndpoints({ objectStore: { endpoint: fake.endpoint, bucket: "ratecourt-second", ...credentials } });
     try {
       await expect(getObject("a.txt")).rejects.toBeInstanceOf(ObjectNotFoundError);
       await putObject("a.txt", ascii("in the second bucket"), "text/plain");
       expect(new TextDecoder().decode(await getObject("a.txt"))).toBe("in the second bucket");
     } finally {
-      delete process.env.S3_BUCKET;
+      useFake();
     }
     await expect(getObject("a.txt")).rejects.toBeInstanceOf(ObjectNotFoundError);
   });
@@ -157,7 +160,7 @@ describe("startLocalServices", () => {
   it("refuses a busy port for the fake S3 server instead of crashing", async () => {
     const busy = await occupyPort();
     try {
-      await expect(startFakeS3({ port: portOf(busy), directory: path.join(folder, "busy") })).rejects.toMatchObject({
+      await expect(startFakeS3({ port: portOf(busy), directory: path.join(folder, "busy"), credentials })).rejects.toMatchObject({
         code: "EADDRINUSE",
       });
     } finally {
@@ -165,26 +168,22 @@ describe("startLocalServices", () => {
     }
   });
 
-  it("starts both fakes once (on free ports when the preferred ones are busy) and restores the environment", async () => {
-    const previousEndpoint = process.env.S3_ENDPOINT;
-    delete process.env.S3_ENDPOINT;
-    delete process.env.SMTP_URL;
-    delete process.env.MAIL_CAPTURE_FILE;
+  it("starts both fakes once (on free ports when the preferred ones are busy), records them in process state, never in the environment", async () => {
+    const environment = { ...process.env };
     const dataDir = path.join(folder, "data");
-
     const busySmtp = await occupyPort();
     const busyS3 = await occupyPort();
     const services = await startLocalServices({ dataDir, smtpPort: portOf(busySmtp), s3Port: portOf(busyS3) });
     try {
-      expect(services.smtpUrl).toMatch(/^smtp:\/\/127\.0\.0\.1:\d+$/);
-      expect(services.smtpUrl).not.toContain(`:${portOf(busySmtp)}`);
-      expect(services.s3Endpoint).not.toContain(`:${portOf(busyS3)}`);
+      const local = localEndpoints();
+      expect(local.smtpUrl).toMatch(/^smtp:\/\/127\.0\.0\.1:\d+$/);
+      expect(local.smtpUrl).not.toContain(`:${portOf(busySmtp)}`);
+      expect(local.objectStore?.endpoint).not.toContain(`:${portOf(busyS3)}`);
+      expect(local.objectStore?.endpoint).not.toBe(fake.endpoint);
+      expect(local.mailCaptureFile).toBe(path.join(dataDir, "mailroom.json"));
       expect(await startLocalServices({ dataDir: "elsewhere" })).toBe(services);
       expect(services.started).toEqual({ smtp: true, s3: true });
-      expect(process.env.SMTP_URL).toBe(services.smtpUrl);
-      expect(process.env.S3_ENDPOINT).toBe(services.s3Endpoint);
-      expect(services.s3Endpoint).not.toBe(previousEndpoint);
-      expect(process.env.MAIL_CAPTURE_FILE).toBe(path.join(dataDir, "mailroom.json"));
+      expect(process.env).toEqual(environment);
 
       await putObject("x/y.txt", ascii("through the started fake"), "text/plain");
       expect(new TextDecoder().decode(await getObject("x/y.txt"))).toBe("through the started fake");
@@ -195,23 +194,34 @@ describe("startLocalServices", () => {
       busySmtp.close();
       busyS3.close();
     }
-    expect(process.env.SMTP_URL).toBeUndefined();
-    expect(process.env.S3_ENDPOINT).toBeUndefined();
-    expect(process.env.MAIL_CAPTURE_FILE).toBeUndefined();
-    process.env.S3_ENDPOINT = previousEndpoint;
+    expect(localEndpoints()).toEqual({});
+    expect(process.env).toEqual(environment);
+    useFake();
   });
 
-  it("starts nothing for services the environment already names", async () => {
-    process.env.SMTP_URL = "smtp://127.0.0.1:1";
+  it("starts nothing for services the settings already name", async () => {
+    const restore = setEnv({ SMTP_URL: "smtp://127.0.0.1:1", S3_ENDPOINT: fake.endpoint, S3_ACCESS_KEY_ID: credentials.accessKeyId, S3_SECRET_ACCESS_KEY: credentials.secretAccessKey });
+    recordLocalEndpoints({ objectStore: undefined });
     const services = await startLocalServices({ dataDir: path.join(folder, "data2"), s3Port: 0 });
     try {
       expect(services.started).toEqual({ smtp: false, s3: false });
-      expect(services.smtpUrl).toBe("smtp://127.0.0.1:1");
-      expect(services.s3Endpoint).toBe(fake.endpoint);
+      expect(localEndpoints()).toEqual({});
+      await putObject("settings/named.txt", ascii("through the named store"), "text/plain");
+      expect(new TextDecoder().decode(await getObject("settings/named.txt"))).toBe("through the named store");
     } finally {
       await services.stop();
+      restore();
+      useFake();
     }
-    expect(process.env.SMTP_URL).toBe("smtp://127.0.0.1:1");
-    delete process.env.SMTP_URL;
+  });
+
+  it("never starts in production without DEMO: there the settings name the services", async () => {
+    const restore = setEnv({ NODE_ENV: "production", DEMO: undefined, BETTER_AUTH_SECRET: "x".repeat(32), BETTER_AUTH_URL: "https://rc.example.org", SMTP_URL: "smtp://127.0.0.1:1", MAIL_FROM: "rc@example.org", S3_ENDPOINT: "http://127.0.0.1:1", S3_BUCKET: "rc-bucket", S3_ACCESS_KEY_ID: "k", S3_SECRET_ACCESS_KEY: "s" });
+    try {
+      await expect(startLocalServices({ dataDir: path.join(folder, "prod") })).rejects.toThrow(/only in demo mode/);
+      expect(existsSync(objectStoreCredentialsFile(path.join(folder, "prod")))).toBe(false);
+    } finally {
+      restore();
+    }
   });
 });

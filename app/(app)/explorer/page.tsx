@@ -2,8 +2,8 @@ import type { Metadata } from "next";
 import { Cautions } from "@/app/_components/cautions";
 import { ChannelChart, RateChart } from "@/app/_components/bound-charts";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
-import { buildBoundCharts } from "@/lib/explorer";
 import { formatSci } from "@/lib/format";
+import { boundCharts } from "@/lib/server/engine";
 import { pageViewer, orPage } from "@/lib/server/pages";
 import { authorize } from "@/lib/server/session";
 import { describeZodError } from "@/lib/validation/messages";
@@ -21,7 +21,7 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
   const view = parsed.success
     ? parsed.data
     : { model: "bsc" as const, ...EXPLORER_DEFAULTS.bsc, target: 1e-4 };
-  const charts = buildBoundCharts(view);
+  const { charts, refusal } = await boundCharts(view);
   return (
     <div className="space-y-5">
       <div>
@@ -37,20 +37,27 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
         </p>
       ) : null}
       <ExplorerForm view={view} />
-      <section className="panel space-y-2" aria-label="Verdict for this point">
-        <div className="flex flex-wrap items-center gap-3">
-          <VerdictBadge verdict={charts.result.verdict} />
-          <span className="text-sm">
-            Rate {charts.result.rate.toFixed(4)} bits per channel use, capacity {charts.result.capacity.toFixed(4)}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
-          </span>
-        </div>
-      </section>
-      <ClaimFindings result={charts.result} />
-      <div className="grid gap-5 lg:grid-cols-2">
-        <section className="panel"><h2>Block error rate against the channel</h2><ChannelChart charts={charts} /></section>
-        <section className="panel"><h2>Best rate against block length at BLER {formatSci(view.target)}</h2><RateChart charts={charts} /></section>
-      </div>
-      <ClaimNumbers result={charts.result} />
+      {refusal !== undefined ? (
+        <p role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">{refusal}</p>
+      ) : null}
+      {charts ? (
+        <>
+          <section className="panel space-y-2" aria-label="Verdict for this point">
+            <div className="flex flex-wrap items-center gap-3">
+              <VerdictBadge verdict={charts.result.verdict} />
+              <span className="text-sm">
+                Rate {charts.result.rate.toFixed(4)} bits per channel use, capacity {charts.result.capacity.toFixed(4)}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
+              </span>
+            </div>
+          </section>
+          <ClaimFindings result={charts.result} />
+          <div className="grid gap-5 lg:grid-cols-2">
+            <section className="panel"><h2>Block error rate against the channel</h2><ChannelChart charts={charts} /></section>
+            <section className="panel"><h2>Best rate against block length at BLER {formatSci(view.target)}</h2><RateChart charts={charts} /></section>
+          </div>
+          <ClaimNumbers result={charts.result} />
+        </>
+      ) : null}
       <Cautions />
     </div>
   );

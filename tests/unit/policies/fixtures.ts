@@ -79,4 +79,5 @@ export const make: Makers = {
   MemoCheck: (o) => ({ ...o }),
   Mailroom: (o) => ({ ...o }),
   Bounds: (o) => ({ ...o }),
+  Backup: (o) => ({ ...o }),
 };

@@ -54,6 +54,7 @@ const TABLE: Record<Role, Entry[]> = {
     [READ, "Ledger", [make.Ledger(), make.Ledger({ tenderId: T2 })]],
     [READ, "Tender", tendersIn(TENDER_STATES)],
     ["use", "Mailroom", [make.Mailroom()]],
+    ["create", "Backup", [make.Backup()]],
   ],
 
   buyer: [

@@ -1,9 +1,10 @@
 import { ChannelChart, RateChart, type ChartRun } from "@/app/_components/bound-charts";
 import { claimResultSchema } from "@/lib/bounds";
-import { boundViewOfResult, buildBoundCharts } from "@/lib/explorer";
+import { boundViewOfResult } from "@/lib/explorer";
+import { boundCharts } from "@/lib/server/engine";
 
 /** The claim against the bounds at its own n and k, with the same charts as the Bound explorer, and its lab runs (upper bounds) where the viewer reads them. */
-export function ClaimCharts({ result, runs = [] }: { result: unknown; runs?: ChartRun[] }) {
+export async function ClaimCharts({ result, runs = [] }: { result: unknown; runs?: ChartRun[] }) {
   const parsed = claimResultSchema.safeParse(result);
   const view = parsed.success ? boundViewOfResult(parsed.data) : null;
   if (!view) {
@@ -14,7 +15,7 @@ export function ClaimCharts({ result, runs = [] }: { result: unknown; runs?: Cha
       </section>
     );
   }
-  const charts = buildBoundCharts(view);
+  const { charts, refusal } = await boundCharts(view);
   const query = new URLSearchParams({ model: view.model, x: String(view.x), n: String(view.n), k: String(view.k), target: String(view.target) });
   return (
     <section className="panel space-y-3" aria-label="Charts">
@@ -23,10 +24,14 @@ export function ClaimCharts({ result, runs = [] }: { result: unknown; runs?: Cha
         <a href={`/explorer?${query}`} className="text-sm">Open in the Bound explorer</a>
       </div>
       {runs.length > 0 ? <p className="text-xs text-ink-soft">Open circles: lab runs, at their channel and the upper bound of their measured error rate.</p> : null}
-      <div className="grid gap-5 lg:grid-cols-2">
-        <ChannelChart charts={charts} runs={runs} />
-        <RateChart charts={charts} />
-      </div>
+      {charts ? (
+        <div className="grid gap-5 lg:grid-cols-2">
+          <ChannelChart charts={charts} runs={runs} />
+          <RateChart charts={charts} />
+        </div>
+      ) : (
+        <p role="alert" className="text-sm text-verdict-impossible">{refusal}</p>
+      )}
     </section>
   );
 }
