@@ -6,6 +6,7 @@ import type { ChannelModel, OperatingPoint } from "@/db/schema/tenders";
 import type { MarkKind } from "@/db/schema/evaluation";
 import type { ClaimMetric, Verdict } from "@/db/schema/offers";
 import { MARK_LABELS } from "@/lib/review/labels";
+import { deviationWords } from "./award-value";
 import { formatScore, standingsOf } from "./score-sheet";
 
 export interface MemoFacts {
@@ -38,7 +39,20 @@ export interface MemoFacts {
     claims: { pointLabel: string; channelValue: number; metric: ClaimMetric; value: number; ncgOutputBer: number | null; verdict: Verdict; mark: MarkKind | null }[];
   }[];
   scoreSheet: unknown;
-  recommendation: { vendorName: string; moduleName: string; value: number; currency: string; quantity: number; justification: string; preparedBy: string; preparedAt: Date };
+  recommendation: {
+    vendorName: string;
+    moduleName: string;
+    value: number;
+    /** The offer's price at the quantity; null on recommendations older than it. */
+    computedValue: number | null;
+    valueReason: string | null;
+    quantityReason: string | null;
+    currency: string;
+    quantity: number;
+    justification: string;
+    preparedBy: string;
+    preparedAt: Date;
+  };
   approvals: { name: string; decidedAt: Date; comment: string }[];
   approvalsNeeded: number;
   cautions: string;
@@ -102,6 +116,7 @@ export function memoDocument(f: MemoFacts): MemoDocument {
       module: f.recommendation.moduleName,
       value: money(f.recommendation.value),
       quantity: `${f.recommendation.quantity.toLocaleString("en-GB")} units`,
+      deviations: deviationWords({ ...f.recommendation, tenderQuantity: t.quantity }),
       justification: f.recommendation.justification,
       prepared: `Prepared by ${f.recommendation.preparedBy}, ${when(f.recommendation.preparedAt, f.zone)}`,
     },
