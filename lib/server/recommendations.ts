@@ -1,6 +1,6 @@
 import "server-only";
 import { and, desc, eq, inArray } from "drizzle-orm";
-import { asSubject } from "@/policies";
+import { asSubject, type TenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { approvals, offers, organisations, recommendations, tenders, users } from "@/db/schema";
 import { buildScoreSheet, recommendationProblem, totalPriceAt, type Envelope } from "@/lib/scoring";
@@ -57,6 +57,12 @@ export async function listRecommendations(viewer: Viewer, tenderId: string) {
     const { scoreSheet: _sheet, ...rest } = recommendation;
     return { ...rest, vendorName, returns: returns.filter((r) => r.recommendationId === recommendation.id) };
   });
+}
+
+/** Moves the tender to data.to with the recommendation's ledger entry, in the caller's transaction. */
+async function moveWithEntry(tx: Queryable, viewer: Viewer, recId: string, action: string, e: { tenderId: string; data: { to: TenderState } & Record<string, unknown> }) {
+  await tx.update(tenders).set({ state: e.data.to }).where(eq(tenders.id, e.tenderId));
+  await appendLedger(tx, { tenderId: e.tenderId, actor: ledgerActor(viewer), action, subjectType: "Recommendation", subjectId: recId, data: e.data });
 }
 
 /**
@@ -123,13 +129,8 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
         preparedBy: viewer.actor.id,
       })
       .returning();
-    await tx.update(tenders).set({ state: "approval" }).where(eq(tenders.id, tenderId));
-    await appendLedger(tx, {
+    await moveWithEntry(tx, viewer, rec.id, "recommendation.submitted", {
       tenderId,
-      actor: ledgerActor(viewer),
-      action: "recommendation.submitted",
-      subjectType: "Recommendation",
-      subjectId: rec.id,
       data: {
         from: "commercial",
         to: "approval",
@@ -177,15 +178,7 @@ export async function withdrawRecommendation(viewer: Viewer, tenderId: string, i
       .where(and(eq(recommendations.id, rec.id), eq(recommendations.status, "pending")))
       .returning();
     if (!withdrawn || locked.state !== "approval") throw new ConflictError(nothing);
-    await tx.update(tenders).set({ state: "commercial" }).where(eq(tenders.id, tenderId));
-    await appendLedger(tx, {
-      tenderId,
-      actor: ledgerActor(viewer),
-      action: "recommendation.withdrawn",
-      subjectType: "Recommendation",
-      subjectId: rec.id,
-      data: { recommendationId: rec.id, from: "approval", to: "commercial", reason: input.reason },
-    });
+    await moveWithEntry(tx, viewer, rec.id, "recommendation.withdrawn", { tenderId, data: { recommendationId: rec.id, from: "approval", to: "commercial", reason: input.reason } });
     return withdrawn;
   });
   const approvedBy = await db
