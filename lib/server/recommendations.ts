@@ -132,6 +132,8 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
     await moveWithEntry(tx, viewer, rec.id, "recommendation.submitted", {
       tenderId,
       data: {
+        // Every entry about a recommendation names it, so the ledger groups decisions by recommendation.
+        recommendationId: rec.id,
         from: "commercial",
         to: "approval",
         offerId: input.offerId,

@@ -120,6 +120,10 @@ describe("withdrawing a recommendation", () => {
     expect(await tenderState(fx.tenderId)).toBe("commercial");
     const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, fx.tenderId), eq(ledgerEntries.action, "recommendation.withdrawn")));
     expect(entry.data).toMatchObject({ from: "approval", to: "commercial", reason: "The vendor corrected its lead time; recommending again." });
+    // Both entries name the recommendation they concern.
+    const [submitted] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, fx.tenderId), eq(ledgerEntries.action, "recommendation.submitted")));
+    expect(submitted.data).toMatchObject({ recommendationId: entry.subjectId });
+    expect(entry.data).toMatchObject({ recommendationId: entry.subjectId });
     const again = await withdraw(fx.tenderId, "buyer", "Withdrawing twice is not possible.");
     expect(again.status).toBe(409);
     expect((await again.json()).error).toBe("There is no recommendation awaiting approval on this tender to withdraw.");
