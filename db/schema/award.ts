@@ -16,7 +16,7 @@ export const approvalBands = pgTable("approval_bands", {
   updatedAt: updatedAt(),
 });
 
-export const RECOMMENDATION_STATUSES = ["pending", "returned", "approved", "superseded"] as const;
+export const RECOMMENDATION_STATUSES = ["pending", "returned", "approved", "superseded", "withdrawn"] as const;
 export type RecommendationStatus = (typeof RECOMMENDATION_STATUSES)[number];
 
 export const recommendations = pgTable(
@@ -29,6 +29,12 @@ export const recommendations = pgTable(
       .references(() => offers.id),
     quantity: integer("quantity").notNull(),
     value: numeric("value", { precision: 16, scale: 2, mode: "number" }).notNull(),
+    /** The offer's price at the recommended quantity (price breaks applied); null on rows older than it. */
+    computedValue: numeric("computed_value", { precision: 16, scale: 2, mode: "number" }),
+    /** Why the award value differs from the computed one (null when it does not). */
+    valueReason: text("value_reason"),
+    /** Why the quantity exceeds the tender's (null when it does not). */
+    quantityReason: text("quantity_reason"),
     currency: text("currency").notNull(),
     justification: text("justification").notNull(),
     status: text("status").$type<RecommendationStatus>().notNull().default("pending"),
@@ -40,6 +46,8 @@ export const recommendations = pgTable(
       .notNull()
       .references(() => users.id),
     preparedAt: createdAt(),
+    /** The buyer's reason for withdrawing it from approval. */
+    withdrawReason: text("withdraw_reason"),
   },
   (t) => [index("recommendations_tender_idx").on(t.tenderId)],
 );

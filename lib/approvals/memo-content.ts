@@ -9,6 +9,7 @@ import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
 import { acceptedAgainstImpossible } from "@/lib/review/marks";
 import { SAFETY_CAUTION } from "@/lib/tenders/safety";
 import type { EvidenceStatus } from "@/db/schema/evaluation";
+import { deviationWords } from "./award-value";
 import { formatScore, standingsOf } from "./score-sheet";
 
 export interface MemoFacts {
@@ -57,7 +58,20 @@ export interface MemoFacts {
     declarations: { name: string; createdAt: Date; statement: string; conflicts: number }[];
   };
   scoreSheet: unknown;
-  recommendation: { vendorName: string; moduleName: string; value: number; currency: string; quantity: number; justification: string; preparedBy: string; preparedAt: Date };
+  recommendation: {
+    vendorName: string;
+    moduleName: string;
+    value: number;
+    /** The offer's price at the quantity; null on recommendations older than it. */
+    computedValue: number | null;
+    valueReason: string | null;
+    quantityReason: string | null;
+    currency: string;
+    quantity: number;
+    justification: string;
+    preparedBy: string;
+    preparedAt: Date;
+  };
   approvals: { name: string; decidedAt: Date; comment: string }[];
   approvalsNeeded: number;
   cautions: string;
@@ -137,6 +151,7 @@ export function memoDocument(f: MemoFacts): MemoDocument {
       module: f.recommendation.moduleName,
       value: money(f.recommendation.value),
       quantity: `${f.recommendation.quantity.toLocaleString("en-GB")} units`,
+      deviations: deviationWords({ ...f.recommendation, tenderQuantity: t.quantity }),
       justification: f.recommendation.justification,
       prepared: `Prepared by ${f.recommendation.preparedBy}, ${when(f.recommendation.preparedAt, f.zone)}`,
     },

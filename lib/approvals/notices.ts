@@ -38,6 +38,13 @@ export function returnedNotice(t: TenderWords, approver: string, comment: string
   };
 }
 
+export function withdrawnNotice(t: TenderWords, buyer: string, reason: string): NoticeText {
+  return {
+    subject: `${t.reference}: recommendation withdrawn by ${buyer}`,
+    text: `${buyer} withdrew the award recommendation for ${t.reference} ${t.title} from approval; your approval of it no longer counts. The tender is back in commercial evaluation.\n\nReason: ${reason}\n\n${link(t, "/sign-off")}`,
+  };
+}
+
 export function awardedNotice(t: TenderWords, vendorName: string, value: string, identifier: string, sha256: string): NoticeText {
   return {
     subject: `${t.reference}: awarded to ${vendorName}`,

@@ -1,7 +1,7 @@
 import { z, type ZodType } from "zod";
 import { claimResultSchema, claimSchema } from "@/lib/bounds/schema";
 import { approvalBandSchema, decisionSchema, fingerprintSchema } from "@/lib/validation/approvals";
-import { recommendationSchema } from "@/lib/validation/comparison";
+import { recommendationSchema, withdrawalSchema } from "@/lib/validation/comparison";
 import { offerSchema } from "@/lib/validation/offer";
 import { createOrganisationSchema, createUserSchema, updateUserSchema } from "@/lib/validation/people";
 import {
@@ -88,6 +88,7 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/tenders/{id}/comparison", tag: "Commercial", summary: "The comparison grid with score sheets (buyer, approver)" },
   { method: "get", path: "/tenders/{id}/recommendation", tag: "Commercial", summary: "The current recommendation" },
   { method: "post", path: "/tenders/{id}/recommendation", tag: "Commercial", summary: "Recommend an award (buyer)", body: recommendationSchema, created: true },
+  { method: "post", path: "/tenders/{id}/recommendation/withdraw", tag: "Commercial", summary: "Withdraw the recommendation awaiting approval (buyer)", body: withdrawalSchema },
 
   { method: "get", path: "/approval-bands", tag: "Approvals", summary: "Approval value bands" },
   { method: "post", path: "/approval-bands", tag: "Approvals", summary: "Add a value band (admin)", body: approvalBandSchema, created: true },

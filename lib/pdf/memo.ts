@@ -31,7 +31,8 @@ export interface MemoDocument {
     declarations: { name: string; at: string; statement: string; conflicts: string }[];
   };
   scores: { rank: string; vendorName: string; total: string; note: string }[];
-  recommendation: { vendorName: string; module: string; value: string; quantity: string; justification: string; prepared: string };
+  /** deviations: each departure from the offer's price or the tender's quantity, beside the computed figure, with its reason. */
+  recommendation: { vendorName: string; module: string; value: string; quantity: string; deviations: string[]; justification: string; prepared: string };
   approvals: { name: string; at: string; comment: string }[];
   approvalsNeeded: number;
   cautions: string;
@@ -115,6 +116,7 @@ function scoresAndDecision(w: PageWriter, memo: MemoDocument): void {
   const r = memo.recommendation;
   w.heading("Recommendation");
   w.text(`Award to ${r.vendorName}, ${r.module}: ${r.quantity} for ${r.value}.`, { bold: true });
+  for (const line of r.deviations) w.text(line, { indent: 12 });
   w.text(r.justification);
   w.text(r.prepared, { soft: true, size: 8.5 });
 

@@ -5,6 +5,7 @@ import { approvalBands } from "@/db/schema";
 import { bandFor, bandGaps, bandProblems, describeBand, type BandRule } from "@/lib/approvals/bands";
 import type { ApprovalBandInput } from "@/lib/validation/approvals";
 import { InputError, NotFoundError } from "./errors";
+import { bandWarnings } from "./approval-coverage";
 import { appendLedger } from "./ledger";
 import { authorize, ledgerActor, type Viewer } from "./session";
 
@@ -23,12 +24,17 @@ export async function bandRuleFor(db: Queryable, value: number, currency: string
   return band && { approvalsNeeded: band.approvalsNeeded, minApproverLimit: band.minApproverLimit };
 }
 
-/** The bands, with the values each currency leaves uncovered. */
+/** The bands, with the values each currency leaves uncovered and the bands today's approvers cannot meet. */
 export async function listApprovalBands(viewer: Viewer) {
   authorize(viewer, "read", "ApprovalLimit", "Only admins, buyers and approvers read the approval limits.");
-  const bands = await allBands(await getDb());
+  const db = await getDb();
+  const bands = await allBands(db);
   const currencies = [...new Set(bands.map((b) => b.currency))];
-  return { bands, gaps: currencies.flatMap((currency) => bandGaps(bands, currency).map((gap) => ({ currency, ...gap }))) };
+  return {
+    bands,
+    gaps: currencies.flatMap((currency) => bandGaps(bands, currency).map((gap) => ({ currency, ...gap }))),
+    warnings: await bandWarnings(db, bands),
+  };
 }
 
 const bandFields = (b: Pick<ApprovalBandRow, "currency" | "minValue" | "maxValue" | "approvalsNeeded" | "minApproverLimit">) => ({

@@ -3,14 +3,15 @@ import { withSafetyCaution } from "@/lib/tenders/safety";
 import { and, eq, inArray } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { approvals, declarations, offers, organisations, recommendations, tenders, userRoles, users } from "@/db/schema";
+import { approvals, offers, organisations, recommendations, tenders, users } from "@/db/schema";
 import type { BandRule } from "@/lib/approvals/bands";
 import * as words from "@/lib/approvals/notices";
-import { approvalRefusal, decisionProblem, isFullyApproved, limitCovers } from "@/lib/approvals/routing";
+import { governingValue } from "@/lib/approvals/award-value";
+import { approvalRefusal, decisionProblem, isFullyApproved } from "@/lib/approvals/routing";
 import { rankedCount, standingsOf } from "@/lib/approvals/score-sheet";
 import { formatMoney } from "@/lib/format";
 import type { DecisionInput } from "@/lib/validation/approvals";
-import { bandRuleFor } from "./approval-bands";
+import { eligibleApprovers, ruleFor, storedRule } from "./approval-coverage";
 import { ConflictError, ForbiddenError } from "./errors";
 import { appendLedger } from "./ledger";
 import { approvalsGiven, issueMemo, type MemoRow } from "./memos";
@@ -19,41 +20,12 @@ import { getCurrentRecommendation, type RecommendationRow } from "./recommendati
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, type TenderRow } from "./tenders";
 
-/** The rule stored on the recommendation, or null while it has none yet. */
-export const storedRule = (rec: RecommendationRow): BandRule | null =>
-  rec.approvalsNeeded === null || rec.minApproverLimit === null ? null : { approvalsNeeded: rec.approvalsNeeded, minApproverLimit: rec.minApproverLimit };
-
-/** The rule that governs a recommendation: its stored one, else the bands in force now; 409 when none covers it. */
-export async function ruleFor(db: Queryable, rec: RecommendationRow): Promise<BandRule> {
-  const rule = storedRule(rec) ?? (await bandRuleFor(db, rec.value, rec.currency));
-  if (!rule) throw new ConflictError(`No approval band covers ${formatMoney(rec.value, rec.currency)}; an admin must add one on the Approval limits page.`);
-  return rule;
-}
-
 export const approvalRecord = (tender: TenderRow, rec: RecommendationRow) => ({
   tenderId: tender.id,
   recommendationPreparedBy: rec.preparedBy,
-  value: rec.value,
+  value: governingValue(rec),
   tenderCreatedBy: tender.createdBy,
 });
-
-/**
- * Where a recommendation is routed: active approvers whose limit covers its value and its band,
- * who neither prepared it nor created the tender nor declared a conflict on it.
- */
-export async function eligibleApprovers(db: Queryable, tender: TenderRow, rec: RecommendationRow, rule: BandRule) {
-  const rows = await db
-    .select({ id: users.id, name: users.name, email: users.email, approvalLimit: users.approvalLimit })
-    .from(users)
-    .innerJoin(userRoles, eq(userRoles.userId, users.id))
-    .where(and(eq(userRoles.role, "approver"), eq(users.active, true)));
-  const conflicted = new Set(
-    (await db.select().from(declarations).where(eq(declarations.tenderId, tender.id))).filter((d) => d.conflictedOrgIds.length > 0).map((d) => d.userId),
-  );
-  return rows
-    .filter((u) => limitCovers(u.approvalLimit, rec.value, rule) && ![rec.preparedBy, tender.createdBy].includes(u.id) && !conflicted.has(u.id))
-    .sort((a, b) => a.name.localeCompare(b.name));
-}
 
 /** Why this viewer may not decide on the recommendation, in words, or null. */
 export function refusalFor(viewer: Viewer, tender: TenderRow, rec: RecommendationRow, rule: BandRule): string | null {
@@ -66,7 +38,7 @@ export function refusalFor(viewer: Viewer, tender: TenderRow, rec: Recommendatio
     conflicted: mine.some((d) => d.conflictedVendorOrgIds.length > 0),
     tenderCreatedBy: tender.createdBy,
     preparedBy: rec.preparedBy,
-    value: rec.value,
+    value: governingValue(rec),
     currency: rec.currency,
     rule,
   });

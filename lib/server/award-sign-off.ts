@@ -1,11 +1,14 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
+import { asc, desc, eq } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb } from "@/db/client";
-import { approvals, memos, offers, organisations, users } from "@/db/schema";
-import { decisionProblem } from "@/lib/approvals/routing";
+import { getDb, type Queryable } from "@/db/client";
+import { approvals, memos, offers, organisations, recommendations, users } from "@/db/schema";
+import { deviationWords, governingValue } from "@/lib/approvals/award-value";
+import { pendingShortfall } from "@/lib/approvals/coverage";
+import { decisionProblem, isFullyApproved } from "@/lib/approvals/routing";
 import { standingsOf } from "@/lib/approvals/score-sheet";
-import { approvalRecord, eligibleApprovers, refusalFor, ruleFor } from "./approvals";
+import { recommendationCoverage, ruleFor } from "./approval-coverage";
+import { approvalRecord, refusalFor } from "./approvals";
 import { AppError } from "./errors";
 import { approvalsGiven, currentOffersWithClaims } from "./memos";
 import { getCurrentRecommendation } from "./recommendations";
@@ -38,12 +41,8 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
     viewer.ability.can("read", asSubject("Offer", { id: o.id, tenderId, vendorOrgId: o.vendorOrgId, tenderState: tender.state, envelopeOpened: tender.envelopesOpenedAt !== null })),
   );
   const readsMark = (c: { id: string; vendorOrgId: string }) => viewer.ability.can("read", asSubject("Mark", { claimId: c.id, tenderId, vendorOrgId: c.vendorOrgId }));
-  const decisions = await db
-    .select({ id: approvals.id, recommendationId: approvals.recommendationId, name: users.name, decision: approvals.decision, comment: approvals.comment, decidedAt: approvals.decidedAt })
-    .from(approvals)
-    .innerJoin(users, eq(users.id, approvals.approverId))
-    .where(eq(approvals.tenderId, tenderId))
-    .orderBy(asc(approvals.decidedAt));
+  const { decisions, earlier } = await decisionsByRecommendation(db, tenderId, rec.id);
+  const covered = rule ? await recommendationCoverage(db, tender, rec, rule) : null;
   const given = await approvalsGiven(db, rec.id);
   const mayAct = viewer.actor.roles.includes("approver");
   const refusal = !mayAct ? null : rule ? refusalFor(viewer, tender, rec, rule) : "No approval band covers this value yet.";
@@ -63,8 +62,13 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
       moduleName: chosen?.moduleName ?? "",
       quantity: rec.quantity,
       value: rec.value,
+      computedValue: rec.computedValue,
+      /** The value that set the band and the limits: the larger of the stated and computed ones. */
+      governingValue: governingValue(rec),
+      deviations: deviationWords({ ...rec, tenderQuantity: tender.quantity }),
       currency: rec.currency,
       justification: rec.justification,
+      withdrawReason: rec.withdrawReason,
       preparedBy: chosen?.preparedBy ?? "",
       preparedAt: rec.preparedAt,
       rule,
@@ -84,10 +88,36 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
         })),
     })),
     decisions,
-    routedTo: rule ? (await eligibleApprovers(db, tender, rec, rule)).map((u) => u.name) : [],
-    me: { mayAct, allowed, reason: refusal ?? (mayAct ? problem : null) },
+    earlier,
+    routedTo: covered ? covered.eligible.map((u) => u.name) : [],
+    /** Why nobody can finish approving it (pending only), or null. */
+    stuck: rec.status !== "pending" ? null : covered ? pendingShortfall(covered) : "No approval band covers its value: an admin must add one on the Approval limits page.",
+    canWithdraw: rec.status === "pending" && tender.state === "approval" && viewer.ability.can("withdraw", asSubject("Recommendation", { tenderId, preparedBy: rec.preparedBy, value: rec.value })),
+    me: { mayAct, allowed, reason: refusal ?? (mayAct ? problem : null), awardsIfApproved: allowed && rule !== null && isFullyApproved(given.length + 1, rule) },
     memo: memo && readsMemo ? { identifier: memo.identifier, sha256: memo.sha256, size: memo.size, createdAt: memo.createdAt } : null,
     canPreview: readsMemo,
+  };
+}
+
+/**
+ * The decisions on the current recommendation, and those on earlier ones grouped under each: an
+ * approval of a returned or withdrawn recommendation never counts for a later one.
+ */
+async function decisionsByRecommendation(db: Queryable, tenderId: string, currentId: string) {
+  const rows = await db
+    .select({ id: approvals.id, recommendationId: approvals.recommendationId, name: users.name, decision: approvals.decision, comment: approvals.comment, decidedAt: approvals.decidedAt })
+    .from(approvals)
+    .innerJoin(users, eq(users.id, approvals.approverId))
+    .where(eq(approvals.tenderId, tenderId))
+    .orderBy(asc(approvals.decidedAt));
+  const recs = await db
+    .select({ id: recommendations.id, status: recommendations.status, preparedAt: recommendations.preparedAt, withdrawReason: recommendations.withdrawReason })
+    .from(recommendations)
+    .where(eq(recommendations.tenderId, tenderId))
+    .orderBy(desc(recommendations.preparedAt));
+  return {
+    decisions: rows.filter((d) => d.recommendationId === currentId),
+    earlier: recs.filter((r) => r.id !== currentId).map((r) => ({ ...r, decisions: rows.filter((d) => d.recommendationId === r.id) })),
   };
 }
 

@@ -1,4 +1,6 @@
 import "server-only";
+import { getDb } from "@/db/client";
+import { stuckRecommendations } from "./approval-coverage";
 import type { Viewer } from "./session";
 import { listTenders, type TenderWithInvites } from "./tenders";
 
@@ -8,6 +10,21 @@ export interface DeskSection {
   tenders: TenderWithInvites[];
   /** The tab of the tender page where the work waits ("" for Requirements). */
   tab: "" | "offer" | "review" | "comparison" | "sign-off";
+  /** A line under a tender saying what blocks it, by tender id. */
+  notes?: Record<string, string>;
+}
+
+/** Recommendations nobody can finish approving, for the people who can free them (buyers withdraw, admins raise limits). */
+async function stuckSection(visible: TenderWithInvites[], tab: DeskSection["tab"]): Promise<DeskSection> {
+  const stuck = await stuckRecommendations(await getDb());
+  const ids = new Set(stuck.map((s) => s.tenderId));
+  return {
+    title: "Recommendations that cannot be approved",
+    empty: "Every recommendation in approval can get the approvals it needs.",
+    tenders: visible.filter((t) => ids.has(t.id)),
+    tab,
+    notes: Object.fromEntries(stuck.map((s) => [s.tenderId, s.problem])),
+  };
 }
 
 /** What waits for the signed-in person, one section per role they hold. */
@@ -16,6 +33,8 @@ export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
   const visible = viewer.ability.can("read", "Tender") ? await listTenders(viewer) : [];
   const inState = (...states: string[]) => visible.filter((t) => states.includes(t.state));
   const sections: DeskSection[] = [];
+  if (roles.includes("buyer")) sections.push(await stuckSection(visible, "sign-off"));
+  else if (roles.includes("admin")) sections.push(await stuckSection(visible, ""));
   if (roles.includes("buyer")) {
     sections.push({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id), tab: "" });
     sections.push({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open"), tab: "" });

@@ -1,13 +1,14 @@
 import "server-only";
 import { asc, eq } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb } from "@/db/client";
+import { getDb, type Queryable } from "@/db/client";
 import { organisations, sessions, userRoles, users, type RoleName } from "@/db/schema";
 import type { CreateUserInput, UpdateUserInput } from "@/lib/validation/people";
 import { appendLedger } from "./ledger";
 import { insertUser, loadUser, rolesByUser } from "./people-store";
 import { authorize, ledgerActor, type Viewer } from "./session";
-import { InputError, NotFoundError } from "./errors";
+import { strandProblem } from "./approval-coverage";
+import { ConflictError, InputError, NotFoundError } from "./errors";
 
 /** People and their organisations, for the People page. Never includes password material. */
 export async function listPeople(viewer: Viewer) {
@@ -79,6 +80,15 @@ export async function createUser(viewer: Viewer, input: CreateUserInput) {
   });
 }
 
+/** A change that takes approving power away must not leave a pending recommendation without enough approvers (409). */
+async function refuseStranding(db: Queryable, target: NonNullable<Awaited<ReturnType<typeof loadUser>>>, input: UpdateUserInput) {
+  const lowered = input.approvalLimit !== undefined && (input.approvalLimit ?? -1) < (target.approvalLimit ?? -1);
+  const unroled = input.roles !== undefined && target.roles.includes("approver") && !input.roles.includes("approver");
+  if (!(input.active === false || lowered || unroled)) return;
+  const problem = await strandProblem(db, { userId: target.id, name: target.name, ...input });
+  if (problem) throw new ConflictError(problem);
+}
+
 /** Changes roles, active flag or approval limit; each change is a ledger entry in the same transaction. */
 export async function updateUser(viewer: Viewer, userId: string, input: UpdateUserInput) {
   const db = await getDb();
@@ -93,6 +103,7 @@ export async function updateUser(viewer: Viewer, userId: string, input: UpdateUs
     authorize(viewer, "deactivate", subject);
   }
   if (input.approvalLimit !== undefined) authorize(viewer, "update", subject);
+  await refuseStranding(db, target, input);
 
   await db.transaction(async (tx) => {
     const actor = ledgerActor(viewer);

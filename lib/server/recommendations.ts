@@ -1,20 +1,23 @@
 import "server-only";
 import { withSafetyCaution } from "@/lib/tenders/safety";
 import { and, desc, eq, inArray } from "drizzle-orm";
-import { asSubject } from "@/policies";
+import { asSubject, type TenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { approvals, offers, organisations, recommendations, tenders } from "@/db/schema";
-import { buildScoreSheet, recommendationProblem } from "@/lib/scoring";
+import { approvals, offers, organisations, recommendations, tenders, users } from "@/db/schema";
+import { buildScoreSheet, recommendationProblem, totalPriceAt, type Envelope } from "@/lib/scoring";
+import { awardValueProblems, governingValue, keptReasons } from "@/lib/approvals/award-value";
+import { submissionShortfall } from "@/lib/approvals/coverage";
 import { formatMoney } from "@/lib/format";
 import { bandRuleFor } from "./approval-bands";
-import { awaitingApprovalNotice } from "@/lib/approvals/notices";
-import type { RecommendationInput } from "@/lib/validation/comparison";
+import { recommendationCoverage } from "./approval-coverage";
+import { awaitingApprovalNotice, withdrawnNotice } from "@/lib/approvals/notices";
+import type { RecommendationInput, WithdrawalInput } from "@/lib/validation/comparison";
 import { ConflictError, ForbiddenError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesWithRole, notify } from "./notify";
 import { loadScoringInput } from "./comparison";
 import { authorize, ledgerActor, type Viewer } from "./session";
-import { getTender, tenderSubject } from "./tenders";
+import { getTender, tenderSubject, type TenderWithInvites } from "./tenders";
 
 export type RecommendationRow = typeof recommendations.$inferSelect;
 
@@ -57,11 +60,38 @@ export async function listRecommendations(viewer: Viewer, tenderId: string) {
   });
 }
 
+/** Moves the tender to data.to with the recommendation's ledger entry, in the caller's transaction. */
+async function moveWithEntry(tx: Queryable, viewer: Viewer, recId: string, action: string, e: { tenderId: string; data: { to: TenderState } & Record<string, unknown> }) {
+  await tx.update(tenders).set({ state: e.data.to }).where(eq(tenders.id, e.tenderId));
+  await appendLedger(tx, { tenderId: e.tenderId, actor: ledgerActor(viewer), action, subjectType: "Recommendation", subjectId: recId, data: e.data });
+}
+
+/**
+ * The award value against the offer (reasons for any deviation, 400), the band of the larger of
+ * the stated and computed values (409 when none), and enough distinct approvers for it (409).
+ */
+async function checkAwardValue(db: Queryable, viewer: Viewer, tender: TenderWithInvites, envelope: Envelope | null, input: RecommendationInput) {
+  if (!envelope) throw new ConflictError("The offer's prices are not readable yet: open the envelopes before recommending an award.");
+  const facts = { ...input, computedValue: totalPriceAt(envelope.unitPrice, envelope.priceBreaks, input.quantity), tenderQuantity: tender.quantity, currency: tender.currency };
+  const problems = awardValueProblems(facts);
+  if (Object.keys(problems).length) throw new InputError(Object.values(problems).flat().join(" "), problems);
+  const candidate = { id: null, preparedBy: viewer.actor.id, value: input.value, computedValue: facts.computedValue, currency: tender.currency };
+  const governing = governingValue(candidate);
+  const band = await bandRuleFor(db, governing, tender.currency);
+  if (!band) {
+    throw new ConflictError(`No approval band covers ${formatMoney(governing, tender.currency)}, so nobody could approve this award. Nothing was submitted: ask an admin to add a band on the Approval limits page.`);
+  }
+  const shortfall = submissionShortfall(await recommendationCoverage(db, tender, candidate, band), { value: governing, currency: tender.currency, rule: band, excluded: new Set(), approvedBy: [] });
+  if (shortfall) throw new ConflictError(shortfall);
+  return { computedValue: facts.computedValue, reasons: keptReasons(facts), governing, band };
+}
+
 /**
  * The buyer recommends an award: the offer, the quantity, the award value and the reasons. Stored
  * as "pending" with a snapshot of the score sheet; the tender moves from commercial evaluation to
  * approval with its ledger entry in the same transaction; approvers are told after the commit.
- * A disqualified offer, or one needing currency conversion, cannot be recommended (409).
+ * A disqualified offer, or one needing currency conversion, cannot be recommended (409); nor can an
+ * award the people who exist could not approve (409).
  */
 export async function submitRecommendation(viewer: Viewer, tenderId: string, input: RecommendationInput) {
   const tender = await getTender(viewer, tenderId);
@@ -74,8 +104,9 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
   if (problem) throw new ConflictError(problem);
   if (!scored) throw new InputError("No such current offer in this tender.", { offerId: ["Choose one of the offers in the comparison."] });
   authorize(viewer, "recommend", tenderSubject(tender));
-  authorize(viewer, "create", asSubject("Recommendation", { tenderId, preparedBy: viewer.actor.id, value: input.value }));
-  const band = await bandRuleFor(db, input.value, tender.currency);
+  const worth = await checkAwardValue(db, viewer, tender, scoring.offers.find((o) => o.id === input.offerId)?.envelope ?? null, input);
+  authorize(viewer, "create", asSubject("Recommendation", { tenderId, preparedBy: viewer.actor.id, value: worth.governing }));
+  const band = worth.band;
 
   const row = await db.transaction(async (tx) => {
     const [locked] = await tx.select({ state: tenders.state }).from(tenders).where(eq(tenders.id, tenderId)).for("update");
@@ -88,29 +119,30 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
         offerId: input.offerId,
         quantity: input.quantity,
         value: input.value,
+        computedValue: worth.computedValue,
+        ...worth.reasons,
         currency: tender.currency,
         justification: input.justification,
         status: "pending",
-        approvalsNeeded: band?.approvalsNeeded ?? null,
-        minApproverLimit: band?.minApproverLimit ?? null,
+        approvalsNeeded: band.approvalsNeeded,
+        minApproverLimit: band.minApproverLimit,
         scoreSheet: { ...sheet, computedAt: new Date().toISOString() } as unknown as Record<string, unknown>,
         preparedBy: viewer.actor.id,
       })
       .returning();
-    await tx.update(tenders).set({ state: "approval" }).where(eq(tenders.id, tenderId));
-    await appendLedger(tx, {
+    await moveWithEntry(tx, viewer, rec.id, "recommendation.submitted", {
       tenderId,
-      actor: ledgerActor(viewer),
-      action: "recommendation.submitted",
-      subjectType: "Recommendation",
-      subjectId: rec.id,
       data: {
+        // Every entry about a recommendation names it, so the ledger groups decisions by recommendation.
+        recommendationId: rec.id,
         from: "commercial",
         to: "approval",
         offerId: input.offerId,
         vendor: scored.vendorName,
         quantity: input.quantity,
         value: input.value,
+        computedValue: worth.computedValue,
+        ...worth.reasons,
         currency: tender.currency,
         rank: scored.rank,
         total: scored.total,
@@ -118,11 +150,46 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
     });
     return rec;
   });
-  const notice = awaitingApprovalNotice(tender, 0, band?.approvalsNeeded ?? 1, formatMoney(input.value, tender.currency));
+  const notice = awaitingApprovalNotice(tender, 0, band.approvalsNeeded, formatMoney(input.value, tender.currency));
   notify(withSafetyCaution(tender, [{
     to: await addressesWithRole(db, "approver"),
     subject: notice.subject,
     text: `${viewer.name} recommends awarding ${tender.reference} to ${scored.vendorName}: ${input.quantity.toLocaleString("en-GB")} units.\n\nJustification: ${input.justification}\n\n${notice.text}`,
   }]));
   return row;
+}
+
+/**
+ * The buyer takes a recommendation out of approval (one nobody can finish approving, or one that
+ * should change): it is kept as "withdrawn" with the reason, the tender goes back to commercial
+ * evaluation, and the approvers who had approved it are told.
+ */
+export async function withdrawRecommendation(viewer: Viewer, tenderId: string, input: WithdrawalInput) {
+  const tender = await getTender(viewer, tenderId);
+  authorize(viewer, "withdraw", "Recommendation", "Only the buying team withdraws a recommendation.");
+  const db = await getDb();
+  const rec = await getCurrentRecommendation(db, tenderId);
+  const nothing = "There is no recommendation awaiting approval on this tender to withdraw.";
+  if (!rec || rec.status !== "pending" || tender.state !== "approval") throw new ConflictError(nothing);
+  authorize(viewer, "withdraw", asSubject("Recommendation", { tenderId, preparedBy: rec.preparedBy, value: rec.value }));
+
+  const row = await db.transaction(async (tx) => {
+    const [locked] = await tx.select({ state: tenders.state }).from(tenders).where(eq(tenders.id, tenderId)).for("update");
+    const [withdrawn] = await tx
+      .update(recommendations)
+      .set({ status: "withdrawn", withdrawReason: input.reason })
+      .where(and(eq(recommendations.id, rec.id), eq(recommendations.status, "pending")))
+      .returning();
+    if (!withdrawn || locked.state !== "approval") throw new ConflictError(nothing);
+    await moveWithEntry(tx, viewer, rec.id, "recommendation.withdrawn", { tenderId, data: { recommendationId: rec.id, from: "approval", to: "commercial", reason: input.reason } });
+    return withdrawn;
+  });
+  const approvedBy = await db
+    .select({ email: users.email })
+    .from(approvals)
+    .innerJoin(users, eq(users.id, approvals.approverId))
+    .where(and(eq(approvals.recommendationId, rec.id), eq(approvals.decision, "approved"), eq(users.active, true)));
+  if (approvedBy.length) notify({ to: approvedBy.map((a) => a.email), ...withdrawnNotice(tender, viewer.name, input.reason) });
+  const { scoreSheet: _sheet, ...rest } = row;
+  return rest;
 }

@@ -3,6 +3,13 @@ import { weightsSchema } from "./tender";
 
 export const JUSTIFICATION_MIN = 20;
 
+/** A reason for a deviation from the offer or the tender: optional here, required by the rule when it applies. */
+const reason = z
+  .string()
+  .trim()
+  .max(2000, "At most 2,000 characters.")
+  .optional();
+
 /** The buyer's recommendation of an award, as the form and POST /api/v1/tenders/[id]/recommendation send it. */
 export const recommendationSchema = z.object({
   offerId: z.string({ error: "Choose the offer to award." }).trim().min(1, "Choose the offer to award."),
@@ -21,8 +28,18 @@ export const recommendationSchema = z.object({
     .trim()
     .min(JUSTIFICATION_MIN, `Write at least ${JUSTIFICATION_MIN} characters of justification.`)
     .max(5000, "At most 5,000 characters."),
+  /** Why the award value differs from the offer's price at the quantity. */
+  valueReason: reason,
+  /** Why the quantity exceeds the tender's. */
+  quantityReason: reason,
 });
 export type RecommendationInput = z.infer<typeof recommendationSchema>;
 
 /** The what-if weights: the same rules as a tender's weights (zero or more, at least one above zero). */
 export const whatIfWeightsSchema = weightsSchema;
+
+/** The buyer withdraws a recommendation awaiting approval, saying why. */
+export const withdrawalSchema = z.object({
+  reason: z.string({ error: "Say why you withdraw it." }).trim().min(10, "Say why you withdraw it (at least 10 characters).").max(2000, "At most 2,000 characters."),
+});
+export type WithdrawalInput = z.infer<typeof withdrawalSchema>;

@@ -27,6 +27,8 @@ export function buyerRules(builder: RuleBuilder, actor: Actor): void {
   can("export", ["Score", "Memo"]);
   can("create", "Recommendation", { preparedBy: actor.id });
   can("update", "Recommendation", { preparedBy: actor.id });
+  // Any buyer frees a recommendation stuck in approval, even one a colleague prepared.
+  can("withdraw", "Recommendation");
 
   // To invite vendors.
   can([...READ], "Organisation", { kind: "vendor" });

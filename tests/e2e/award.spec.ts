@@ -1,44 +1,31 @@
 import { createHash } from "node:crypto";
 import { readFile } from "node:fs/promises";
 import { expect, test, type APIRequestContext, type Browser, type Page } from "@playwright/test";
-import { ACCOUNTS, signIn } from "./helpers";
+import { gaugesTenderId, json, pageAs as as, REFERENCE, tenderState as stateOf } from "./gauges";
+import { ACCOUNTS, confirmStep, signIn } from "./helpers";
 
 // From recommendation to award on the demo gauges tender (RC-2027-001): two approvals for the
 // high-value band, a return and a resubmission on the way, the memo downloaded, its fingerprint
 // confirmed on the public Memo check, and the notices in the Mailroom.
 //
 // Starting state: the demo seed with the demo approval bands. The tender may be in technical
-// evaluation (the preparation below marks, signs and opens the envelopes through the API), or
-// already in commercial evaluation (e.g. after the review journey signed it).
+// evaluation (the preparation below marks, signs and opens the envelopes through the API), already
+// in commercial evaluation (e.g. after the review journey signed it), or in approval with the
+// 250,000 EUR recommendation of the comparison and deadlock journeys.
 test.describe.configure({ mode: "serial" });
 
-const REFERENCE = "RC-2027-001";
 // 4,000 radios with installation and support: the band from 250,000 EUR needs two approvals.
 const VALUE = 250_000;
 let tenderId = "";
 let memoFile = "";
 let fingerprint = "";
 
-async function as(browser: Browser, email: string): Promise<Page> {
-  const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
-  await signIn(page, email);
-  return page;
-}
-
-async function json(api: APIRequestContext, method: "get" | "post", url: string, data?: unknown) {
-  const response = await api[method](url, data === undefined ? {} : { data });
-  return { status: response.status(), body: await response.json().catch(() => null) };
-}
-
-async function tenderState(api: APIRequestContext): Promise<string> {
-  return (await json(api, "get", `/api/v1/tenders/${tenderId}`)).body.state;
-}
+const tenderState = (api: APIRequestContext) => stateOf(api, tenderId);
 
 /** Brings the tender to commercial evaluation with its envelopes open (idempotent). */
 async function prepare(browser: Browser) {
   const buyer = await as(browser, ACCOUNTS.buyer);
-  const list = (await json(buyer.request, "get", "/api/v1/tenders")).body;
-  tenderId = (Array.isArray(list) ? list : list.tenders).find((t: { reference: string }) => t.reference === REFERENCE).id;
+  tenderId = await gaugesTenderId(buyer.request);
   if ((await tenderState(buyer.request)) === "technical") {
     const engineer = (await as(browser, ACCOUNTS.engineer)).request;
     await json(engineer, "post", `/api/v1/tenders/${tenderId}/declaration`, { conflict: "none", conflictedOrgIds: [], statement: "No ties to any invited vendor." });
@@ -59,7 +46,13 @@ async function prepare(browser: Browser) {
 async function recommend(api: APIRequestContext, justification: string) {
   const comparison = (await json(api, "get", `/api/v1/tenders/${tenderId}/comparison`)).body;
   const best = comparison.sheet.offers.find((o: { rank: number | null }) => o.rank === 1);
-  const posted = await json(api, "post", `/api/v1/tenders/${tenderId}/recommendation`, { offerId: best.offerId, quantity: 4000, value: VALUE, justification });
+  const posted = await json(api, "post", `/api/v1/tenders/${tenderId}/recommendation`, {
+    offerId: best.offerId,
+    quantity: 4000,
+    value: VALUE,
+    valueReason: "Installation at every gauge site and five years of support.",
+    justification,
+  });
   expect(posted.status).toBe(201);
 }
 
@@ -81,6 +74,7 @@ async function decide(page: Page, button: "Approve" | "Return to the buyer", com
   const form = page.getByRole("form", { name: "Decision" });
   await form.getByLabel("Comment (required to return)").fill(comment);
   await form.getByRole("button", { name: button }).click();
+  if (button === "Approve") await confirmStep(page, "Approve");
   // The page redraws at once: the decision shows in the list of decisions, with its comment.
   await expect(page.getByRole("region", { name: "Decisions" })).toContainText(comment);
 }

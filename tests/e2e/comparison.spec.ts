@@ -1,6 +1,6 @@
 import { readFile } from "node:fs/promises";
 import { expect, test, type Page } from "@playwright/test";
-import { ACCOUNTS, signIn } from "./helpers";
+import { ACCOUNTS, confirmStep, signIn } from "./helpers";
 
 // Starting state (arranged before this spec): the tender below is in commercial evaluation, its
 // technical evaluation signed, its envelopes still sealed, with at least two offers in the ranking.
@@ -43,6 +43,7 @@ test("a buyer opens the envelopes, sorts, exports, tries other weights and recom
   }
 
   await page.getByRole("button", { name: "Open envelopes" }).click();
+  await confirmStep(page, "Open the envelopes");
   await expect(page.getByRole("status").filter({ hasText: "Envelopes opened" })).toBeVisible();
   await expect(page.getByRole("button", { name: "Open envelopes" })).toHaveCount(0);
   await expect.poll(async () => (await gridRows(page)).some((r) => r.rank === "1")).toBe(true);
@@ -107,6 +108,9 @@ test("a buyer opens the envelopes, sorts, exports, tries other weights and recom
   await expect(form.getByLabel(/Award value/)).not.toHaveValue("0");
   // 4,000 radios with installation and support: 250,000 EUR, the band that needs two approvals (the award journey goes on from here).
   await form.getByLabel(/Award value/).fill("250000");
+  // A value other than the offer's prices give needs a stated reason, shown beside the computed one.
+  await expect(form.getByText(/The offer's prices give €/)).toBeVisible();
+  await form.getByLabel("Why the award value differs from the offer's prices").fill("Installation at every gauge site and five years of support.");
   await form.getByLabel("Justification").fill("Highest total score; plausible at both operating points, lab evidence on file and a short lead time.");
   await form.getByRole("button", { name: "Submit recommendation" }).click();
   await expect(page.getByRole("status").filter({ hasText: "now in approval" })).toBeVisible();

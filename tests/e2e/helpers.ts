@@ -27,4 +27,12 @@ export async function signOut(page: Page) {
   await expect(page.getByRole("heading", { name: "Sign in" })).toBeVisible();
 }
 
+/** Confirms an irreversible step in the dialog that asks first, by the confirming button's label. */
+export async function confirmStep(page: Page, action: string) {
+  const dialog = page.getByRole("dialog");
+  await expect(dialog).toBeVisible();
+  await dialog.getByRole("button", { name: action, exact: true }).click();
+  await expect(dialog).toBeHidden();
+}
+
 export const nav = (page: Page) => page.getByRole("navigation", { name: "Main" });

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { ACCOUNTS, signIn, signOut } from "./helpers";
+import { ACCOUNTS, signIn, signOut, confirmStep } from "./helpers";
 
 // One journey through the technical evaluation of the gauges tender (RC-2027-001), in order:
 // the engineer declares, reviews, records a lab run at a milder channel (it does not verify) and
@@ -127,6 +127,7 @@ test("the engineer marks every claim and signs the technical evaluation", async 
   await expect(signoff).toContainText(`${hrefs.length} of ${hrefs.length} claims have a final mark; no question is waiting`);
   await signoff.getByLabel("Statement").fill("Every claim reviewed against the bounds and the lab evidence.");
   await signoff.getByRole("button", { name: "Sign the technical evaluation" }).click();
+  await confirmStep(page, "Sign");
   await expect(signoff.getByRole("list", { name: "Signatures" })).toContainText("Every claim reviewed against the bounds and the lab evidence.");
   await expect(signoff.getByRole("list", { name: "Signatures" })).toContainText("Signed by");
   await expect(page.locator('[data-state="commercial"]')).toBeVisible();

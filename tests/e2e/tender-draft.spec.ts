@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { ACCOUNTS, nav, signIn, signOut } from "./helpers";
+import { ACCOUNTS, nav, signIn, signOut, confirmStep } from "./helpers";
 
 // A buyer drafts a tender, invites two vendors and opens it; the invitations reach the Mailroom.
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
@@ -39,6 +39,8 @@ test("a buyer drafts a tender with two operating points, invites two vendors and
   await expect(page.getByText("Draft", { exact: true })).toBeVisible();
 
   await page.getByRole("button", { name: "Open tender" }).click();
+  await expect(page.getByRole("dialog")).toContainText("The invited vendors are e-mailed at once");
+  await confirmStep(page, "Open the tender");
   await expect(page.getByText("Open for offers", { exact: true })).toBeVisible();
   // Opened: the requirements are locked, so there is nothing left to edit.
   await expect(page.getByRole("link", { name: "Edit" })).toHaveCount(0);

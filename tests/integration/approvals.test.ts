@@ -203,7 +203,12 @@ describe("from recommendation to award", () => {
     expect((await decide(as.director, f.tenderId, { decision: "return", comment: "Too late now." })).status).toBe(409);
     const view = await signOff(as.buyer, f.tenderId);
     expect(view.memo).toMatchObject({ identifier: memo.identifier, sha256: memo.sha256 });
-    expect(view.decisions.map((d: { decision: string }) => d.decision)).toEqual(["approved", "returned", "approved", "approved"]);
+    // Decisions are grouped by recommendation: Helen's approval of the returned one is not a decision on the award.
+    const said = (list: { name: string; decision: string }[]) => list.map((d) => `${d.name} ${d.decision}`);
+    expect(said(view.decisions)).toEqual(["Tomas Veld approved", "Helen Strand approved"]);
+    expect(view.earlier).toHaveLength(1);
+    expect(view.earlier[0]).toMatchObject({ status: "returned" });
+    expect(said(view.earlier[0].decisions)).toEqual(["Helen Strand approved", "Tomas Veld returned"]);
     awarded = f;
   });
 

@@ -10,7 +10,7 @@ export const metadata: Metadata = { title: "Approval limits" };
 /** Value bands: how many approvals an award needs and the least limit each approver must hold. */
 export default async function ApprovalLimitsPage() {
   const viewer = await pageViewer();
-  const { bands, gaps } = await orPage(listApprovalBands(viewer));
+  const { bands, gaps, warnings } = await orPage(listApprovalBands(viewer));
   const editable = viewer.ability.can("create", "ApprovalLimit");
   return (
     <div className="space-y-5">
@@ -26,6 +26,12 @@ export default async function ApprovalLimitsPage() {
           Not covered:{" "}
           {gaps.map((g) => `${formatMoney(g.from, g.currency)} to ${g.to === null ? "any value" : formatMoney(g.to, g.currency)}`).join("; ")}. Awards in a gap cannot be approved.
         </p>
+      ) : null}
+      {warnings.length ? (
+        <div className="space-y-1 text-sm text-verdict-evidence" role="note" aria-label="Bands the approvers cannot meet">
+          {warnings.map((w) => <p key={w}>{w}</p>)}
+          <p>A recommendation in such a band is refused when the buyer submits it. Raise an approver&apos;s limit or add an approver on the People page.</p>
+        </div>
       ) : null}
       {editable ? (
         <section className="panel" aria-label="New band">

@@ -25,13 +25,16 @@ export default async function DeskPage() {
           ) : (
             <ul className="mt-2 divide-y divide-ink-faint/15">
               {section.tenders.map((t) => (
-                <li key={t.id} className="flex items-center gap-3 py-2 text-sm">
-                  <span className="w-28 font-mono text-xs text-ink-soft">{t.reference}</span>
-                  <Link href={`/tenders/${t.id}${section.tab ? `/${section.tab}` : ""}`} className="flex-1">{t.title}</Link>
-                  <StateTag state={t.state} />
-                  <span className="text-xs text-ink-soft">
-                    closes <DateTime value={t.closesAt} zone={t.closesZone} />
-                  </span>
+                <li key={t.id} className="py-2 text-sm">
+                  <div className="flex items-center gap-3">
+                    <span className="w-28 font-mono text-xs text-ink-soft">{t.reference}</span>
+                    <Link href={`/tenders/${t.id}${section.tab ? `/${section.tab}` : ""}`} className="flex-1">{t.title}</Link>
+                    <StateTag state={t.state} />
+                    <span className="text-xs text-ink-soft">
+                      closes <DateTime value={t.closesAt} zone={t.closesZone} />
+                    </span>
+                  </div>
+                  {section.notes?.[t.id] ? <p className="mt-1 pl-[7.75rem] text-xs text-verdict-evidence">{section.notes[t.id]}</p> : null}
                 </li>
               ))}
             </ul>

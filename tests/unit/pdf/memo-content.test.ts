@@ -12,7 +12,7 @@ function facts(over: Partial<MemoFacts> = {}): MemoFacts {
     tender: { reference: "RC-2099-001", title: "Weir radios", description: "", channelModel: "bsc", operatingPoints: [{ label: "Storm fade", value: 5e-3 }], targetMetric: "bler", targetValue: 1e-4, maxFrameBits: null, quantity: 10, currency: "EUR" },
     offers: [{ vendorName: "Alder", moduleName: "A1", partNumber: "A-1", codeFamily: "LDPC", decision: "hard", n: 1024, k: 512, rate: 0.5, claims: [claim()] }],
     scoreSheet: null,
-    recommendation: { vendorName: "Alder", moduleName: "A1", value: 1000, currency: "EUR", quantity: 10, justification: "Best.", preparedBy: "Pat", preparedAt: AT },
+    recommendation: { vendorName: "Alder", moduleName: "A1", value: 1000, computedValue: 1000, valueReason: null, quantityReason: null, currency: "EUR", quantity: 10, justification: "Best.", preparedBy: "Pat", preparedAt: AT },
     approvals: [],
     approvalsNeeded: 1,
     safetyRelevant: false,

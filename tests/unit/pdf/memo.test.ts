@@ -33,7 +33,7 @@ function sample(overrides: Partial<MemoDocument> = {}): MemoDocument {
       { rank: "1", vendorName: "Alder Links", total: "81.2", note: "" },
       { rank: "-", vendorName: "Birch Radio", total: "0.0", note: "Disqualified: impossible claim" },
     ],
-    recommendation: { vendorName: "Alder Links", module: "AL-9", value: "€300,000.00", quantity: "4,000 units", justification: "Best score.", prepared: "Prepared by Pat Buyer" },
+    recommendation: { vendorName: "Alder Links", module: "AL-9", value: "€300,000.00", quantity: "4,000 units", deviations: [], justification: "Best score.", prepared: "Prepared by Pat Buyer" },
     approvals: [
       { name: "Quinn Approver", at: "4 Mar 2027, 09:00 UTC", comment: "Fine." },
       { name: "Rowan Director", at: "4 Mar 2027, 10:15 UTC", comment: "" },
@@ -70,6 +70,13 @@ describe("the award memo PDF", () => {
     expect(text).toContain("Every claim reviewed against the bounds.");
     expect(text).toContain("Sam Engineer, 20 Feb 2027, 09:00 UTC: no conflict.");
     expect(text).toContain("Lab evidence: Verified: 0 errors in 3,000,000 frames at p = 1e-3");
+  });
+
+  it("prints each departure from the offer beside the computed value, with its reason", async () => {
+    const deviations = ["Stated value €300,000.00; the offer's prices give €143,600.00 for 4,000 units. Reason: Fitting."];
+    const text = await pdfText(await renderMemo(sample({ recommendation: { ...sample().recommendation, deviations } })));
+    expect(text).toContain("the offer's prices give €143,600.00 for 4,000 units");
+    expect(text).toContain("Reason: Fitting.");
   });
 
   it("prints the memo identifier in the footer of every page", async () => {

@@ -77,6 +77,7 @@ const TABLE: Record<Role, Entry[]> = {
     ["export", "Memo", [make.Memo()]],
     [["create", "update"], "Recommendation", [(me) => make.Recommendation({ preparedBy: me.id })],
       [make.Recommendation({ preparedBy: SOMEONE })]],
+    ["withdraw", "Recommendation", [make.Recommendation(), make.Recommendation({ preparedBy: SOMEONE })]],
     ["read", "Organisation", [own.org, make.Organisation(), make.Organisation({ id: VENDOR_B })],
       [make.Organisation({ id: "org-other-buyer", kind: "buyer" })]],
     ["list", "Organisation", [make.Organisation(), make.Organisation({ id: VENDOR_B })],

@@ -3,6 +3,7 @@
 import { useState, useTransition } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useConfirm } from "@/app/_components/confirm";
 import { cancelTenderSchema, type CancelTenderInput } from "@/lib/validation/tender";
 import { cancelTenderAction, openTenderAction, type TenderFormResult } from "../../actions";
 
@@ -15,16 +16,20 @@ function Outcome({ result }: { result: TenderFormResult }) {
   );
 }
 
-/** Draft -> open. The server checks again and says what is missing. */
+/** Draft -> open, after a confirmation. The server checks again and says what is missing. */
 export function OpenTenderButton({ tenderId }: { tenderId: string }) {
   const [result, setResult] = useState<TenderFormResult>({});
   const [pending, startTransition] = useTransition();
+  const confirm = useConfirm();
+  const open = () => startTransition(async () => setResult(await openTenderAction(tenderId)));
+  const consequences = "The invited vendors are e-mailed at once and can send offers until the closing time. The requirements, operating points and weights lock for good; this cannot be undone.";
   return (
     <div className="space-y-2">
-      <button type="button" className="btn" disabled={pending} onClick={() => startTransition(async () => setResult(await openTenderAction(tenderId)))}>
+      <button type="button" className="btn" disabled={pending} onClick={() => confirm.ask({ title: "Open this tender for offers?", consequences, action: "Open the tender" }, open)}>
         {pending ? "Opening…" : "Open tender"}
       </button>
       <Outcome result={result} />
+      {confirm.dialog}
     </div>
   );
 }

@@ -9,11 +9,11 @@ import { listDeclarableVendors } from "@/lib/server/declarations";
 import { orPage, pageViewer } from "@/lib/server/pages";
 import { DeclarationForm } from "../review/_components/declaration-form";
 import { DecisionForm } from "./_components/decision-form";
+import { DecisionsList, STATUS_WORDS } from "./_components/decisions-list";
+import { WithdrawForm } from "./_components/withdraw-form";
 import { VerdictSummary } from "./_components/verdict-summary";
 
 export const metadata: Metadata = { title: "Sign-off" };
-
-const STATUS_WORDS = { pending: "Awaiting approval", returned: "Returned to the buyer", approved: "Approved", superseded: "Superseded" } as const;
 
 /** The approvers' tab: the recommendation, its scores and verdicts, the memo preview, and the decision. */
 export default async function SignOffPage({ params }: { params: Promise<{ id: string }> }) {
@@ -49,20 +49,44 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
         <p className="text-sm">
           Award to <strong>{rec.vendorName}</strong>, {rec.moduleName}: <span className="tabular-nums">{rec.quantity.toLocaleString("en-GB")} units for {money(rec.value)}</span>.
         </p>
+        {rec.deviations.length ? (
+          <ul className="space-y-1 text-sm text-verdict-evidence" aria-label="Departures from the offer">
+            {rec.deviations.map((d) => <li key={d}>{d}</li>)}
+          </ul>
+        ) : rec.computedValue !== null ? (
+          <p className="text-xs text-ink-soft">The value is the offer&apos;s price for this quantity, price breaks applied.</p>
+        ) : null}
         <p className="whitespace-pre-line text-sm">{rec.justification}</p>
+        {rec.withdrawReason ? <p className="text-sm">Withdrawn: {rec.withdrawReason}</p> : null}
         <p className="text-xs text-ink-soft">Prepared by {rec.preparedBy}, <DateTime value={rec.preparedAt} zone={zone} /></p>
         <p className="text-sm" aria-label="Approval rule">
           {rec.rule
-            ? `This value needs ${rec.rule.approvalsNeeded} approval${rec.rule.approvalsNeeded > 1 ? "s" : ""} from approvers with a limit of at least ${money(Math.max(rec.rule.minApproverLimit, rec.value))}; ${rec.approvalsGiven} given.`
+            ? `This value needs ${rec.rule.approvalsNeeded} approval${rec.rule.approvalsNeeded > 1 ? "s" : ""} from approvers with a limit of at least ${money(Math.max(rec.rule.minApproverLimit, rec.governingValue))}; ${rec.approvalsGiven} given.`
             : "No approval band covers this value: an admin must add one before anyone can approve."}
         </p>
         {rec.status === "pending" ? <p className="text-xs text-ink-soft">Routed to: {view.routedTo.join(", ") || "no approver holds a limit that covers it"}.</p> : null}
+        {view.stuck ? <p className="text-sm text-verdict-impossible" role="alert" aria-label="Cannot be approved">This recommendation cannot be approved as things stand. {view.stuck}</p> : null}
       </section>
+
+      {view.canWithdraw ? (
+        <section className="panel" aria-label="Withdraw">
+          <h2>Withdraw from approval</h2>
+          <WithdrawForm tenderId={id} />
+        </section>
+      ) : null}
 
       {view.me.allowed ? (
         <section className="panel" aria-label="Your decision">
           <h2>Your decision</h2>
-          <DecisionForm tenderId={id} summary={`Approve the award of ${money(rec.value)} to ${rec.vendorName}, or return it to the buyer with a comment.`} />
+          <DecisionForm
+            tenderId={id}
+            summary={`Approve the award of ${money(rec.value)} to ${rec.vendorName}, or return it to the buyer with a comment.`}
+            onApprove={
+              view.me.awardsIfApproved
+                ? `Yours is the last approval needed: the tender is awarded to ${rec.vendorName} for ${money(rec.value)}, the award memo is issued with its fingerprint, and every vendor is told. This cannot be undone.`
+                : `Your approval of ${money(rec.value)} to ${rec.vendorName} is recorded with your name and the time, and counts towards the ${rec.rule?.approvalsNeeded ?? ""} approvals it needs. It cannot be undone.`
+            }
+          />
         </section>
       ) : view.me.reason && rec.status === "pending" ? (
         <p className="panel text-sm" role="note" aria-label="Why you cannot decide">{view.me.reason}</p>
@@ -100,18 +124,7 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
 
       <VerdictSummary offers={view.offers ?? []} />
 
-      <section className="panel" aria-label="Decisions">
-        <h2>Decisions</h2>
-        <ul className="mt-2 space-y-1 text-sm">
-          {(view.decisions ?? []).map((d) => (
-            <li key={d.id}>
-              <strong>{d.name}</strong> {d.decision === "approved" ? "approved" : "returned it"} on <DateTime value={d.decidedAt} zone={zone} />
-              {d.comment ? <span className="text-ink-soft">: {d.comment}</span> : null}
-            </li>
-          ))}
-          {(view.decisions ?? []).length === 0 ? <li className="text-ink-soft">No decision yet.</li> : null}
-        </ul>
-      </section>
+      <DecisionsList decisions={view.decisions ?? []} earlier={view.earlier ?? []} zone={zone} />
       <Cautions safety={view.tender.safetyRelevant} />
     </div>
   );

@@ -1,6 +1,7 @@
 "use client";
 
 import { useCallback, useEffect, useState, useTransition } from "react";
+import { useConfirm } from "@/app/_components/confirm";
 import type { Comparison } from "@/lib/server/comparison";
 import type { FormResult } from "@/lib/server/form-action";
 import { openEnvelopesAction } from "../actions";
@@ -36,12 +37,21 @@ export function ComparisonView({ tenderId, reference }: { tenderId: string; refe
     void load();
   }, [load]);
 
+  const confirm = useConfirm();
   const openEnvelopes = () =>
-    startTransition(async () => {
-      const outcome = await openEnvelopesAction(tenderId);
-      setResult(outcome);
-      await load();
-    });
+    confirm.ask(
+      {
+        title: "Open the price envelopes?",
+        consequences: "Every offer's prices, lead times and warranties become readable to the buying team and are scored. Envelopes cannot be sealed again; the opening goes into the ledger.",
+        action: "Open the envelopes",
+      },
+      () =>
+        startTransition(async () => {
+          const outcome = await openEnvelopesAction(tenderId);
+          setResult(outcome);
+          await load();
+        }),
+    );
 
   if (error) return <p role="alert" className="panel text-sm text-verdict-impossible">{error}</p>;
   if (!data) return <p className="text-sm text-ink-soft" role="status">Loading the comparison…</p>;
@@ -69,6 +79,7 @@ export function ComparisonView({ tenderId, reference }: { tenderId: string; refe
           </button>
         ) : null}
         <button type="button" className="btn-quiet" onClick={() => startTransition(load)} disabled={pending}>Recompute</button>
+        {confirm.dialog}
       </section>
 
       <ComparisonGrid

@@ -5,6 +5,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { DateTime } from "@/app/_components/date-time";
 import { formatMoney } from "@/lib/format";
+import { valuesDiffer } from "@/lib/approvals/award-value";
 import { totalPriceAt, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
 import { recommendationSchema, type RecommendationInput } from "@/lib/validation/comparison";
 import type { FormResult } from "@/lib/server/form-action";
@@ -20,6 +21,7 @@ interface Listed {
   justification: string;
   preparedAt: string;
   returns: { comment: string; decidedAt: string }[];
+  withdrawReason: string | null;
 }
 
 /** The recommendation: the latest one's status and, in commercial evaluation, the buyer's form. */
@@ -42,6 +44,7 @@ export function RecommendationPanel(props: { tenderId: string; input: ScoringInp
               <span className="font-medium">{r.vendorName}</span>, {r.quantity.toLocaleString("en-GB")} units for {formatMoney(r.value, r.currency)}:{" "}
               <span data-status={r.status}>{r.status}</span> (<DateTime value={new Date(r.preparedAt)} />)
               {r.returns.map((ret) => <p key={ret.decidedAt} className="text-ink-soft">Returned: {ret.comment}</p>)}
+              {r.withdrawReason ? <p className="text-ink-soft">Withdrawn: {r.withdrawReason}</p> : null}
             </li>
           ))}
         </ul>
@@ -63,11 +66,15 @@ function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId:
   });
   const offerId = watch("offerId");
   const quantity = watch("quantity");
-  // The award value follows the chosen offer's price at the chosen quantity; the buyer may still change it.
+  const value = watch("value");
+  const envelope = input.offers.find((o) => o.id === offerId)?.envelope;
+  const computed = envelope && Number.isInteger(quantity) && quantity > 0 ? totalPriceAt(envelope.unitPrice, envelope.priceBreaks, quantity) : null;
+  // The award value follows the chosen offer's price at the chosen quantity; a different value needs a reason.
   useEffect(() => {
-    const envelope = input.offers.find((o) => o.id === offerId)?.envelope;
-    if (envelope && Number.isInteger(quantity) && quantity > 0) setValue("value", totalPriceAt(envelope.unitPrice, envelope.priceBreaks, quantity));
-  }, [offerId, quantity, input.offers, setValue]);
+    if (computed !== null) setValue("value", computed);
+  }, [computed, setValue]);
+  const differs = computed !== null && Number.isFinite(value) && valuesDiffer(value, computed);
+  const beyond = Number.isFinite(quantity) && quantity > sheet.quantity;
 
   const submit = handleSubmit((values) =>
     startTransition(async () => {
@@ -101,9 +108,24 @@ function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId:
         <div>
           <label className="label" htmlFor="rec-value">Award value ({sheet.currency})</label>
           <input id="rec-value" type="number" min={0} step="0.01" className="field tabular-nums" {...register("value", { valueAsNumber: true })} />
+          {computed !== null ? <p className="mt-1 text-xs text-ink-soft">The offer&apos;s prices give {formatMoney(computed, sheet.currency)} for this quantity.</p> : null}
           {err("value")}
         </div>
       </div>
+      {beyond ? (
+        <div>
+          <label className="label" htmlFor="rec-quantity-reason">Why more units than the tender&apos;s {sheet.quantity.toLocaleString("en-GB")}</label>
+          <textarea id="rec-quantity-reason" rows={2} className="field" {...register("quantityReason")} />
+          {err("quantityReason")}
+        </div>
+      ) : null}
+      {differs ? (
+        <div>
+          <label className="label" htmlFor="rec-value-reason">Why the award value differs from the offer&apos;s prices</label>
+          <textarea id="rec-value-reason" rows={2} className="field" {...register("valueReason")} />
+          {err("valueReason")}
+        </div>
+      ) : null}
       <div>
         <label className="label" htmlFor="rec-justification">Justification</label>
         <textarea id="rec-justification" rows={4} className="field" {...register("justification")} />

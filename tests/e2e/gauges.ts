@@ -1,0 +1,26 @@
+// Shared by the journeys on the demo gauges tender (RC-2027-001) after its comparison.
+import type { APIRequestContext, Browser, Page } from "@playwright/test";
+import { signIn } from "./helpers";
+
+export const REFERENCE = "RC-2027-001";
+
+/** A signed-in page of its own (own cookies), so several people can act side by side. */
+export async function pageAs(browser: Browser, email: string): Promise<Page> {
+  const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
+  await signIn(page, email);
+  return page;
+}
+
+export async function json(api: APIRequestContext, method: "get" | "post", url: string, data?: unknown) {
+  const response = await api[method](url, data === undefined ? {} : { data });
+  return { status: response.status(), body: await response.json().catch(() => null) };
+}
+
+export async function gaugesTenderId(api: APIRequestContext): Promise<string> {
+  const list = (await json(api, "get", "/api/v1/tenders")).body;
+  return (Array.isArray(list) ? list : list.tenders).find((t: { reference: string }) => t.reference === REFERENCE).id;
+}
+
+export async function tenderState(api: APIRequestContext, tenderId: string): Promise<string> {
+  return (await json(api, "get", `/api/v1/tenders/${tenderId}`)).body.state;
+}
