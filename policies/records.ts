@@ -35,9 +35,14 @@ export interface EnvelopeRecord extends EnvelopeValues {
   tenderId: string;
   vendorOrgId: string;
   opened: boolean;
+  tenderState?: TenderState;
 }
 
-export interface ClaimRecord { id: string; offerId: string; tenderId: string; vendorOrgId: string }
+/**
+ * The records of a vendor's offer other than the Offer itself carry their tender's state where it
+ * is known: the buying side reads none of them while the tender is draft or open (sealed).
+ */
+export interface ClaimRecord { id: string; offerId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
 
 export interface DocumentRecord {
   id: string;
@@ -48,10 +53,10 @@ export interface DocumentRecord {
   tenderState?: TenderState;
 }
 
-export interface MarkRecord { claimId: string; tenderId: string; vendorOrgId: string }
+export interface MarkRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
 /** A clarification thread between engineers and one vendor; its messages share its access. */
-export interface ThreadRecord { id: string; tenderId: string; vendorOrgId: string }
-export interface EvidenceRunRecord { claimId: string; tenderId: string; vendorOrgId: string }
+export interface ThreadRecord { id: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
+export interface EvidenceRunRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
 export interface DeclarationRecord { tenderId: string; userId: string }
 export interface TechnicalSignoffRecord { tenderId: string }
 export interface ScoreRecord { tenderId: string }

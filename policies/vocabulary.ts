@@ -70,6 +70,9 @@ export const TENDER_STATES = [
 ] as const;
 export type TenderState = (typeof TENDER_STATES)[number];
 
+/** States in which offers are sealed to the whole buying side: nothing of them is read before closing. */
+export const SEALED_STATES = ["draft", "open"] as const;
+
 /** States from which a tender may still be cancelled (anything before the award). */
 export const CANCELLABLE_STATES = ["draft", "open", "technical", "commercial", "approval"] as const;
 

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
-import { asSubject, pickPermitted } from "@/policies";
+import { asSubject, pickPermitted, SEALED_STATES } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, offers, organisations } from "@/db/schema";
 import type { ClaimResult } from "@/lib/bounds";
@@ -30,10 +30,10 @@ function viewOf(viewer: Viewer, tender: TenderWithInvites, row: OfferRow, vendor
     status: row.status,
     vendorName,
     claims: claimRows
-      .filter((c) => c.offerId === row.id && can("read", asSubject("Claim", c)))
+      .filter((c) => c.offerId === row.id && can("read", asSubject("Claim", { ...c, tenderState: tender.state })))
       .sort((a, b) => a.pointIndex - b.pointIndex)
       .map((c) => ({ ...c, keyFinding: keyFinding(c.result as unknown as ClaimResult) })),
-    documents: docs.filter((d) => own(d) && can("read", asSubject("Document", documentRecord(d)))).map(documentView),
+    documents: docs.filter((d) => own(d) && can("read", asSubject("Document", documentRecord(d, tender.state)))).map(documentView),
   };
 }
 export type OfferView = ReturnType<typeof viewOf>;
@@ -72,7 +72,9 @@ async function loadOffer(viewer: Viewer, offerId: string) {
   const [row] = await db.select().from(offers).where(eq(offers.id, offerId));
   if (!row) throw new NotFoundError("No such offer.");
   const tender = await getTender(viewer, row.tenderId);
-  authorize(viewer, "read", offerSubject(row, tender), "This offer is not yours to read.");
+  // A sealed offer says so (the policy's reason); anything else is simply not the viewer's.
+  const sealed = viewer.actor.organisationKind === "buyer" && (SEALED_STATES as readonly string[]).includes(tender.state);
+  authorize(viewer, "read", offerSubject(row, tender), sealed ? undefined : "This offer is not yours to read.");
   return { row, tender };
 }
 
