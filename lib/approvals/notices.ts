@@ -24,6 +24,17 @@ export function awaitingApprovalNotice(t: TenderWords, given: number, needed: nu
   };
 }
 
+/**
+ * To an approver who could decide but has not declared on the tender: no vendor, value or reason,
+ * only the way to declare (what they may read before declaring is the tender itself).
+ */
+export function declareToReadNotice(t: TenderWords): NoticeText {
+  return {
+    subject: `${t.reference}: a recommendation awaits approval`,
+    text: `A recommendation on tender ${t.reference} ${t.title} awaits approval within your limit.\n\nDeclare any conflict of interest on the tender's Sign-off tab first; with no conflict declared, you can then read the recommendation and decide: ${link(t, "/sign-off")}`,
+  };
+}
+
 export function approvalGivenNotice(t: TenderWords, approver: string, given: number, needed: number): NoticeText {
   return {
     subject: `${t.reference}: recommendation approved by ${approver} (${given} of ${needed})`,

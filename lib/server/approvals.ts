@@ -13,6 +13,7 @@ import { bandRuleFor } from "./approval-bands";
 import { ConflictError, ForbiddenError } from "./errors";
 import { appendLedger } from "./ledger";
 import { approvalsGiven, issueMemo, type MemoRow } from "./memos";
+import { approvalRequestNotices } from "./approval-requests";
 import { addressesOf, notify, type Notice } from "./notify";
 import { getCurrentRecommendation, type RecommendationRow } from "./recommendations";
 import { authorize, ledgerActor, type Viewer } from "./session";
@@ -157,10 +158,10 @@ async function decisionNotices(db: Queryable, viewer: Viewer, tender: TenderRow,
   const buyer = await emailOf(db, rec.preparedBy);
   if (outcome.kind === "returned") return [{ to: buyer, ...words.returnedNotice(tender, viewer.name, outcome.comment) }];
   if (outcome.kind === "approved") {
-    const remaining = (await eligibleApprovers(db, tender, rec, rule)).filter((u) => !outcome.approvedBy.includes(u.id));
+    const awaiting = words.awaitingApprovalNotice(tender, outcome.given, outcome.needed, formatMoney(rec.value, rec.currency));
     return [
       { to: buyer, ...words.approvalGivenNotice(tender, viewer.name, outcome.given, outcome.needed) },
-      { to: remaining.map((u) => u.email), ...words.awaitingApprovalNotice(tender, outcome.given, outcome.needed, formatMoney(rec.value, rec.currency)) },
+      ...(await approvalRequestNotices(db, tender, rec, rule, awaiting, outcome.approvedBy)),
     ];
   }
   return awardNotices(db, tender, rec, outcome.memo);
