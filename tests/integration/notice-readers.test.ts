@@ -34,7 +34,7 @@ async function mailAbout(reference: string, atLeast: number) {
   }
   throw new Error(`fewer than ${atLeast} messages about ${reference}`);
 }
-const to = (mail: { to: string[] }[], address: string) => mail.filter((m) => m.to.includes(address));
+const to = <M extends { to: string[] }>(mail: M[], address: string) => mail.filter((m) => m.to.includes(address));
 
 describe("a vendor's answer in a clarification thread", () => {
   it("reaches only the engineers who may read that vendor's thread", async () => {
