@@ -74,6 +74,10 @@ export interface MemoRecord { tenderId: string }
 export type MemoCheckRecord = object;
 export type MailroomRecord = object;
 export type BoundsRecord = object;
+/** A vendor's written objection to an award, during the standstill period. */
+export interface ObjectionRecord { tenderId: string; vendorOrgId: string }
+/** A clarification published to every invited vendor of a tender, without the asker's name. */
+export interface AddendumRecord { tenderId: string; invitedOrgIds: string[] }
 
 export interface SubjectRecords {
   Organisation: OrganisationRecord;
@@ -97,6 +101,8 @@ export interface SubjectRecords {
   MemoCheck: MemoCheckRecord;
   Mailroom: MailroomRecord;
   Bounds: BoundsRecord;
+  Objection: ObjectionRecord;
+  Addendum: AddendumRecord;
 }
 
 // Compile-time check that every subject has a record shape and nothing else does.

@@ -28,6 +28,7 @@ export const ACTIONS = [
   "return",
   "export",
   "verify", // a memo fingerprint
+  "acknowledge", // a vendor confirms it has read an addendum
   "assignRoles",
   "deactivate",
   "use", // a tool: the bound explorer, the mailroom
@@ -56,6 +57,8 @@ export const SUBJECTS = [
   "MemoCheck",
   "Mailroom",
   "Bounds",
+  "Objection",
+  "Addendum",
 ] as const;
 export type SubjectType = (typeof SUBJECTS)[number];
 

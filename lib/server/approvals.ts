@@ -13,7 +13,7 @@ import { bandRuleFor } from "./approval-bands";
 import { ConflictError, ForbiddenError } from "./errors";
 import { appendLedger } from "./ledger";
 import { approvalsGiven, issueMemo, type MemoRow } from "./memos";
-import { approvalRequestNotices } from "./approval-requests";
+import { approvalRequestNotices, awardDisclosure } from "./approval-notices";
 import { addressesOf, notify, type Notice } from "./notify";
 import { getCurrentRecommendation, type RecommendationRow } from "./recommendations";
 import { authorize, ledgerActor, type Viewer } from "./session";
@@ -177,13 +177,14 @@ export async function awardNotices(db: Queryable, tender: TenderRow, rec: Recomm
   const winnerOffer = (await db.select().from(offers).where(eq(offers.id, rec.offerId)))[0];
   const winner = current.find((o) => o.vendorOrgId === winnerOffer.vendorOrgId) ?? { ...winnerOffer, vendorName: "", offerId: winnerOffer.id };
   const standings = standingsOf(rec.scoreSheet);
+  const disclosure = awardDisclosure(tender, winner.vendorName, standings.find((x) => x.offerId === rec.offerId) ?? null, memo.createdAt);
   const notices: Notice[] = [
     { to: await emailOf(db, rec.preparedBy), ...words.awardedNotice(tender, winner.vendorName, formatMoney(rec.value, rec.currency), memo.identifier, memo.sha256) },
-    { to: await addressesOf(db, [winner.vendorOrgId], "vendor"), ...words.awardNotice(tender, { ...winner, quantity: rec.quantity, value: rec.value, currency: rec.currency }, memo.identifier) },
+    { to: await addressesOf(db, [winner.vendorOrgId], "vendor"), ...words.awardNotice(tender, { ...winner, quantity: rec.quantity, value: rec.value, currency: rec.currency }, memo.identifier, disclosure) },
   ];
   for (const other of current.filter((o) => o.vendorOrgId !== winner.vendorOrgId)) {
     const own = standings.find((s) => s.offerId === other.offerId) ?? null;
-    notices.push({ to: await addressesOf(db, [other.vendorOrgId], "vendor"), ...words.regretNotice(tender, other.vendorName, own, rankedCount(standings)) });
+    notices.push({ to: await addressesOf(db, [other.vendorOrgId], "vendor"), ...words.regretNotice(tender, other.vendorName, own, rankedCount(standings), disclosure) });
   }
   return notices;
 }

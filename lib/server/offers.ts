@@ -6,6 +6,7 @@ import { claims, offers, organisations } from "@/db/schema";
 import type { ClaimResult } from "@/lib/bounds";
 import { currentVersion, documentRecord, evaluateOffer, keyFinding, nextVersion, offerRecord, submissionRefusal, verdictSummary, type EvaluatedClaim, type OfferTenderState } from "@/lib/offers";
 import type { OfferInput } from "@/lib/validation/offer";
+import { requireAddendaAcknowledged } from "./addenda";
 import { documentsFor, documentView, type DocumentRow } from "./documents";
 import { ConflictError, InputError, NotFoundError } from "./errors";
 import { appendLedger } from "./ledger";
@@ -160,6 +161,7 @@ export async function submitOffer(viewer: Viewer, tenderId: string, input: Offer
   if (!evaluation.ok) throw new InputError("The offer does not fit this tender: check the highlighted fields.", evaluation.fieldErrors);
 
   const db = await getDb();
+  await requireAddendaAcknowledged(db, tenderId, vendorOrgId);
   const row = await db.transaction((tx) =>
     writeOfferVersion(tx, { tender, vendorOrgId, actor: ledgerActor(viewer), input, claims: evaluation.claims, at: now }),
   );

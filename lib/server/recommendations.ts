@@ -10,7 +10,7 @@ import { awaitingApprovalNotice } from "@/lib/approvals/notices";
 import type { RecommendationInput } from "@/lib/validation/comparison";
 import { ConflictError, ForbiddenError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
-import { approvalRequestNotices } from "./approval-requests";
+import { approvalRequestNotices } from "./approval-notices";
 import { notify } from "./notify";
 import { loadScoringInput } from "./comparison";
 import { authorize, ledgerActor, type Viewer } from "./session";

@@ -1,5 +1,5 @@
 import type { tenders } from "@/db/schema";
-import type { TenderInput } from "@/lib/validation/tender";
+import { DEFAULT_STANDSTILL_DAYS, type TenderInput } from "@/lib/validation/tender";
 import { canonicalJson } from "@/lib/ledger/chain";
 import { closingInstant, closingLocal, DEFAULT_ZONE } from "./closing";
 
@@ -9,6 +9,7 @@ export type DraftValues = Pick<
   TenderRow,
   | "title" | "description" | "channelModel" | "operatingPoints" | "targetMetric" | "targetValue" | "maxFrameBits"
   | "quantity" | "currency" | "weights" | "impossibleRule" | "impossiblePenalty" | "closesAt" | "closesZone"
+  | "noticeDisclosure" | "standstillDays"
 >;
 
 type Shared = Omit<DraftValues, "maxFrameBits" | "impossiblePenalty" | "closesAt" | "closesZone">;
@@ -26,6 +27,8 @@ function shared(from: Shared): Shared {
     currency: from.currency,
     weights: { ...from.weights },
     impossibleRule: from.impossibleRule,
+    noticeDisclosure: from.noticeDisclosure,
+    standstillDays: from.standstillDays,
   };
 }
 
@@ -68,6 +71,8 @@ export function blankDraftInput(now: Date): TenderInput {
     weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
     impossibleRule: "disqualify",
     impossiblePenalty: 0,
+    noticeDisclosure: "rank",
+    standstillDays: DEFAULT_STANDSTILL_DAYS,
     closesLocal: `${inAWeek}T12:00`,
     closesZone: DEFAULT_ZONE,
     invitedOrgIds: [],

@@ -23,6 +23,8 @@ export function engineerRules(builder: RuleBuilder, actor: Actor): void {
     can("mark", "Claim", inDeclared);
     can("record", "EvidenceRun", inDeclared);
     can(["create", "post"], "Thread", inDeclared);
+    // An answer that matters to every bidder goes out as an addendum.
+    can(["create", ...READ], "Addendum", inDeclared);
   }
   // Signing covers every vendor of the tender, so a conflict with any one of them rules it out.
   if (clean.length > 0) can("sign", "TechnicalSignoff", { tenderId: { $in: clean } });

@@ -6,6 +6,7 @@ import { POST as decidePost } from "@/app/api/v1/tenders/[id]/approvals/route";
 import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { POST as messagePost } from "@/app/api/v1/threads/[id]/messages/route";
 import { clearCapturedMail, flushMail, listCapturedMail } from "@/lib/mail";
+import { mailAbout } from "../support/mail";
 import { MAIL_CAUTION } from "@/lib/mail/words";
 import { closeDb, freshDatabase, params, request, signInAs, BASE } from "../support/app";
 import { createApprovalFixture, idsByEmail, type ApprovalFixture } from "../support/approval-fixtures";
@@ -24,16 +25,6 @@ async function declare(email: string, tenderId: string, conflictedOrgIds: string
 const approve = async (email: string, f: ApprovalFixture) =>
   decidePost(request(`/api/v1/tenders/${f.tenderId}/approvals`, { method: "POST", headers: await signInAs(email), body: { decision: "approve", comment: "Fine." } }), params({ id: f.tenderId }));
 
-/** The mail captured since the last clear, once the queue is empty and what was expected arrived. */
-async function mailAbout(reference: string, atLeast: number) {
-  for (let i = 0; i < 100; i++) {
-    await flushMail();
-    const found = listCapturedMail().filter((m) => m.subject.includes(reference));
-    if (found.length >= atLeast) return found;
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error(`fewer than ${atLeast} messages about ${reference}`);
-}
 const to = <M extends { to: string[] }>(mail: M[], address: string) => mail.filter((m) => m.to.includes(address));
 
 describe("a vendor's answer in a clarification thread", () => {

@@ -8,19 +8,14 @@ import { GET as claimGet } from "@/app/api/v1/claims/[id]/route";
 import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { closeDueTenders } from "@/lib/server/tenders";
 import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { weirsOffer } from "../support/offer-fixtures";
 
 let db: Db;
 let weirs = "";
 let offerId = "";
 let claimId = "";
 
-const offer = {
-  moduleName: "Sealed module",
-  partNumber: "SM-1",
-  code: { family: "LDPC", decision: "hard", n: 2048, k: 1536 },
-  claims: [{ pointIndex: 0, metric: "bler", value: 1e-5 }],
-  envelope: { unitPrice: 52.5, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24, priceBreaks: [] },
-};
+const offer = weirsOffer("Sealed module");
 const list = (h: Headers) => listGet(request(`/api/v1/tenders/${weirs}/offers`, { headers: h }), params({ id: weirs }));
 const getOffer = (h: Headers) => offerGet(request(`/api/v1/offers/${offerId}`, { headers: h }), params({ id: offerId }));
 const getClaim = (h: Headers) => claimGet(request(`/api/v1/claims/${claimId}`, { headers: h }), params({ id: claimId }));

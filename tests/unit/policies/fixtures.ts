@@ -78,5 +78,7 @@ export const make: Makers = {
   Memo: (o) => ({ tenderId: T1, ...o }),
   MemoCheck: (o) => ({ ...o }),
   Mailroom: (o) => ({ ...o }),
+  Objection: (o) => ({ tenderId: T1, vendorOrgId: VENDOR_A, ...o }),
+  Addendum: (o) => ({ tenderId: T1, invitedOrgIds: [VENDOR_A, VENDOR_B], ...o }),
   Bounds: (o) => ({ ...o }),
 };

@@ -80,6 +80,8 @@ const TABLE: Record<Role, Entry[]> = {
     ),
     [READ, "Declaration", [make.Declaration()]],
     [READ, "ApprovalLimit", [make.ApprovalLimit()]],
+    [READ, "Objection", [make.Objection(), make.Objection({ vendorOrgId: VENDOR_B })]],
+    [["create", ...READ], "Addendum", [make.Addendum(), make.Addendum({ tenderId: T2 })]],
     [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })],
       [make.Envelope({ opened: false }), make.Envelope({ tenderState: "open" })]],
     ["export", "Score", [make.Score()]],
@@ -99,6 +101,7 @@ const TABLE: Record<Role, Entry[]> = {
     ...declaredOnT1("mark", ["Claim"]),
     ...declaredOnT1("record", ["EvidenceRun"]),
     ...declaredOnT1(["create", "post"], ["Thread"]),
+    [["create", ...READ], "Addendum", [make.Addendum()], [make.Addendum({ tenderId: T2 })]],
     ["sign", "TechnicalSignoff", [make.TechnicalSignoff()], [make.TechnicalSignoff({ tenderId: T2 })]],
   ],
 
@@ -133,6 +136,8 @@ const TABLE: Record<Role, Entry[]> = {
     ["create", "Document", [make.Document({ tenderState: "open" })],
       [make.Document(), make.Document({ tenderState: "technical" }), make.Document({ vendorOrgId: VENDOR_B, tenderState: "open" })]],
     ["post", "Thread", [make.Thread()], [make.Thread({ vendorOrgId: VENDOR_B })]],
+    [[...READ, "acknowledge"], "Addendum", [make.Addendum()], [make.Addendum({ invitedOrgIds: [VENDOR_B] })]],
+    [["create", ...READ], "Objection", [make.Objection()], [make.Objection({ vendorOrgId: VENDOR_B })]],
   ],
 };
 

@@ -2,11 +2,15 @@ import "server-only";
 import { asSubject } from "@/policies";
 import type { Queryable } from "@/db/client";
 import type { BandRule } from "@/lib/approvals/bands";
-import { declareToReadNotice, type NoticeText } from "@/lib/approvals/notices";
+import { declareToReadNotice, type AwardDisclosure, type NoticeText } from "@/lib/approvals/notices";
+import type { Standing } from "@/lib/approvals/score-sheet";
+import { standstillEnd } from "@/lib/tenders/disclosure";
 import { approvalRecord, eligibleApprovers } from "./approvals";
 import { readersWithRole, type Notice } from "./notify";
 import type { RecommendationRow } from "./recommendations";
 import type { TenderRow } from "./tenders";
+
+// The notices of the approval and award that depend on who may read what.
 
 /**
  * "Awaits your approval" by the reading rules. Of the approvers the recommendation is routed to
@@ -31,4 +35,17 @@ export async function approvalRequestNotices(
     { to: routed.filter((email) => cleared.has(email)), ...full },
     { to: routed.filter((email) => !cleared.has(email)), ...declareToReadNotice(tender) },
   ];
+}
+
+/** What the award notices of this tender disclose, and when its standstill period ends. */
+export function awardDisclosure(tender: TenderRow, winnerName: string, winner: Standing | null, awardedAt: Date): AwardDisclosure {
+  const at = tender.awardedAt ?? awardedAt;
+  return {
+    mode: tender.noticeDisclosure,
+    winnerName,
+    winnerTotal: winner?.total ?? null,
+    standstillDays: tender.standstillDays,
+    standstillEnds: standstillEnd(at, tender.standstillDays),
+    zone: tender.closesZone,
+  };
 }
