@@ -3,7 +3,7 @@ import { and, asc, count, desc, eq, inArray, lte, sql, type SQL } from "drizzle-
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { offers, organisations, tenderInvitations, tenders } from "@/db/schema";
-import { appendLedger, listLedger } from "./ledger";
+import { appendLedger } from "./ledger";
 import { authorize, type Viewer } from "./session";
 import { NotFoundError } from "./errors";
 
@@ -101,10 +101,4 @@ export async function listTenderViews(viewer: Viewer): Promise<TenderView[]> {
 export async function getTenderView(viewer: Viewer, id: string): Promise<TenderView> {
   const [view] = await viewsOf(viewer, [await getTender(viewer, id)]);
   return view;
-}
-
-export async function getTenderLedger(viewer: Viewer, tenderId: string) {
-  await getTender(viewer, tenderId);
-  authorize(viewer, "read", asSubject("Ledger", { tenderId }), "Only the buying team reads a tender's ledger.");
-  return listLedger(await getDb(), tenderId);
 }

@@ -14,3 +14,6 @@ export const addendumSchema = z.object({
   threadId: z.string().min(1).optional(),
 });
 export type AddendumInput = z.infer<typeof addendumSchema>;
+
+/** A page of a tender's ledger, from 1 (newest entries first). */
+export const ledgerPageSchema = z.object({ page: z.coerce.number({ error: "The page is a number." }).int("A whole page number.").min(1, "Pages start at 1.").default(1) });
