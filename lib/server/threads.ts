@@ -3,6 +3,7 @@ import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, tenders, threadMessages, threads } from "@/db/schema";
+import { publishProblem } from "@/lib/tenders/addenda";
 import type { MessageInput, ThreadInput } from "@/lib/validation/review";
 import { ConflictError, ForbiddenError, NotFoundError } from "./errors";
 import { appendLedger } from "./ledger";
@@ -20,6 +21,10 @@ const threadSubject = (t: Pick<ThreadRow, "id" | "tenderId" | "vendorOrgId"> & {
 const authorLabel = (viewer: Viewer) => `${viewer.name}, ${viewer.organisationName}`;
 /** Questions are asked during technical evaluation; answers may follow until the award. */
 const CLOSED_STATES = ["awarded", "cancelled"];
+
+/** Whether the viewer may publish this thread's answer to every bidder as an addendum (see lib/server/addenda.ts). */
+const mayPublishFrom = (viewer: Viewer, tender: TenderRow) =>
+  publishProblem(tender.state) === null && viewer.ability.can("create", asSubject("Addendum", { tenderId: tender.id, invitedOrgIds: [] }));
 
 /** Inserts a thread with its first message and the ledger entry; call inside the caller's transaction. */
 export async function insertThread(tx: Queryable, viewer: Viewer, claim: ClaimRow, input: ThreadInput) {
@@ -89,6 +94,7 @@ export async function getThread(viewer: Viewer, threadId: string) {
     tenderReference: tender.reference,
     messages: await messagesOf(db, [thread.id]),
     mayPost: !CLOSED_STATES.includes(tender.state) && viewer.ability.can("post", threadSubject(thread)),
+    mayPublishAddendum: mayPublishFrom(viewer, tender),
   };
 }
 export type ThreadDetail = Awaited<ReturnType<typeof getThread>>;
@@ -110,6 +116,7 @@ export async function listThreads(viewer: Viewer, where: { tenderId?: string; cl
     tenderReference: tender.reference,
     messages: messages.filter((m) => m.threadId === thread.id),
     mayPost: !CLOSED_STATES.includes(tender.state) && viewer.ability.can("post", threadSubject(thread)),
+    mayPublishAddendum: mayPublishFrom(viewer, tender),
   }));
 }
 

@@ -11,8 +11,9 @@ export const metadata: Metadata = { title: "Notices" };
 const unlessForbidden = <T,>(work: Promise<T>) => work.catch((error: unknown) => (error instanceof ForbiddenError ? null : Promise.reject(error)));
 
 /** Addenda to every bidder, and, once awarded, the standstill period and the objections to the award. */
-export default async function NoticesPage({ params }: { params: Promise<{ id: string }> }) {
+export default async function NoticesPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ thread?: string }> }) {
   const { id } = await params;
+  const { thread } = await searchParams;
   const viewer = await pageViewer();
   const [addenda, objections] = await orPage(Promise.all([unlessForbidden(listAddenda(viewer, id)), unlessForbidden(listObjections(viewer, id))]));
   const vendor = viewer.actor.organisationKind === "vendor";
@@ -37,7 +38,12 @@ export default async function NoticesPage({ params }: { params: Promise<{ id: st
               )}
             </article>
           ))}
-          {addenda.mayPublish ? <AddendumForm tenderId={id} /> : null}
+          {addenda.mayPublish ? (
+            <>
+              {thread ? <p className="text-xs text-ink-soft">This addendum answers a clarification thread; the vendor who asked is not named to the others.</p> : null}
+              <AddendumForm tenderId={id} threadId={thread} />
+            </>
+          ) : null}
         </section>
       ) : null}
 

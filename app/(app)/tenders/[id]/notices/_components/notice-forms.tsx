@@ -4,9 +4,11 @@ import { useState, useTransition } from "react";
 import { acknowledgeAddendumAction, lodgeObjectionAction, publishAddendumAction } from "../actions";
 import { TextForm } from "./text-form";
 
-export function AddendumForm({ tenderId }: { tenderId: string }) {
+/** threadId: the clarification it answers, kept for the buying side only (vendors never see who asked). */
+export function AddendumForm({ tenderId, threadId }: { tenderId: string; threadId?: string }) {
   return (
     <TextForm
+      extra={threadId ? { threadId } : {}}
       label="Publish an addendum"
       submit="Publish to every invited vendor"
       fields={[{ name: "title", label: "Title" }, { name: "body", label: "Addendum (do not name the vendor who asked)", rows: 5 }]}

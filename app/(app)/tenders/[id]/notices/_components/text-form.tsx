@@ -11,16 +11,16 @@ interface Field {
 }
 
 /**
- * A small form of text fields sent to one server action (which parses them with the API's zod
+ * A small form of text fields (and any fixed extra values) sent to one server action (which parses them with the API's zod
  * schema); the server's field messages show under each field.
  */
-export function TextForm({ label, fields, submit, send }: { label: string; fields: Field[]; submit: string; send: (values: Record<string, string>) => Promise<FormResult> }) {
+export function TextForm({ label, fields, submit, send, extra = {} }: { label: string; fields: Field[]; submit: string; send: (values: Record<string, string>) => Promise<FormResult>; extra?: Record<string, string> }) {
   const [result, setResult] = useState<FormResult>({});
   const [pending, startTransition] = useTransition();
   const onSubmit = (form: HTMLFormElement) =>
     startTransition(async () => {
       const data = new FormData(form);
-      const values = Object.fromEntries(fields.map((f) => [f.name, String(data.get(f.name) ?? "")]));
+      const values = { ...extra, ...Object.fromEntries(fields.map((f) => [f.name, String(data.get(f.name) ?? "")])) };
       const outcome = await send(values);
       setResult(outcome);
       if (outcome.ok) form.reset();
