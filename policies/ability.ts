@@ -5,7 +5,7 @@ import { approverRules } from "./rules/approver";
 import { buyerRules } from "./rules/buyer";
 import { engineerRules } from "./rules/engineer";
 import { personalRules } from "./rules/personal";
-import { everyoneRules, signedOutRules } from "./rules/shared";
+import { everyoneRules, sealedUntilClosing, signedOutRules } from "./rules/shared";
 import { vendorRules } from "./rules/vendor";
 import type { AppAbility, RuleBuilder } from "./types";
 import type { Role } from "./vocabulary";
@@ -38,6 +38,7 @@ export function defineAbilityFor(actor: Actor | null): AppAbility {
     const roles = effectiveRoles(actor);
     everyoneRules(builder, actor);
     for (const [role, rules] of ROLE_ORDER) if (roles.includes(role)) rules(builder, actor);
+    if (actor.organisationKind === "buyer") sealedUntilClosing(builder);
     personalRules(builder, actor);
   }
   return builder.build();

@@ -35,9 +35,14 @@ export interface EnvelopeRecord extends EnvelopeValues {
   tenderId: string;
   vendorOrgId: string;
   opened: boolean;
+  tenderState?: TenderState;
 }
 
-export interface ClaimRecord { id: string; offerId: string; tenderId: string; vendorOrgId: string }
+/**
+ * The records of a vendor's offer other than the Offer itself carry their tender's state where it
+ * is known: the buying side reads none of them while the tender is draft or open (sealed).
+ */
+export interface ClaimRecord { id: string; offerId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
 
 export interface DocumentRecord {
   id: string;
@@ -48,10 +53,10 @@ export interface DocumentRecord {
   tenderState?: TenderState;
 }
 
-export interface MarkRecord { claimId: string; tenderId: string; vendorOrgId: string }
+export interface MarkRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
 /** A clarification thread between engineers and one vendor; its messages share its access. */
-export interface ThreadRecord { id: string; tenderId: string; vendorOrgId: string }
-export interface EvidenceRunRecord { claimId: string; tenderId: string; vendorOrgId: string }
+export interface ThreadRecord { id: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
+export interface EvidenceRunRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
 export interface DeclarationRecord { tenderId: string; userId: string }
 export interface TechnicalSignoffRecord { tenderId: string }
 export interface ScoreRecord { tenderId: string }
@@ -70,6 +75,10 @@ export type MemoCheckRecord = object;
 export type MailroomRecord = object;
 export type BoundsRecord = object;
 export type BackupRecord = object;
+/** A vendor's written objection to an award, during the standstill period. */
+export interface ObjectionRecord { tenderId: string; vendorOrgId: string }
+/** A clarification published to every invited vendor of a tender, without the asker's name. */
+export interface AddendumRecord { tenderId: string; invitedOrgIds: string[] }
 
 export interface SubjectRecords {
   Organisation: OrganisationRecord;
@@ -94,6 +103,8 @@ export interface SubjectRecords {
   Mailroom: MailroomRecord;
   Bounds: BoundsRecord;
   Backup: BackupRecord;
+  Objection: ObjectionRecord;
+  Addendum: AddendumRecord;
 }
 
 // Compile-time check that every subject has a record shape and nothing else does.

@@ -28,6 +28,7 @@ export const ACTIONS = [
   "return",
   "export",
   "verify", // a memo fingerprint
+  "acknowledge", // a vendor confirms it has read an addendum
   "assignRoles",
   "deactivate",
   "use", // a tool: the bound explorer, the mailroom
@@ -57,6 +58,8 @@ export const SUBJECTS = [
   "Mailroom",
   "Bounds",
   "Backup",
+  "Objection",
+  "Addendum",
 ] as const;
 export type SubjectType = (typeof SUBJECTS)[number];
 
@@ -70,6 +73,9 @@ export const TENDER_STATES = [
   "cancelled",
 ] as const;
 export type TenderState = (typeof TENDER_STATES)[number];
+
+/** States in which offers are sealed to the whole buying side: nothing of them is read before closing. */
+export const SEALED_STATES = ["draft", "open"] as const;
 
 /** States from which a tender may still be cancelled (anything before the award). */
 export const CANCELLABLE_STATES = ["draft", "open", "technical", "commercial", "approval"] as const;

@@ -8,6 +8,7 @@ export { TENDER_STATES } from "@/policies/vocabulary";
 export type { TenderState };
 
 export type ChannelModel = "bsc" | "bec" | "biawgn";
+export type NoticeDisclosure = "rank" | "rank-and-scores";
 /** One channel condition the buyer cares about: p for bsc, e for bec, Eb/N0 in dB for biawgn. */
 export interface OperatingPoint {
   label: string;
@@ -41,6 +42,10 @@ export const tenders = pgTable(
     impossiblePenalty: numeric("impossible_penalty", { mode: "number" }).notNull().default(0),
     /** The radios serve a safety use: every accepted claim needs a verifying lab run, and two engineers sign. */
     safetyRelevant: boolean("safety_relevant").notNull().default(false),
+    /** What the award and regret notices disclose: own rank and the winner's name, or also scores. */
+    noticeDisclosure: text("notice_disclosure").$type<NoticeDisclosure>().notNull().default("rank"),
+    /** Days after the award during which vendors may object; the award is final when they end. */
+    standstillDays: integer("standstill_days").notNull().default(10),
     closesAt: timestamp("closes_at", { withTimezone: true }).notNull(),
     closesZone: text("closes_zone").notNull().default("UTC"),
     openedAt: timestamp("opened_at", { withTimezone: true }),

@@ -16,6 +16,7 @@ import {
   threadSchema,
 } from "@/lib/validation/review";
 import { cancelTenderSchema, tenderInputSchema, tenderPatchSchema } from "@/lib/validation/tender";
+import { addendumSchema, ledgerPageSchema, objectionSchema } from "@/lib/validation/notices";
 
 export type Method = "get" | "post" | "put" | "patch" | "delete";
 
@@ -58,6 +59,12 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "patch", path: "/tenders/{id}", tag: "Tenders", summary: "Edit a draft tender (buyer)", body: tenderPatchSchema },
   { method: "post", path: "/tenders/{id}/open", tag: "Tenders", summary: "Open a draft for offers; locks requirements and weights" },
   { method: "post", path: "/tenders/{id}/cancel", tag: "Tenders", summary: "Cancel a tender before its award, with a reason", body: cancelTenderSchema },
+  { method: "get", path: "/tenders/{id}/objections", tag: "Notices", summary: "The standstill period and the objections the viewer may read" },
+  { method: "post", path: "/tenders/{id}/objections", tag: "Notices", summary: "Object in writing to an award during the standstill period (vendor)", body: objectionSchema, created: true },
+  { method: "get", path: "/tenders/{id}/addenda", tag: "Notices", summary: "Addenda of a tender, with who acknowledged them" },
+  { method: "post", path: "/tenders/{id}/addenda", tag: "Notices", summary: "Publish an addendum to every invited vendor, without the asker's name (buyer, declared engineer)", body: addendumSchema, created: true },
+  { method: "get", path: "/tenders/{id}/ledger", tag: "Ledger", summary: "A page of the tender's ledger as sentences, details the viewer may not read masked", query: ledgerPageSchema },
+  { method: "post", path: "/addenda/{id}/acknowledge", tag: "Notices", summary: "Acknowledge an addendum for the vendor's organisation (needed before submitting)" },
 
   { method: "get", path: "/tenders/{id}/offers", tag: "Offers", summary: "Current offers the viewer may read, sealed fields removed" },
   { method: "post", path: "/tenders/{id}/offers", tag: "Offers", summary: "Submit or resubmit an offer (vendor); verdicts computed", body: offerSchema, created: true },

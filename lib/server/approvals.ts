@@ -15,6 +15,7 @@ import { eligibleApprovers, ruleFor, storedRule } from "./approval-coverage";
 import { ConflictError, ForbiddenError } from "./errors";
 import { appendLedger } from "./ledger";
 import { approvalsGiven, issueMemo, type MemoRow } from "./memos";
+import { approvalRequestNotices, awardDisclosure } from "./approval-notices";
 import { addressesOf, notify, type Notice } from "./notify";
 import { getCurrentRecommendation, type RecommendationRow } from "./recommendations";
 import { authorize, ledgerActor, type Viewer } from "./session";
@@ -130,10 +131,10 @@ async function decisionNotices(db: Queryable, viewer: Viewer, tender: TenderRow,
   const buyer = await emailOf(db, rec.preparedBy);
   if (outcome.kind === "returned") return [{ to: buyer, ...words.returnedNotice(tender, viewer.name, outcome.comment) }];
   if (outcome.kind === "approved") {
-    const remaining = (await eligibleApprovers(db, tender, rec, rule)).filter((u) => !outcome.approvedBy.includes(u.id));
+    const awaiting = words.awaitingApprovalNotice(tender, outcome.given, outcome.needed, formatMoney(rec.value, rec.currency));
     return [
       { to: buyer, ...words.approvalGivenNotice(tender, viewer.name, outcome.given, outcome.needed) },
-      { to: remaining.map((u) => u.email), ...words.awaitingApprovalNotice(tender, outcome.given, outcome.needed, formatMoney(rec.value, rec.currency)) },
+      ...(await approvalRequestNotices(db, tender, rec, rule, awaiting, outcome.approvedBy)),
     ];
   }
   return awardNotices(db, tender, rec, outcome.memo);
@@ -149,13 +150,14 @@ export async function awardNotices(db: Queryable, tender: TenderRow, rec: Recomm
   const winnerOffer = (await db.select().from(offers).where(eq(offers.id, rec.offerId)))[0];
   const winner = current.find((o) => o.vendorOrgId === winnerOffer.vendorOrgId) ?? { ...winnerOffer, vendorName: "", offerId: winnerOffer.id };
   const standings = standingsOf(rec.scoreSheet);
+  const disclosure = awardDisclosure(tender, winner.vendorName, standings.find((x) => x.offerId === rec.offerId) ?? null, memo.createdAt);
   const notices: Notice[] = [
     { to: await emailOf(db, rec.preparedBy), ...words.awardedNotice(tender, winner.vendorName, formatMoney(rec.value, rec.currency), memo.identifier, memo.sha256) },
-    { to: await addressesOf(db, [winner.vendorOrgId], "vendor"), ...words.awardNotice(tender, { ...winner, quantity: rec.quantity, value: rec.value, currency: rec.currency }, memo.identifier) },
+    { to: await addressesOf(db, [winner.vendorOrgId], "vendor"), ...words.awardNotice(tender, { ...winner, quantity: rec.quantity, value: rec.value, currency: rec.currency }, memo.identifier, disclosure) },
   ];
   for (const other of current.filter((o) => o.vendorOrgId !== winner.vendorOrgId)) {
     const own = standings.find((s) => s.offerId === other.offerId) ?? null;
-    notices.push({ to: await addressesOf(db, [other.vendorOrgId], "vendor"), ...words.regretNotice(tender, other.vendorName, own, rankedCount(standings)) });
+    notices.push({ to: await addressesOf(db, [other.vendorOrgId], "vendor"), ...words.regretNotice(tender, other.vendorName, own, rankedCount(standings), disclosure) });
   }
   return notices;
 }

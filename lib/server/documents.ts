@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { documents, offers } from "@/db/schema";
+import { documents, offers, tenders } from "@/db/schema";
 import { documentRecord, offerRecord, submissionRefusal } from "@/lib/offers";
 import { checkPdfUpload, deleteObject, getObject, isObjectNotFound, MAX_UPLOAD_BYTES, putObject, sanitizeFileName, sha256Hex } from "@/lib/storage";
 import { documentKindSchema, type DocumentKind } from "@/lib/validation/offer";
@@ -120,9 +120,10 @@ export async function uploadDocument(viewer: Viewer, offerId: string, request: R
 /** A document's bytes for download, after the policy check. */
 export async function getDocumentFile(viewer: Viewer, documentId: string) {
   const db = await getDb();
-  const [row] = await db.select().from(documents).where(eq(documents.id, documentId));
-  if (!row) throw new NotFoundError("No such document.");
-  authorize(viewer, "read", asSubject("Document", documentRecord(row)), "This document is not yours to read.");
+  const [found] = await db.select({ row: documents, tenderState: tenders.state }).from(documents).innerJoin(tenders, eq(tenders.id, documents.tenderId)).where(eq(documents.id, documentId));
+  if (!found) throw new NotFoundError("No such document.");
+  const { row } = found;
+  authorize(viewer, "read", asSubject("Document", documentRecord(row, found.tenderState)), "This document is not yours to read.");
   await ensureLocalServices();
   try {
     return { fileName: row.fileName, contentType: row.contentType, sha256: row.sha256, bytes: await getObject(row.storageKey) };

@@ -2,8 +2,11 @@ import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
 import { userRoles, users } from "@/db/schema";
+import { defineAbilityFor, type Actor, type AppAbility } from "@/policies";
 import { queueMail } from "@/lib/mail";
+import { mailText } from "@/lib/mail/words";
 import { appUrl } from "./auth";
+import { actorOf, loadUser } from "./people-store";
 import { ensureLocalServices } from "./services";
 
 export interface Notice {
@@ -22,7 +25,7 @@ export function notify(notices: Notice | Notice[]): void {
   ensureLocalServices()
     .catch((error) => console.warn("local mail server did not start", error))
     .finally(() => {
-      for (const notice of list) queueMail({ ...notice, text: `${notice.text}\n\n— Ratecourt, ${appUrl()}` });
+      for (const notice of list) queueMail({ ...notice, text: mailText(notice.text, appUrl()) });
     });
 }
 
@@ -39,8 +42,27 @@ export async function addressesOf(db: Queryable, organisationIds: string[], role
   return rows.map((r) => r.email).sort();
 }
 
+/**
+ * The addresses of the active users holding a role whose abilities, as they stand now, pass the
+ * check: a notice goes only to people who may read what it says, by the same rules as the pages.
+ */
+export async function readersWithRole(db: Queryable, role: InternalRole, may: (ability: AppAbility, actor: Actor) => boolean): Promise<string[]> {
+  const rows = await db
+    .selectDistinct({ id: users.id })
+    .from(users)
+    .innerJoin(userRoles, eq(userRoles.userId, users.id))
+    .where(and(eq(userRoles.role, role), eq(users.active, true)));
+  const people = await Promise.all(rows.map((r) => loadUser(db, r.id)));
+  return people
+    .filter((p): p is NonNullable<typeof p> => p !== null && may(defineAbilityFor(actorOf(p)), actorOf(p)))
+    .map((p) => p.email)
+    .sort();
+}
+
+type InternalRole = "buyer" | "engineer" | "approver" | "admin";
+
 /** E-mail addresses of the active internal users holding a role. */
-export async function addressesWithRole(db: Queryable, role: "buyer" | "engineer" | "approver" | "admin"): Promise<string[]> {
+export async function addressesWithRole(db: Queryable, role: InternalRole): Promise<string[]> {
   const rows = await db
     .selectDistinct({ email: users.email })
     .from(users)

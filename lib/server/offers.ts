@@ -1,12 +1,13 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
-import { asSubject, pickPermitted } from "@/policies";
+import { asSubject, pickPermitted, SEALED_STATES } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, offers, organisations } from "@/db/schema";
 import type { ClaimResult } from "@/lib/bounds";
 import { currentVersion, documentRecord, evaluatedClaim, keyFinding, nextVersion, offerRecord, prepareOffer, submissionRefusal, verdictSummary, type EvaluatedClaim, type OfferTenderState, type PreparedClaim } from "@/lib/offers";
 import { isEngineDeadline, runEngine } from "@/lib/runtime/engine-pool";
 import type { OfferInput } from "@/lib/validation/offer";
+import { requireAddendaAcknowledged } from "./addenda";
 import { documentsFor, documentView, type DocumentRow } from "./documents";
 import { unfinishedMessage } from "./engine";
 import { ConflictError, InputError, NotFoundError } from "./errors";
@@ -32,10 +33,10 @@ function viewOf(viewer: Viewer, tender: TenderWithInvites, row: OfferRow, vendor
     status: row.status,
     vendorName,
     claims: claimRows
-      .filter((c) => c.offerId === row.id && can("read", asSubject("Claim", c)))
+      .filter((c) => c.offerId === row.id && can("read", asSubject("Claim", { ...c, tenderState: tender.state })))
       .sort((a, b) => a.pointIndex - b.pointIndex)
       .map((c) => ({ ...c, keyFinding: keyFinding(c.result as unknown as ClaimResult) })),
-    documents: docs.filter((d) => own(d) && can("read", asSubject("Document", documentRecord(d)))).map(documentView),
+    documents: docs.filter((d) => own(d) && can("read", asSubject("Document", documentRecord(d, tender.state)))).map(documentView),
   };
 }
 export type OfferView = ReturnType<typeof viewOf>;
@@ -74,7 +75,9 @@ async function loadOffer(viewer: Viewer, offerId: string) {
   const [row] = await db.select().from(offers).where(eq(offers.id, offerId));
   if (!row) throw new NotFoundError("No such offer.");
   const tender = await getTender(viewer, row.tenderId);
-  authorize(viewer, "read", offerSubject(row, tender), "This offer is not yours to read.");
+  // A sealed offer says so (the policy's reason); anything else is simply not the viewer's.
+  const sealed = viewer.actor.organisationKind === "buyer" && (SEALED_STATES as readonly string[]).includes(tender.state);
+  authorize(viewer, "read", offerSubject(row, tender), sealed ? undefined : "This offer is not yours to read.");
   return { row, tender };
 }
 
@@ -180,6 +183,7 @@ export async function submitOffer(viewer: Viewer, tenderId: string, input: Offer
   const evaluated = await evaluateClaimsOf(prepared.claims);
 
   const db = await getDb();
+  await requireAddendaAcknowledged(db, tenderId, vendorOrgId);
   const row = await db.transaction((tx) =>
     writeOfferVersion(tx, { tender, vendorOrgId, actor: ledgerActor(viewer), input, claims: evaluated, at: now }),
   );

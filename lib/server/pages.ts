@@ -1,12 +1,19 @@
 import "server-only";
+import { headers } from "next/headers";
 import { forbidden, notFound, redirect } from "next/navigation";
+import { PAGE_PATH_HEADER, signInPath } from "@/lib/return-path";
 import { ForbiddenError, NotFoundError, UnauthorizedError } from "./errors";
 import { getViewer, type Viewer } from "./session";
 
-/** For pages: the signed-in viewer, or a redirect to sign-in. */
+/** Sign-in, asked to come back to the page that was asked for (the proxy names it). */
+async function toSignIn(): Promise<never> {
+  redirect(signInPath((await headers()).get(PAGE_PATH_HEADER)));
+}
+
+/** For pages: the signed-in viewer, or a redirect to sign-in and back. */
 export async function pageViewer(): Promise<Viewer> {
   const viewer = await getViewer();
-  if (!viewer) redirect("/sign-in");
+  if (!viewer) return toSignIn();
   return viewer;
 }
 
@@ -17,7 +24,7 @@ export async function orPage<T>(work: Promise<T>): Promise<T> {
   } catch (error) {
     if (error instanceof ForbiddenError) forbidden();
     if (error instanceof NotFoundError) notFound();
-    if (error instanceof UnauthorizedError) redirect("/sign-in");
+    if (error instanceof UnauthorizedError) await toSignIn();
     throw error;
   }
 }

@@ -1,6 +1,7 @@
 import "server-only";
 import { hashPassword } from "better-auth/crypto";
 import { eq, inArray, sql } from "drizzle-orm";
+import type { Actor } from "@/policies";
 import type { Queryable } from "@/db/client";
 import { accounts, declarations, organisations, userRoles, users, type RoleName } from "@/db/schema";
 
@@ -52,6 +53,21 @@ export async function loadUser(db: Queryable, userId: string) {
     .where(eq(users.id, userId));
   if (!row) return null;
   return { ...row.user, organisation: row.organisation, roles: row.roles, declarations: row.declarations };
+}
+
+export type LoadedUser = NonNullable<Awaited<ReturnType<typeof loadUser>>>;
+
+/** The person as the policies see them (roles, organisation, declarations, limit). */
+export function actorOf(user: LoadedUser): Actor {
+  return {
+    id: user.id,
+    organisationId: user.organisationId,
+    organisationKind: user.organisation.kind,
+    roles: user.roles,
+    active: user.active,
+    approvalLimit: user.approvalLimit,
+    declarations: user.declarations.map((d) => ({ tenderId: d.tenderId, conflictedVendorOrgIds: d.conflictedOrgIds })),
+  };
 }
 
 export async function rolesByUser(db: Queryable, userIds: string[]) {

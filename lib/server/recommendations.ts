@@ -14,7 +14,8 @@ import { awaitingApprovalNotice, withdrawnNotice } from "@/lib/approvals/notices
 import type { RecommendationInput, WithdrawalInput } from "@/lib/validation/comparison";
 import { ConflictError, ForbiddenError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
-import { addressesWithRole, notify } from "./notify";
+import { approvalRequestNotices } from "./approval-notices";
+import { notify } from "./notify";
 import { loadScoringInput } from "./comparison";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, tenderSubject, type TenderWithInvites } from "./tenders";
@@ -151,11 +152,15 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
     return rec;
   });
   const notice = awaitingApprovalNotice(tender, 0, band.approvalsNeeded, formatMoney(input.value, tender.currency));
-  notify(withSafetyCaution(tender, [{
-    to: await addressesWithRole(db, "approver"),
-    subject: notice.subject,
-    text: `${viewer.name} recommends awarding ${tender.reference} to ${scored.vendorName}: ${input.quantity.toLocaleString("en-GB")} units.\n\nJustification: ${input.justification}\n\n${notice.text}`,
-  }]));
+  notify(
+    withSafetyCaution(
+      tender,
+      await approvalRequestNotices(db, tender, row, band, {
+        subject: notice.subject,
+        text: `${viewer.name} recommends awarding ${tender.reference} to ${scored.vendorName}: ${input.quantity.toLocaleString("en-GB")} units.\n\nJustification: ${input.justification}\n\n${notice.text}`,
+      }),
+    ),
+  );
   return row;
 }
 

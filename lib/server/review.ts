@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
-import { asSubject, pickPermitted, tenderAccess, type ClaimRecord } from "@/policies";
+import { asSubject, pickPermitted, tenderAccess, type ClaimRecord, type TenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, documents, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
 import type { ChannelModel } from "@/db/schema/tenders";
@@ -12,8 +12,9 @@ import { ForbiddenError, NotFoundError } from "./errors";
 import type { Viewer } from "./session";
 import { getTender, listTenders } from "./tenders";
 
-export const claimSubject = (c: ClaimRecord) =>
-  asSubject("Claim", { id: c.id, offerId: c.offerId, tenderId: c.tenderId, vendorOrgId: c.vendorOrgId });
+/** A claim as the Claim subject; with its tender's state, so that a sealed tender's claims stay unread. */
+export const claimSubject = (c: ClaimRecord, tenderState?: TenderState) =>
+  asSubject("Claim", { id: c.id, offerId: c.offerId, tenderId: c.tenderId, vendorOrgId: c.vendorOrgId, tenderState });
 
 const isDeclared = (viewer: Viewer, tenderId: string) => tenderAccess(viewer.actor.declarations).declared.includes(tenderId);
 
@@ -44,7 +45,7 @@ export async function loadClaim(viewer: Viewer, claimId: string) {
   const db = await getDb();
   const [row] = await claimJoin(db).where(eq(claims.id, claimId));
   if (!row) throw new NotFoundError("No such claim.");
-  if (!viewer.ability.can("read", claimSubject(row.claim))) throw refusal(viewer, row.claim.tenderId, row.claim.vendorOrgId);
+  if (!viewer.ability.can("read", claimSubject(row.claim, row.tender.state))) throw refusal(viewer, row.claim.tenderId, row.claim.vendorOrgId);
   return row;
 }
 
@@ -108,7 +109,7 @@ export async function listClaimQueue(viewer: Viewer, filters: Partial<ClaimQueue
       ),
     )
     .orderBy(asc(tenders.reference), asc(organisations.name), asc(claims.pointIndex));
-  const visible = rows.filter((r) => viewer.ability.can("list", claimSubject(r.claim)));
+  const visible = rows.filter((r) => viewer.ability.can("list", claimSubject(r.claim, r.tender.state)));
   if (filters.tenderId && rows.length > 0 && visible.length === 0 && !isDeclared(viewer, filters.tenderId)) {
     throw refusal(viewer, filters.tenderId, "");
   }
@@ -166,7 +167,7 @@ export async function getClaimDetail(viewer: Viewer, claimId: string) {
   const { evidence } = await reviewState(db, viewer, [row]);
   const can = (action: "mark" | "record" | "create", type: "Claim" | "EvidenceRun" | "Thread") =>
     type === "Claim"
-      ? viewer.ability.can(action, claimSubject(claim))
+      ? viewer.ability.can(action, claimSubject(claim, tender.state))
       : type === "EvidenceRun"
         ? viewer.ability.can(action, asSubject("EvidenceRun", ref))
         : viewer.ability.can(action, asSubject("Thread", { id: "", tenderId: claim.tenderId, vendorOrgId: claim.vendorOrgId }));

@@ -3,7 +3,7 @@ import { headers as nextHeaders } from "next/headers";
 import { defineAbilityFor, type Actor, type AppAbility } from "@/policies";
 import { getDb } from "@/db/client";
 import { getAuth } from "./auth";
-import { loadUser } from "./people-store";
+import { actorOf, loadUser } from "./people-store";
 import { ForbiddenError, UnauthorizedError } from "./errors";
 
 export interface Viewer {
@@ -23,15 +23,7 @@ export async function getViewer(requestHeaders?: Headers): Promise<Viewer | null
   const db = await getDb();
   const user = await loadUser(db, session.user.id);
   if (!user || !user.active) return null;
-  const actor: Actor = {
-    id: user.id,
-    organisationId: user.organisationId,
-    organisationKind: user.organisation.kind,
-    roles: user.roles,
-    active: user.active,
-    approvalLimit: user.approvalLimit,
-    declarations: user.declarations.map((d) => ({ tenderId: d.tenderId, conflictedVendorOrgIds: d.conflictedOrgIds })),
-  };
+  const actor = actorOf(user);
   return {
     actor,
     ability: defineAbilityFor(actor),

@@ -1,9 +1,9 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, lte, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, lte, sql, type SQL } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { organisations, tenderInvitations, tenders } from "@/db/schema";
-import { appendLedger, listLedger } from "./ledger";
+import { offers, organisations, tenderInvitations, tenders } from "@/db/schema";
+import { appendLedger } from "./ledger";
 import { authorize, type Viewer } from "./session";
 import { NotFoundError } from "./errors";
 
@@ -29,7 +29,7 @@ export const tenderSubject = (t: TenderWithInvites) =>
 
 /**
  * Closing on read: every open tender whose closing time has come moves to technical evaluation,
- * with a ledger entry by the system. Cheap when nothing is due (one indexed query). Call it
+ * with ledger entries by the system for the closing and for the unsealing of its offers. Cheap when nothing is due (one indexed query). Call it
  * before anything that depends on a tender being open (reads, and accepting an offer).
  */
 export async function closeDueTenders(db: Queryable, now = new Date()): Promise<number> {
@@ -40,14 +40,15 @@ export async function closeDueTenders(db: Queryable, now = new Date()): Promise<
     // The state test in the update itself means two requests never close one tender twice.
     const closed = await tx.update(tenders).set({ state: "technical" }).where(due).returning();
     for (const t of closed) {
+      const entry = { tenderId: t.id, actor: null, subjectType: "Tender", subjectId: t.id };
       await appendLedger(tx, {
-        tenderId: t.id,
-        actor: null,
+        ...entry,
         action: "tender.closed",
-        subjectType: "Tender",
-        subjectId: t.id,
         data: { reference: t.reference, closesAt: t.closesAt.toISOString(), closesZone: t.closesZone, to: "technical" },
       });
+      // From here the buying side reads the technical offers; the commercial envelopes stay shut until opened.
+      const current = await tx.select({ n: count() }).from(offers).where(and(eq(offers.tenderId, t.id), eq(offers.status, "submitted")));
+      await appendLedger(tx, { ...entry, action: "offers.unsealed", data: { reference: t.reference, offers: current[0].n, envelopes: "sealed until opened" } });
     }
     return closed.length;
   });
@@ -100,10 +101,4 @@ export async function listTenderViews(viewer: Viewer): Promise<TenderView[]> {
 export async function getTenderView(viewer: Viewer, id: string): Promise<TenderView> {
   const [view] = await viewsOf(viewer, [await getTender(viewer, id)]);
   return view;
-}
-
-export async function getTenderLedger(viewer: Viewer, tenderId: string) {
-  await getTender(viewer, tenderId);
-  authorize(viewer, "read", asSubject("Ledger", { tenderId }), "Only the buying team reads a tender's ledger.");
-  return listLedger(await getDb(), tenderId);
 }

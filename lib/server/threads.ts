@@ -3,10 +3,11 @@ import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, tenders, threadMessages, threads } from "@/db/schema";
+import { publishProblem } from "@/lib/tenders/addenda";
 import type { CloseThreadInput, MessageInput, ThreadInput } from "@/lib/validation/review";
 import { ConflictError, ForbiddenError, NotFoundError } from "./errors";
 import { appendLedger } from "./ledger";
-import { addressesOf, addressesWithRole, notify, type Notice } from "./notify";
+import { addressesOf, notify, readersWithRole, type Notice } from "./notify";
 import { loadClaim } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
 
@@ -14,12 +15,16 @@ type ThreadRow = typeof threads.$inferSelect;
 type ClaimRow = typeof claims.$inferSelect;
 type TenderRow = typeof tenders.$inferSelect;
 
-const threadSubject = (t: Pick<ThreadRow, "id" | "tenderId" | "vendorOrgId">) =>
-  asSubject("Thread", { id: t.id, tenderId: t.tenderId, vendorOrgId: t.vendorOrgId });
+const threadSubject = (t: Pick<ThreadRow, "id" | "tenderId" | "vendorOrgId"> & { tenderState?: TenderRow["state"] }) =>
+  asSubject("Thread", { id: t.id, tenderId: t.tenderId, vendorOrgId: t.vendorOrgId, tenderState: t.tenderState });
 /** Evaluators sign with their name; the vendor sees who asked. */
 const authorLabel = (viewer: Viewer) => `${viewer.name}, ${viewer.organisationName}`;
 /** Questions are asked during technical evaluation; answers may follow until the award. */
 const CLOSED_STATES = ["awarded", "cancelled"];
+
+/** Whether the viewer may publish this thread's answer to every bidder as an addendum (see lib/server/addenda.ts). */
+const mayPublishFrom = (viewer: Viewer, tender: TenderRow) =>
+  publishProblem(tender.state) === null && viewer.ability.can("create", asSubject("Addendum", { tenderId: tender.id, invitedOrgIds: [] }));
 
 /** Inserts a thread with its first message and the ledger entry; call inside the caller's transaction. */
 export async function insertThread(tx: Queryable, viewer: Viewer, claim: ClaimRow, input: ThreadInput) {
@@ -39,12 +44,16 @@ export async function insertThread(tx: Queryable, viewer: Viewer, claim: ClaimRo
   return thread;
 }
 
-/** The e-mail for a new message: to the vendor's users, or to the engineers when the vendor answers. */
+/**
+ * The e-mail for a new message: to the vendor's users, or, when the vendor answers, to the engineers
+ * who may read this thread (declared on the tender, no conflict with this vendor).
+ */
 export async function threadNotice(db: Queryable, tender: TenderRow, thread: ThreadRow, viewer: Viewer, body: string, audience: "vendor" | "engineers"): Promise<Notice> {
   const toVendor = audience === "vendor";
   const link = toVendor || !thread.claimId ? `/tenders/${tender.id}/review` : `/review/claims/${thread.claimId}`;
+  const subject = threadSubject({ ...thread, tenderState: tender.state });
   return {
-    to: toVendor ? await addressesOf(db, [thread.vendorOrgId]) : await addressesWithRole(db, "engineer"),
+    to: toVendor ? await addressesOf(db, [thread.vendorOrgId]) : await readersWithRole(db, "engineer", (ability) => ability.can("read", subject)),
     subject: `${tender.reference}: ${toVendor ? "question from the evaluators" : "vendor answer"}: ${thread.subject}`,
     text: `${authorLabel(viewer)} wrote on "${thread.subject}" (${tender.reference} ${tender.title}):\n\n${body}\n\nReply in Ratecourt: ${link}`,
   };
@@ -94,6 +103,7 @@ export async function getThread(viewer: Viewer, threadId: string) {
     tenderReference: tender.reference,
     messages: await messagesOf(db, [thread.id]),
     ...mayOn(viewer, thread, tender),
+    mayPublishAddendum: mayPublishFrom(viewer, tender),
   };
 }
 export type ThreadDetail = Awaited<ReturnType<typeof getThread>>;
@@ -115,6 +125,7 @@ export async function listThreads(viewer: Viewer, where: { tenderId?: string; cl
     tenderReference: tender.reference,
     messages: messages.filter((m) => m.threadId === thread.id),
     ...mayOn(viewer, thread, tender),
+    mayPublishAddendum: mayPublishFrom(viewer, tender),
   }));
 }
 

@@ -1,5 +1,5 @@
 import type { tenders } from "@/db/schema";
-import type { TenderInput } from "@/lib/validation/tender";
+import { DEFAULT_STANDSTILL_DAYS, type TenderInput } from "@/lib/validation/tender";
 import { canonicalJson } from "@/lib/ledger/chain";
 import { closingInstant, closingLocal, DEFAULT_ZONE } from "./closing";
 
@@ -9,6 +9,7 @@ export type DraftValues = Pick<
   TenderRow,
   | "title" | "description" | "channelModel" | "operatingPoints" | "targetMetric" | "targetValue" | "maxFrameBits"
   | "quantity" | "currency" | "weights" | "impossibleRule" | "impossiblePenalty" | "safetyRelevant" | "closesAt" | "closesZone"
+  | "noticeDisclosure" | "standstillDays"
 >;
 
 type Shared = Omit<DraftValues, "maxFrameBits" | "impossiblePenalty" | "closesAt" | "closesZone">;
@@ -27,6 +28,8 @@ function shared(from: Shared): Shared {
     weights: { ...from.weights },
     impossibleRule: from.impossibleRule,
     safetyRelevant: from.safetyRelevant,
+    noticeDisclosure: from.noticeDisclosure,
+    standstillDays: from.standstillDays,
   };
 }
 
@@ -70,6 +73,8 @@ export function blankDraftInput(now: Date): TenderInput {
     impossibleRule: "disqualify",
     impossiblePenalty: 0,
     safetyRelevant: false,
+    noticeDisclosure: "rank",
+    standstillDays: DEFAULT_STANDSTILL_DAYS,
     closesLocal: `${inAWeek}T12:00`,
     closesZone: DEFAULT_ZONE,
     invitedOrgIds: [],

@@ -17,14 +17,15 @@ function short(value: unknown): string {
 }
 
 /**
- * One line of a ledger entry's data for the Ledger tab: "reason: …; from: open". Long values are
- * cut; the full entry stays in the ledger (and in its hash).
+ * A ledger entry's details for the Ledger tab, one line each ("reason: …"). Long values are cut;
+ * the full entry stays in the ledger (and in its hash).
  */
-export function summariseLedgerData(data: Record<string, unknown>): string {
-  const parts = Object.entries(data)
-    // The reference is in the page's header; ids are for machines (names sit beside them).
-    .filter(([key]) => key !== "reference" && !key.endsWith("Ids"))
-    .map(([key, value]) => `${key}: ${short(value)}`);
-  const line = parts.join("; ");
-  return line.length > MAX_LENGTH ? `${line.slice(0, MAX_LENGTH - 1)}…` : line;
+export function ledgerDetails(data: Record<string, unknown>): { key: string; text: string }[] {
+  return Object.entries(data)
+    // The reference is in the sentence; ids are for machines (names sit beside them).
+    .filter(([key]) => key !== "reference" && !key.endsWith("Ids") && !key.endsWith("Id"))
+    .map(([key, value]) => {
+      const text = short(value);
+      return { key, text: text.length > MAX_LENGTH ? `${text.slice(0, MAX_LENGTH - 1)}…` : text };
+    });
 }

@@ -1,4 +1,5 @@
 import { formatInTimeZone } from "date-fns-tz";
+import { absoluteLink } from "@/lib/mail/words";
 
 interface NoticeTender {
   id: string;
@@ -13,7 +14,7 @@ export function closingWords(closesAt: Date, zone: string): string {
   return `${formatInTimeZone(closesAt, zone, "EEEE d MMMM yyyy, HH:mm")} (${zone})`;
 }
 
-export const tenderLink = (baseUrl: string, tenderId: string) => `${baseUrl.replace(/\/$/, "")}/tenders/${tenderId}`;
+export const tenderLink = (baseUrl: string, tenderId: string) => absoluteLink(baseUrl, `/tenders/${tenderId}`);
 
 /** The invitation each invited vendor user receives when a tender opens. */
 export function invitationNotice(tender: NoticeTender, baseUrl: string) {

@@ -19,6 +19,10 @@ export function conditionInRange(model: ChannelModelName, value: number): boolea
   return aboveMin && belowMax;
 }
 
+/** What notices disclose: each vendor's own rank and the winner's name; or, in addition, the scores. */
+export const NOTICE_DISCLOSURES = ["rank", "rank-and-scores"] as const;
+export const DEFAULT_STANDSTILL_DAYS = 10;
+
 const num = (what: string) => z.number({ error: `Enter ${what} as a number.` });
 
 export const operatingPointSchema = z.object({
@@ -48,6 +52,8 @@ export const tenderFieldsSchema = z.object({
   impossiblePenalty: num("the penalty").min(0, "Zero or more points.").max(100, "At most 100 points."),
   /** The radios serve a safety use: verifying lab runs for every accepted claim, two engineers sign. */
   safetyRelevant: z.boolean({ error: "Say whether the tender is safety-relevant (true or false)." }),
+  noticeDisclosure: z.enum(NOTICE_DISCLOSURES, { error: "Choose what the award notices tell the vendors." }),
+  standstillDays: num("the standstill period").int("Whole days.").min(1, "At least one day.").max(60, "At most 60 days."),
   closesLocal: z.string().regex(LOCAL_DATE_TIME, "Enter the closing date and time."),
   closesZone: z.string().refine(isValidZone, "Choose a time zone."),
   invitedOrgIds: z.array(z.string().min(1)).max(50).refine((ids) => new Set(ids).size === ids.length, "Each organisation once."),
@@ -83,6 +89,8 @@ export const tenderInputSchema = tenderFieldsSchema
     impossiblePenalty: tenderFieldsSchema.shape.impossiblePenalty.default(0),
     safetyRelevant: tenderFieldsSchema.shape.safetyRelevant.default(false),
     invitedOrgIds: tenderFieldsSchema.shape.invitedOrgIds.default([]),
+    noticeDisclosure: tenderFieldsSchema.shape.noticeDisclosure.default("rank"),
+    standstillDays: tenderFieldsSchema.shape.standstillDays.default(DEFAULT_STANDSTILL_DAYS),
   })
   .superRefine(crossChecks);
 export type TenderInput = z.infer<typeof tenderInputSchema>;

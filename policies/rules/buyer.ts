@@ -19,9 +19,10 @@ export function buyerRules(builder: RuleBuilder, actor: Actor): void {
     [...READ],
     [
       "Offer", "Claim", "Document", "Mark", "EvidenceRun", "TechnicalSignoff", "Declaration",
-      "Score", "Recommendation", "Approval", "ApprovalLimit", "Ledger", "Memo",
+      "Score", "Recommendation", "Approval", "ApprovalLimit", "Ledger", "Memo", "Objection", "Addendum",
     ],
   );
+  can("create", "Addendum");
   can([...READ], "Envelope", { opened: true });
   sealedUntilOpened(builder);
   can("export", ["Score", "Memo"]);

@@ -24,6 +24,8 @@ export function engineerRules(builder: RuleBuilder, actor: Actor): void {
     can("record", "EvidenceRun", inDeclared);
     // "update" is closing a question with a reason.
     can(["create", "post", "update"], "Thread", inDeclared);
+    // An answer that matters to every bidder goes out as an addendum.
+    can(["create", ...READ], "Addendum", inDeclared);
   }
   // Signing covers every vendor of the tender, so a conflict with any one of them rules it out.
   if (clean.length > 0) can("sign", "TechnicalSignoff", { tenderId: { $in: clean } });

@@ -1,8 +1,6 @@
 import { tenderAccess, type Actor } from "../actor";
 import type { RuleBuilder } from "../types";
-
-/** Records that belong to one vendor organisation within one tender. */
-const VENDOR_RECORDS = ["Offer", "Envelope", "Claim", "Document", "Mark", "Thread", "EvidenceRun"] as const;
+import { OFFER_RECORDS } from "./shared";
 
 /**
  * Restrictions on the person rather than a role, built last so that they override every
@@ -12,7 +10,7 @@ export function personalRules({ cannot }: RuleBuilder, actor: Actor): void {
   const { conflicts } = tenderAccess(actor.declarations);
 
   for (const [tenderId, vendorOrgIds] of conflicts) {
-    cannot("manage", [...VENDOR_RECORDS], { tenderId, vendorOrgId: { $in: vendorOrgIds } }).because(
+    cannot("manage", [...OFFER_RECORDS], { tenderId, vendorOrgId: { $in: vendorOrgIds } }).because(
       "You declared a conflict of interest with this vendor on this tender",
     );
   }

@@ -1,6 +1,6 @@
 import type { Actor } from "../actor";
 import type { RuleBuilder } from "../types";
-import { ENVELOPE_FIELDS } from "../vocabulary";
+import { ENVELOPE_FIELDS, SEALED_STATES } from "../vocabulary";
 
 /** Reading a record also lets one see it in a list or a queue. */
 export const READ = ["read", "list"] as const;
@@ -33,5 +33,18 @@ export function declarationRules({ can }: RuleBuilder, actor: Actor): void {
 export function sealedUntilOpened({ cannot }: RuleBuilder): void {
   cannot([...READ], "Offer", envelopeFields(), { envelopeOpened: { $ne: true } }).because(
     "Commercial envelopes stay sealed until the buyer opens them after the technical sign-off",
+  );
+}
+
+/** The records that make up a vendor's offer within one tender. */
+export const OFFER_RECORDS = ["Offer", "Envelope", "Claim", "Document", "Mark", "Thread", "EvidenceRun"] as const;
+
+/**
+ * Until the tender closes, the buying side (every internal role) reaches no part of any offer,
+ * technical or commercial. Built after every role so that no grant lifts it.
+ */
+export function sealedUntilClosing({ cannot }: RuleBuilder): void {
+  cannot("manage", [...OFFER_RECORDS], { tenderState: { $in: [...SEALED_STATES] } }).because(
+    "Offers stay sealed to the buying side until the tender closes",
   );
 }

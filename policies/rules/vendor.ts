@@ -14,4 +14,7 @@ export function vendorRules({ can }: RuleBuilder, actor: Actor): void {
   can(["create", "update", "submit", "withdraw"], "Offer", ownWhileOpen);
   can("create", "Document", ownWhileOpen);
   can("post", "Thread", own);
+  // Addenda of the tenders it is invited to, acknowledged before it submits; objections to an award.
+  can([...READ, "acknowledge"], "Addendum", { invitedOrgIds: actor.organisationId });
+  can(["create", ...READ], "Objection", own);
 }

@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { ACCOUNTS, nav, signIn, signOut } from "./helpers";
+import { ACCOUNTS, nav, PASSWORD, signIn, signOut } from "./helpers";
 
 // Each demo role signs in, sees its Desk and the navigation its abilities allow.
 const roles = [
@@ -20,6 +20,23 @@ for (const role of roles) {
     await signOut(page);
   });
 }
+
+test("a page opened while signed out returns to itself after sign-in; only same-site paths are followed", async ({ page }) => {
+  await page.goto("/tenders?from=mail");
+  await expect(page).toHaveURL(/\/sign-in\?next=%2Ftenders%3Ffrom%3Dmail$/);
+  await page.getByLabel("E-mail").fill(ACCOUNTS.buyer);
+  await page.getByLabel("Password").fill(PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page).toHaveURL(/\/tenders\?from=mail$/);
+  await signOut(page);
+
+  await page.goto("/sign-in?next=/%5Cevil.example");
+  await page.getByLabel("E-mail").fill(ACCOUNTS.buyer);
+  await page.getByLabel("Password").fill(PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("heading", { name: "Desk", level: 1 })).toBeVisible();
+  await signOut(page);
+});
 
 test("a wrong password gets a clear message", async ({ page }) => {
   await page.goto("/sign-in");

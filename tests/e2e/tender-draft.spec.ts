@@ -48,8 +48,11 @@ test("a buyer drafts a tender with two operating points, invites two vendors and
   const tabs = page.getByRole("navigation", { name: "Tender sections" });
   await tabs.getByRole("link", { name: "Ledger" }).click();
   const ledger = page.getByRole("region", { name: "Ledger" });
-  await expect(ledger.getByRole("cell", { name: "tender.created" })).toBeVisible();
-  await expect(ledger.getByRole("cell", { name: "tender.opened" })).toBeVisible();
+  // Entries read as sentences, newest first; their details open on request.
+  await expect(ledger.getByText(/Ines Calloway created the draft RC-\d{4}-\d+\./)).toBeVisible();
+  const opened = ledger.getByRole("listitem").filter({ hasText: /Ines Calloway opened RC-\d{4}-\d+ for offers\./ });
+  await opened.getByText(/for offers/).click();
+  await expect(opened.getByText("tender.opened")).toBeVisible();
 
   // The buyer has no Mailroom; the admin has.
   await expect(nav(page).getByRole("link", { name: "Mailroom" })).toHaveCount(0);

@@ -2,7 +2,7 @@ import { existsSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { and, count, eq, ne } from "drizzle-orm";
+import { and, count, eq, notInArray } from "drizzle-orm";
 import { documents, ledgerEntries, offers, organisations, tenders } from "@/db/schema";
 import type { Db } from "@/db/client";
 import { startLocalServices, type LocalServices } from "@/lib/dev/services";
@@ -64,7 +64,7 @@ const download = (headers: Headers, id: string) => downloadGet(request(`/api/v1/
 
 async function counts() {
   const [d] = await db.select({ n: count() }).from(documents);
-  const [l] = await db.select({ n: count() }).from(ledgerEntries).where(ne(ledgerEntries.action, "tender.closed"));
+  const [l] = await db.select({ n: count() }).from(ledgerEntries).where(notInArray(ledgerEntries.action, ["tender.closed", "offers.unsealed"]));
   const objects = path.join(folder, "objects");
   const stored = existsSync(objects) ? readdirSync(objects, { recursive: true, withFileTypes: true }).filter((e) => e.isFile()).length : 0;
   return { documents: d.n, ledger: l.n, stored };
@@ -101,8 +101,10 @@ describe("uploading a PDF", () => {
     expect(new Uint8Array(await response.arrayBuffer())).toEqual(PDF);
   });
 
-  it("lets the buyer read it, but never another vendor", async () => {
-    expect((await download(await signInAs("buyer@tarnwell.example"), documentId)).status).toBe(200);
+  it("keeps it sealed from the buyer while the tender is open, and from every other vendor", async () => {
+    const buyer = await download(await signInAs("buyer@tarnwell.example"), documentId);
+    expect(buyer.status).toBe(403);
+    expect(new TextDecoder().decode(await buyer.arrayBuffer())).not.toContain("%PDF");
     const other = await download(await signInAs("offers@marram.example"), documentId);
     expect([403, 404]).toContain(other.status);
     expect(new TextDecoder().decode(await other.arrayBuffer())).not.toContain("%PDF");

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { and, count, eq, ne } from "drizzle-orm";
+import { and, count, eq, notInArray } from "drizzle-orm";
 import { claims, declarations, ledgerEntries, offers, organisations, tenders, users } from "@/db/schema";
 import type { Db } from "@/db/client";
 import { DEMO_OFFERS } from "@/db/seed-offers";
@@ -46,8 +46,8 @@ const withdraw = (headers: Headers, id: string) => withdrawPost(request(`/api/v1
 async function counts() {
   const [o] = await db.select({ n: count() }).from(offers);
   const [c] = await db.select({ n: count() }).from(claims);
-  // Closing on read may append "tender.closed": that is the tender's own change, not the offer's.
-  const [l] = await db.select({ n: count() }).from(ledgerEntries).where(ne(ledgerEntries.action, "tender.closed"));
+  // Closing on read may append "tender.closed" and "offers.unsealed": that is the tender's own change, not the offer's.
+  const [l] = await db.select({ n: count() }).from(ledgerEntries).where(notInArray(ledgerEntries.action, ["tender.closed", "offers.unsealed"]));
   return { offers: o.n, claims: c.n, ledger: l.n };
 }
 

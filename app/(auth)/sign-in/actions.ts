@@ -6,6 +6,7 @@ import { signInSchema } from "@/lib/validation/auth";
 import { fieldErrorsOf } from "@/lib/validation/messages";
 import { signIn } from "@/lib/server/sign-in";
 import { AppError } from "@/lib/server/errors";
+import { safeReturnPath } from "@/lib/return-path";
 
 export interface SignInState {
   message?: string;
@@ -25,6 +26,5 @@ export async function signInAction(_prev: SignInState, formData: FormData): Prom
     if (error instanceof AppError) return { message: error.message, values: { email: raw.email } };
     throw error;
   }
-  const next = String(formData.get("next") ?? "");
-  redirect(next.startsWith("/") && !next.startsWith("//") ? next : "/desk");
+  redirect(safeReturnPath(formData.get("next")));
 }

@@ -35,7 +35,7 @@ const envelope = {
 
 type Makers = { [S in SubjectType]: (over?: Partial<SubjectRecords[S]>) => SubjectRecords[S] };
 
-/** Typical records: tender T1, open, vendor A's offer; override what a case is about. */
+/** Typical records: tender T1, open (its offer records as after closing), vendor A's offer; override what a case is about. */
 export const make: Makers = {
   Organisation: (o) => ({ id: VENDOR_A, kind: "vendor", ...o }),
   User: (o) => ({ id: SOMEONE, organisationId: BUYER_ORG, ...o }),
@@ -52,7 +52,7 @@ export const make: Makers = {
     id: "offer-a",
     tenderId: T1,
     vendorOrgId: VENDOR_A,
-    tenderState: "open",
+    tenderState: "technical",
     envelopeOpened: false,
     module: "SubG-900",
     ...envelope,
@@ -78,6 +78,8 @@ export const make: Makers = {
   Memo: (o) => ({ tenderId: T1, ...o }),
   MemoCheck: (o) => ({ ...o }),
   Mailroom: (o) => ({ ...o }),
+  Objection: (o) => ({ tenderId: T1, vendorOrgId: VENDOR_A, ...o }),
+  Addendum: (o) => ({ tenderId: T1, invitedOrgIds: [VENDOR_A, VENDOR_B], ...o }),
   Bounds: (o) => ({ ...o }),
   Backup: (o) => ({ ...o }),
 };

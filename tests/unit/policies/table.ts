@@ -25,13 +25,22 @@ const own = {
   user: (me: Actor) => make.User({ id: me.id, organisationId: me.organisationId }),
   org: (me: Actor) => make.Organisation({ id: me.organisationId, kind: me.organisationKind }),
 };
-/** For subjects scoped to one vendor within one tender: both vendors of T1, and T2. */
+/**
+ * For subjects scoped to one vendor within one tender, as the buying side meets them after closing:
+ * both vendors of T1, and T2; and T1's records while the tender is still open (sealed).
+ */
+const OFFER_PARTS: SubjectType[] = ["Offer", "Envelope", "Claim", "Document", "Mark", "Thread", "EvidenceRun"];
 const scoped = (subject: SubjectType) => {
   const maker = make[subject] as (o?: object) => object;
-  return { t1: [maker(), maker({ vendorOrgId: VENDOR_B })], t2: [maker({ tenderId: T2 })] };
+  const closed = { tenderState: "technical" };
+  return {
+    t1: [maker(closed), maker({ ...closed, vendorOrgId: VENDOR_B })],
+    t2: [maker({ ...closed, tenderId: T2 })],
+    sealed: OFFER_PARTS.includes(subject) ? [maker({ tenderState: "open" }), maker({ tenderState: "draft" })] : [],
+  };
 };
 const declaredOnT1 = (actions: Action | readonly Action[], subjects: SubjectType[]): Entry[] =>
-  subjects.map((subject) => [actions, subject, scoped(subject).t1, scoped(subject).t2]);
+  subjects.map((subject) => [actions, subject, scoped(subject).t1, [...scoped(subject).t2, ...scoped(subject).sealed]]);
 
 const EVERYONE: Entry[] = [
   ["verify", "MemoCheck", [make.MemoCheck()]],
@@ -65,14 +74,17 @@ const TABLE: Record<Role, Entry[]> = {
     ["cancel", "Tender", tendersIn(CANCELLABLE_STATES), tendersIn(["awarded", "cancelled"])],
     [["openEnvelopes", "recommend"], "Tender", tendersIn(["commercial"]), tendersIn(statesBut("commercial"))],
     ...(["Offer", "Claim", "Document", "Mark", "EvidenceRun"] as const).map(
-      (subject): Entry => [READ, subject, [...scoped(subject).t1, ...scoped(subject).t2]],
+      (subject): Entry => [READ, subject, [...scoped(subject).t1, ...scoped(subject).t2], scoped(subject).sealed],
     ),
     ...(["TechnicalSignoff", "Score", "Recommendation", "Approval", "Ledger", "Memo"] as const).map(
       (subject): Entry => [READ, subject, [make[subject](), make[subject]({ tenderId: T2 })]],
     ),
     [READ, "Declaration", [make.Declaration()]],
     [READ, "ApprovalLimit", [make.ApprovalLimit()]],
-    [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })], [make.Envelope({ opened: false })]],
+    [READ, "Objection", [make.Objection(), make.Objection({ vendorOrgId: VENDOR_B })]],
+    [["create", ...READ], "Addendum", [make.Addendum(), make.Addendum({ tenderId: T2 })]],
+    [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })],
+      [make.Envelope({ opened: false }), make.Envelope({ tenderState: "open" })]],
     ["export", "Score", [make.Score()]],
     ["export", "Memo", [make.Memo()]],
     [["create", "update"], "Recommendation", [(me) => make.Recommendation({ preparedBy: me.id })],
@@ -91,6 +103,7 @@ const TABLE: Record<Role, Entry[]> = {
     ...declaredOnT1("mark", ["Claim"]),
     ...declaredOnT1("record", ["EvidenceRun"]),
     ...declaredOnT1(["create", "post", "update"], ["Thread"]),
+    [["create", ...READ], "Addendum", [make.Addendum()], [make.Addendum({ tenderId: T2 })]],
     ["sign", "TechnicalSignoff", [make.TechnicalSignoff()], [make.TechnicalSignoff({ tenderId: T2 })]],
   ],
 
@@ -120,11 +133,13 @@ const TABLE: Record<Role, Entry[]> = {
     }),
     // Their own envelope, sealed or not.
     [READ, "Envelope", [make.Envelope({ opened: false }), make.Envelope()], [make.Envelope({ vendorOrgId: VENDOR_B })]],
-    [["create", "update", "submit", "withdraw"], "Offer", [make.Offer()],
+    [["create", "update", "submit", "withdraw"], "Offer", [make.Offer({ tenderState: "open" })],
       [make.Offer({ vendorOrgId: VENDOR_B }), make.Offer({ tenderState: "technical" })]],
     ["create", "Document", [make.Document({ tenderState: "open" })],
       [make.Document(), make.Document({ tenderState: "technical" }), make.Document({ vendorOrgId: VENDOR_B, tenderState: "open" })]],
     ["post", "Thread", [make.Thread()], [make.Thread({ vendorOrgId: VENDOR_B })]],
+    [[...READ, "acknowledge"], "Addendum", [make.Addendum()], [make.Addendum({ invitedOrgIds: [VENDOR_B] })]],
+    [["create", ...READ], "Objection", [make.Objection()], [make.Objection({ vendorOrgId: VENDOR_B })]],
   ],
 };
 

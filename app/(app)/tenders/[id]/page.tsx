@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { DISCLOSURE_WORDS } from "@/lib/tenders/disclosure";
 import Link from "next/link";
 import { DateTime } from "@/app/_components/date-time";
 import { CHANNEL_LABELS, formatCondition, formatSci } from "@/lib/format";
@@ -41,6 +42,7 @@ export default async function TenderRequirementsPage({ params }: { params: Promi
           {tender.openedAt ? <div><dt className="label">Opened</dt><dd><DateTime value={tender.openedAt} zone={tender.closesZone} /></dd></div> : null}
           <div><dt className="label">If a claim is impossible</dt><dd>{tender.impossibleRule === "disqualify" ? "offer disqualified" : `penalty of ${tender.impossiblePenalty} points`}</dd></div>
           <div><dt className="label">Safety-relevant</dt><dd>{tender.safetyRelevant ? "yes: verifying lab runs and two engineers' sign-off" : "no"}</dd></div>
+          <div><dt className="label">Award notices tell each vendor</dt><dd>{DISCLOSURE_WORDS[tender.noticeDisclosure]}; standstill of {tender.standstillDays} days before the award is final</dd></div>
         </dl>
         <div>
           <h3 className="label mt-2">Operating points</h3>

@@ -8,6 +8,7 @@ import { formCount, formDecimal, formOptionalCount } from "@/lib/numbers";
 import { CHANNEL_MODELS, tenderInputSchema, type TenderFormValues, type TenderInput } from "@/lib/validation/tender";
 import { createTenderAction, updateTenderAction, type TenderFormResult } from "../actions";
 import { errorAt, FieldError } from "./field-error";
+import { NoticeFields } from "./notice-fields";
 import { OperatingPointsFields } from "./operating-points-fields";
 import { WeightsFields } from "./weights-fields";
 
@@ -101,6 +102,7 @@ export function TenderForm({ tenderId, defaults, vendors, zones }: Props) {
             </select>
           ))}
         </div>
+        <NoticeFields />
         <fieldset>
           <legend className="label">Invited vendors</legend>
           <div className="flex flex-wrap gap-4 text-sm">

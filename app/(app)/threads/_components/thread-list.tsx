@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { DateTime } from "@/app/_components/date-time";
 import type { ThreadDetail } from "@/lib/server/threads";
 import { CloseThreadForm } from "./close-thread-form";
@@ -24,6 +25,9 @@ export function ThreadList({ threads, path, empty }: { threads: ThreadDetail[]; 
           ) : null}
           {t.mayPost ? <ReplyForm threadId={t.id} path={path} subject={t.subject} /> : null}
           {t.mayClose ? <CloseThreadForm threadId={t.id} path={path} subject={t.subject} /> : null}
+          {t.mayPublishAddendum ? (
+            <Link className="mt-2 inline-block text-sm" href={`/tenders/${t.tenderId}/notices?thread=${t.id}`}>Publish the answer to every bidder as an addendum</Link>
+          ) : null}
         </li>
       ))}
     </ul>

@@ -1,0 +1,55 @@
+import { index, primaryKey, text, pgTable } from "drizzle-orm/pg-core";
+import { tenderRef, vendorRef } from "./refs";
+import { id, createdAt } from "./columns";
+import { users } from "./people";
+import { threads } from "./evaluation";
+
+/** A vendor's written objection to an award, lodged during the standstill period. */
+export const objections = pgTable(
+  "objections",
+  {
+    id: id(),
+    tenderId: tenderRef(),
+    vendorOrgId: vendorRef(),
+    body: text("body").notNull(),
+    lodgedBy: text("lodged_by")
+      .notNull()
+      .references(() => users.id),
+    lodgedAt: createdAt(),
+  },
+  (t) => [index("objections_tender_idx").on(t.tenderId)],
+);
+
+/** A clarification that matters to every bidder, published to all invited vendors without the asker's name. */
+export const addenda = pgTable(
+  "addenda",
+  {
+    id: id(),
+    tenderId: tenderRef(),
+    /** The thread it answers, if any; never shown to vendors (it would name the asker). */
+    threadId: text("thread_id").references(() => threads.id),
+    title: text("title").notNull(),
+    body: text("body").notNull(),
+    publishedBy: text("published_by")
+      .notNull()
+      .references(() => users.id),
+    publishedAt: createdAt(),
+  },
+  (t) => [index("addenda_tender_idx").on(t.tenderId)],
+);
+
+/** A vendor organisation's acknowledgement of an addendum: needed before it submits. */
+export const addendumAcknowledgements = pgTable(
+  "addendum_acknowledgements",
+  {
+    addendumId: text("addendum_id")
+      .notNull()
+      .references(() => addenda.id),
+    vendorOrgId: vendorRef(),
+    acknowledgedBy: text("acknowledged_by")
+      .notNull()
+      .references(() => users.id),
+    acknowledgedAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.addendumId, t.vendorOrgId] })],
+);
