@@ -2,6 +2,7 @@
 import { formatInTimeZone } from "date-fns-tz";
 import { CHANNEL_LABELS, formatCondition, formatMoney, formatSci } from "@/lib/format";
 import type { MemoDocument } from "@/lib/pdf/memo";
+import { headLine, type Head } from "@/lib/ledger/anchors";
 import type { ChannelModel, OperatingPoint } from "@/db/schema/tenders";
 import type { MarkKind } from "@/db/schema/evaluation";
 import type { ClaimMetric, Verdict } from "@/db/schema/offers";
@@ -42,6 +43,8 @@ export interface MemoFacts {
   approvals: { name: string; decidedAt: Date; comment: string }[];
   approvalsNeeded: number;
   cautions: string;
+  /** The ledger head an issued memo was issued at (null: the ledger was empty); a preview has none. */
+  ledgerHead?: Head | null;
 }
 
 
@@ -67,6 +70,7 @@ export function memoDocument(f: MemoFacts): MemoDocument {
     draft: f.draft,
     issuedAt: f.issuedAt,
     issuedAtText: when(f.issuedAt, f.zone),
+    ledgerLine: f.ledgerHead === undefined ? null : headLine(f.ledgerHead),
     tender: {
       reference: t.reference,
       title: t.title,

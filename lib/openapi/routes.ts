@@ -14,6 +14,7 @@ import {
   signoffSchema,
   threadSchema,
 } from "@/lib/validation/review";
+import { ledgerStepSchema } from "@/lib/validation/ledger";
 import { cancelTenderSchema, tenderInputSchema, tenderPatchSchema } from "@/lib/validation/tender";
 
 export type Method = "get" | "post" | "put" | "patch" | "delete";
@@ -96,5 +97,9 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/tenders/{id}/memo", tag: "Memo", summary: "Download the signed award memo", produces: "application/pdf" },
   { method: "get", path: "/tenders/{id}/memo/preview", tag: "Memo", summary: "Preview the award memo before approval", produces: "application/pdf" },
   { method: "post", path: "/memo-check", tag: "Memo", summary: "Check a memo file or fingerprint", body: fingerprintSchema, upload: { file: "the memo PDF" }, public: true },
-  { method: "get", path: "/ledger/verify", tag: "Ledger", summary: "Re-verify the whole ledger chain" },
+  { method: "get", path: "/ledger/verify", tag: "Ledger", summary: "Verify the entries added since the last check, and the signed checkpoints" },
+  { method: "get", path: "/ledger/checks", tag: "Ledger", summary: "The most recent full checks of the ledger (admin)" },
+  { method: "post", path: "/ledger/checks", tag: "Ledger", summary: "Start a full check of the whole ledger (admin)", created: true },
+  { method: "get", path: "/ledger/checks/{id}", tag: "Ledger", summary: "Progress and result of a full check (admin)" },
+  { method: "post", path: "/ledger/checks/{id}", tag: "Ledger", summary: "Verify the next batch of a full check (admin)", query: ledgerStepSchema },
 ];

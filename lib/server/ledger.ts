@@ -3,6 +3,7 @@ import { asc, desc, eq, sql } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
 import { ledgerEntries } from "@/db/schema";
 import { entryHash, GENESIS_HASH, verifyChain, type LedgerBody } from "@/lib/ledger/chain";
+import { checkpointIfDue } from "./ledger-anchors";
 
 export interface LedgerInput {
   tenderId?: string | null;
@@ -16,14 +17,19 @@ export interface LedgerInput {
 // Any constant works; it serialises appends so that two writers never chain onto the same entry.
 const LEDGER_LOCK = 72_011_948;
 
+/** Transactions that have appended already: their earlier entries are not committed yet. */
+const appendedIn = new WeakSet<Queryable>();
+
 /** Appends one entry. Call it inside the transaction that makes the change it records. */
 export async function appendLedger(tx: Queryable, input: LedgerInput) {
   await tx.execute(sql`select pg_advisory_xact_lock(${LEDGER_LOCK})`);
   const [last] = await tx
-    .select({ hash: ledgerEntries.hash })
+    .select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash })
     .from(ledgerEntries)
     .orderBy(desc(ledgerEntries.seq))
     .limit(1);
+  await checkpointIfDue(tx, last ?? null, appendedIn.has(tx));
+  appendedIn.add(tx);
   const prevHash = last?.hash ?? GENESIS_HASH;
   const body: LedgerBody = {
     tenderId: input.tenderId ?? null,

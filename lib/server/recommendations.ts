@@ -11,6 +11,7 @@ import type { RecommendationInput } from "@/lib/validation/comparison";
 import { ConflictError, ForbiddenError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesWithRole, notify } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { loadScoringInput } from "./comparison";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, tenderSubject } from "./tenders";
@@ -118,10 +119,10 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
     return rec;
   });
   const notice = awaitingApprovalNotice(tender, 0, band?.approvalsNeeded ?? 1, formatMoney(input.value, tender.currency));
-  notify({
+  notify(await withLedgerHead(db, {
     to: await addressesWithRole(db, "approver"),
     subject: notice.subject,
     text: `${viewer.name} recommends awarding ${tender.reference} to ${scored.vendorName}: ${input.quantity.toLocaleString("en-GB")} units.\n\nJustification: ${input.justification}\n\n${notice.text}`,
-  });
+  }));
   return row;
 }

@@ -8,6 +8,7 @@ import type { SignoffInput } from "@/lib/validation/review";
 import { ConflictError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesWithRole, notify } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender } from "./tenders";
 
@@ -60,10 +61,10 @@ export async function signTechnical(viewer: Viewer, tenderId: string, input: Sig
     });
     return row;
   });
-  notify({
+  notify(await withLedgerHead(db, {
     to: await addressesWithRole(db, "buyer"),
     subject: `${tender.reference}: technical evaluation signed`,
     text: `${viewer.name} signed the technical evaluation of ${tender.reference} ${tender.title}. The commercial envelopes can now be opened.\n\nStatement: ${input.statement}\n\n/tenders/${tenderId}`,
-  });
+  }));
   return signoff;
 }

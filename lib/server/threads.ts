@@ -7,6 +7,7 @@ import type { MessageInput, ThreadInput } from "@/lib/validation/review";
 import { ConflictError, ForbiddenError, NotFoundError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesOf, addressesWithRole, notify, type Notice } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { loadClaim } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
 
@@ -57,7 +58,7 @@ export async function openThread(viewer: Viewer, claimId: string, input: ThreadI
   if (tender.state !== "technical") throw new ConflictError("Questions are asked only during technical evaluation.");
   const db = await getDb();
   const thread = await db.transaction((tx) => insertThread(tx, viewer, claim, input));
-  notify(await threadNotice(db, tender, thread, viewer, input.body, "vendor"));
+  notify(await withLedgerHead(db, await threadNotice(db, tender, thread, viewer, input.body, "vendor")));
   return thread;
 }
 
@@ -128,6 +129,6 @@ export async function postMessage(viewer: Viewer, threadId: string, input: Messa
     });
     return row;
   });
-  notify(await threadNotice(db, tender, thread, viewer, input.body, fromVendor ? "engineers" : "vendor"));
+  notify(await withLedgerHead(db, await threadNotice(db, tender, thread, viewer, input.body, fromVendor ? "engineers" : "vendor")));
   return message;
 }
