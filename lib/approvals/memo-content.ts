@@ -2,7 +2,7 @@
 import { formatInTimeZone } from "date-fns-tz";
 import { CHANNEL_LABELS, formatCondition, formatMoney, formatSci } from "@/lib/format";
 import type { MemoDocument } from "@/lib/pdf/memo";
-import { headLine, type Head } from "@/lib/ledger/anchors";
+import { headLine, type Head } from "@/lib/ledger/head";
 import type { ChannelModel, OperatingPoint } from "@/db/schema/tenders";
 import type { MarkKind } from "@/db/schema/evaluation";
 import type { ClaimMetric, Verdict } from "@/db/schema/offers";

@@ -1,4 +1,5 @@
 import { createHmac, timingSafeEqual } from "node:crypto";
+import type { Head } from "./head";
 
 /**
  * Signed checkpoints of the ledger head. The key is never stored in the database, so whoever can
@@ -9,11 +10,6 @@ import { createHmac, timingSafeEqual } from "node:crypto";
 export const CHECKPOINT_EVERY = 20;
 
 export type CheckpointReason = "schedule" | "award" | "verified";
-
-export interface Head {
-  seq: number;
-  hash: string;
-}
 
 export interface Checkpoint extends Head {
   /** ISO 8601, when it was signed. */
@@ -39,16 +35,6 @@ export function signatureHolds(key: string, checkpoint: Checkpoint): boolean {
 /** Whether the entry after `previous` should sign `previous` first (the scheduled checkpoints). */
 export function checkpointDue(previous: Head | null, lastCheckpointSeq: number): boolean {
   return previous !== null && previous.seq - lastCheckpointSeq >= CHECKPOINT_EVERY;
-}
-
-/** How a head is quoted in memos and notices: the entry number and the first 12 hex digits of its hash. */
-export function headLabel(head: Head): string {
-  return `entry #${head.seq}, hash ${head.hash.slice(0, 12)}`;
-}
-
-/** The line that memos and notices carry. */
-export function headLine(head: Head | null): string {
-  return head ? `Ledger head when issued: ${headLabel(head)}.` : "Ledger head when issued: the ledger was empty.";
 }
 
 /**

@@ -2,7 +2,8 @@ import "server-only";
 import { and, asc, count, eq, gt, inArray, lte } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
 import { ledgerEntries, ledgerVerification } from "@/db/schema";
-import { ANCHOR_LIMIT, checkpointProblem, type Checkpoint, type Head } from "@/lib/ledger/anchors";
+import { ANCHOR_LIMIT, checkpointProblem, type Checkpoint } from "@/lib/ledger/anchors";
+import type { Head } from "@/lib/ledger/head";
 import { entryProblem, GENESIS_HASH, type LedgerRow } from "@/lib/ledger/chain";
 import { allCheckpoints, currentHead, ledgerKey, signHead } from "./ledger-anchors";
 

@@ -6,7 +6,7 @@ import { approvals, claims, marks, memos, offers, organisations, tenders, users 
 import { CAUTIONS } from "@/app/_components/cautions";
 import { memoDocument } from "@/lib/approvals/memo-content";
 import { memoIdentifier } from "@/lib/approvals/routing";
-import type { Head } from "@/lib/ledger/anchors";
+import type { Head } from "@/lib/ledger/head";
 import { renderMemo } from "@/lib/pdf/memo";
 import { latestMarks } from "@/lib/review/marks";
 import { getObject, isObjectNotFound, putObject, sha256Hex } from "@/lib/storage";

@@ -16,6 +16,7 @@ export default defineConfig({
     { name: "review", testMatch: "review.spec.ts", dependencies: ["pages"] },
     { name: "comparison", testMatch: "comparison.spec.ts", dependencies: ["review"] },
     { name: "award", testMatch: "award.spec.ts", dependencies: ["comparison"] },
+    { name: "ledger", testMatch: "ledger-check.spec.ts", dependencies: ["award"] },
   ],
   workers: 1,
   fullyParallel: false,

@@ -9,7 +9,7 @@ import { GET as previewGet } from "@/app/api/v1/tenders/[id]/memo/preview/route"
 import { POST as checkPost } from "@/app/api/v1/memo-check/route";
 import { POST as decidePost } from "@/app/api/v1/tenders/[id]/approvals/route";
 import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
-import { headLine } from "@/lib/ledger/anchors";
+import { headLine } from "@/lib/ledger/head";
 import { flushMail, listCapturedMail } from "@/lib/mail";
 import { approvalsGiven, renderMemoFor } from "@/lib/server/memos";
 import { BASE, closeDb, freshDatabase, params, request, signInAs } from "../support/app";

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { checkpointDue, checkpointProblem, CHECKPOINT_EVERY, headLine, signatureHolds, signCheckpoint } from "@/lib/ledger/anchors";
+import { checkpointDue, checkpointProblem, CHECKPOINT_EVERY, signatureHolds, signCheckpoint } from "@/lib/ledger/anchors";
+import { headLine } from "@/lib/ledger/head";
 import { parseEnv, productionProblems } from "@/lib/env";
 
 const KEY = "k".repeat(40);
