@@ -1,7 +1,7 @@
 import "server-only";
 import fs from "node:fs";
 import path from "node:path";
-import { desc, max } from "drizzle-orm";
+import { desc, gt, max } from "drizzle-orm";
 import { z } from "zod";
 import { dataDir, type Queryable } from "@/db/client";
 import { ledgerCheckpoints, ledgerEntries } from "@/db/schema";
@@ -38,14 +38,18 @@ function keepOutside(checkpoint: Checkpoint): void {
   fs.appendFileSync(file, `${JSON.stringify(checkpoint)}\n`, { mode: 0o600 });
 }
 
-/** The checkpoints kept outside the database; lines that are not checkpoints count as `unreadable`. */
-export function checkpointsOutside(): { checkpoints: Checkpoint[]; unreadable: number } {
-  const file = outsideFile();
-  if (!file) return { checkpoints: [...memoryCopy()], unreadable: 0 };
-  if (!fs.existsSync(file)) return { checkpoints: [], unreadable: 0 };
-  const checkpoints: Checkpoint[] = [];
-  let unreadable = 0;
-  for (const line of fs.readFileSync(file, "utf8").split("\n")) {
+interface OutsideCopy {
+  file: string;
+  /** Bytes of the file read so far (whole lines only). */
+  size: number;
+  checkpoints: Checkpoint[];
+  unreadable: number;
+}
+const READ = Symbol.for("ratecourt.ledger-checkpoint-file");
+const holder = globalThis as { [READ]?: OutsideCopy };
+
+function readLines(copy: OutsideCopy, text: string): void {
+  for (const line of text.split("\n")) {
     if (!line.trim()) continue;
     let parsed;
     try {
@@ -53,19 +57,58 @@ export function checkpointsOutside(): { checkpoints: Checkpoint[]; unreadable: n
     } catch {
       parsed = null;
     }
-    if (parsed?.success) checkpoints.push(parsed.data);
-    else unreadable += 1;
+    if (parsed?.success) copy.checkpoints.push(parsed.data);
+    else copy.unreadable += 1;
   }
-  return { checkpoints, unreadable };
 }
 
-/** Every checkpoint, from the database and from outside it; the same one kept twice counts once. */
-export async function allCheckpoints(db: Queryable): Promise<{ checkpoints: Checkpoint[]; unreadable: number }> {
-  const outside = checkpointsOutside();
-  const inside = await db.select().from(ledgerCheckpoints);
+/**
+ * The checkpoints kept outside the database; lines that are not checkpoints count as `unreadable`.
+ * The file only grows, so a view reads only the lines added since the last read; `fresh` reads it all again.
+ */
+export function checkpointsOutside(fresh = false): { checkpoints: Checkpoint[]; unreadable: number } {
+  const file = outsideFile();
+  if (!file) return { checkpoints: [...memoryCopy()], unreadable: 0 };
+  const size = fs.existsSync(file) ? fs.statSync(file).size : 0;
+  let copy = holder[READ];
+  if (fresh || !copy || copy.file !== file || size < copy.size) copy = holder[READ] = { file, size: 0, checkpoints: [], unreadable: 0 };
+  if (size > copy.size) {
+    const bytes = Buffer.alloc(size - copy.size);
+    const fd = fs.openSync(file, "r");
+    try {
+      fs.readSync(fd, bytes, 0, bytes.length, copy.size);
+    } finally {
+      fs.closeSync(fd);
+    }
+    const whole = bytes.lastIndexOf(0x0a) + 1;
+    readLines(copy, bytes.subarray(0, whole).toString("utf8"));
+    copy.size += whole;
+  }
+  return { checkpoints: copy.checkpoints, unreadable: copy.unreadable };
+}
+
+export interface Anchors {
+  /** The checkpoints after the given entry, and the newest of all, oldest first. */
+  due: Checkpoint[];
+  newest: Checkpoint | null;
+  /** How many are kept outside the database. */
+  outside: number;
+  unreadable: number;
+}
+
+/** The checkpoints a check compares with the chain, from the database and from outside it. */
+export async function anchorsAfter(db: Queryable, after: number, fresh = false): Promise<Anchors> {
+  const outside = checkpointsOutside(fresh);
+  const [inside, [newestInside]] = await Promise.all([
+    db.select().from(ledgerCheckpoints).where(gt(ledgerCheckpoints.seq, after)),
+    db.select().from(ledgerCheckpoints).orderBy(desc(ledgerCheckpoints.seq)).limit(1),
+  ]);
+  const all = [...outside.checkpoints, ...inside, ...(newestInside ? [newestInside] : [])];
+  const newest = all.reduce<Checkpoint | null>((best, c) => (best === null || c.seq > best.seq ? c : best), null);
+  // The same checkpoint kept in both places counts once.
   const unique = new Map<string, Checkpoint>();
-  for (const c of [...outside.checkpoints, ...inside]) unique.set(`${c.seq}:${c.signature}`, c);
-  return { checkpoints: [...unique.values()].sort((a, b) => a.seq - b.seq), unreadable: outside.unreadable };
+  for (const c of all) if (c.seq > after || c === newest) unique.set(`${c.seq}:${c.signature}`, c);
+  return { due: [...unique.values()].sort((a, b) => a.seq - b.seq), newest, outside: outside.checkpoints.length, unreadable: outside.unreadable };
 }
 
 /** Signs a head that is committed (or in the calling transaction, which commits it) and keeps the checkpoint in both places. */

@@ -2,10 +2,10 @@ import "server-only";
 import { and, asc, count, eq, gt, inArray, lte } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
 import { ledgerEntries, ledgerVerification } from "@/db/schema";
-import { ANCHOR_LIMIT, checkpointProblem, type Checkpoint } from "@/lib/ledger/anchors";
+import { ANCHOR_LIMIT, checkpointProblem } from "@/lib/ledger/anchors";
 import type { Head } from "@/lib/ledger/head";
 import { entryProblem, GENESIS_HASH, type LedgerRow } from "@/lib/ledger/chain";
-import { allCheckpoints, currentHead, ledgerKey, signHead } from "./ledger-anchors";
+import { anchorsAfter, currentHead, ledgerKey, signHead, type Anchors } from "./ledger-anchors";
 
 /** Entries read and hashed at a time. */
 export const CHECK_BATCH = 5_000;
@@ -28,7 +28,8 @@ export interface ChainCheck {
   checkedNow: number;
   brokenAt?: number;
   reason?: string;
-  anchors: { checkpoints: number; newest: Head | null; limit: string };
+  /** Signed checkpoints kept outside the database, the newest one (from either place), and what they cannot show. */
+  anchors: { outside: number; newest: Head | null; limit: string };
   checkedAt: string;
 }
 
@@ -52,26 +53,26 @@ export async function checkLinks(db: Queryable, from: Head, through: number, lim
 /**
  * Checks the signed checkpoints against the chain as it stands: every one newer than entry
  * `after`, and always the newest of all (which catches truncation and wholesale recomputation
- * even when the verified head itself was tampered with).
+ * even when the verified head itself was tampered with). `fresh` rereads the file outside the database.
  */
-export async function checkAnchors(db: Queryable, after: number): Promise<{ problem: Break | null; checkpoints: Checkpoint[] }> {
-  const { checkpoints, unreadable } = await allCheckpoints(db);
-  if (unreadable > 0) return { checkpoints, problem: { seq: after, reason: `${unreadable} line(s) of the checkpoint file outside the database are not checkpoints: it was edited` } };
-  const newest = checkpoints.at(-1);
-  const due = checkpoints.filter((c) => c.seq > after || c === newest);
+export async function checkAnchors(db: Queryable, after: number, fresh = false): Promise<{ problem: Break | null; anchors: Anchors }> {
+  const anchors = await anchorsAfter(db, after, fresh);
+  if (anchors.unreadable > 0) {
+    return { anchors, problem: { seq: after, reason: `${anchors.unreadable} line(s) of the checkpoint file outside the database are not checkpoints: it was edited` } };
+  }
   const end = (await currentHead(db))?.seq ?? 0;
-  const seqs = [...new Set(due.map((c) => c.seq))];
+  const seqs = [...new Set(anchors.due.map((c) => c.seq))];
   const found = new Map<number, string>();
   for (let i = 0; i < seqs.length; i += CHECK_BATCH) {
     const rows = await db.select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash }).from(ledgerEntries).where(inArray(ledgerEntries.seq, seqs.slice(i, i + CHECK_BATCH)));
     for (const row of rows) found.set(row.seq, row.hash);
   }
   const key = ledgerKey();
-  for (const checkpoint of due) {
+  for (const checkpoint of anchors.due) {
     const reason = checkpointProblem(key, checkpoint, found.get(checkpoint.seq), end);
-    if (reason) return { checkpoints, problem: { seq: Math.min(checkpoint.seq, end + 1), reason } };
+    if (reason) return { anchors, problem: { seq: Math.min(checkpoint.seq, end + 1), reason } };
   }
-  return { checkpoints, problem: null };
+  return { anchors, problem: null };
 }
 
 async function readState(db: Queryable) {
@@ -85,9 +86,9 @@ export async function saveState(db: Queryable, head: Head, broken: Break | null)
   await db.insert(ledgerVerification).values({ id: STATE_ID, ...values }).onConflictDoUpdate({ target: ledgerVerification.id, set: values });
 }
 
-async function report(db: Queryable, verified: Head, verifiedAt: Date, checkedNow: number, broken: Break | null, checkpoints: Checkpoint[]): Promise<ChainCheck> {
+async function report(db: Queryable, verified: Head, verifiedAt: Date, checkedNow: number, broken: Break | null, anchors: Anchors): Promise<ChainCheck> {
   const [{ n }] = await db.select({ n: count() }).from(ledgerEntries);
-  const newest = checkpoints.at(-1);
+  const newest = anchors.newest;
   return {
     ok: broken === null,
     entries: n,
@@ -95,7 +96,7 @@ async function report(db: Queryable, verified: Head, verifiedAt: Date, checkedNo
     verifiedAt: verifiedAt.toISOString(),
     checkedNow,
     ...(broken ? { brokenAt: broken.seq, reason: broken.reason } : {}),
-    anchors: { checkpoints: checkpoints.length, newest: newest ? { seq: newest.seq, hash: newest.hash } : null, limit: ANCHOR_LIMIT },
+    anchors: { outside: anchors.outside, newest: newest ? { seq: newest.seq, hash: newest.hash } : null, limit: ANCHOR_LIMIT },
     checkedAt: new Date().toISOString(),
   };
 }
@@ -117,8 +118,7 @@ export async function verifyNew(db: Queryable): Promise<ChainCheck> {
   const state = await readState(db);
   const start: Head = state ? { seq: state.seq, hash: state.hash } : START;
   if (state?.brokenAt != null) {
-    const { checkpoints } = await allCheckpoints(db);
-    return report(db, start, state.verifiedAt, 0, { seq: state.brokenAt, reason: state.reason ?? "" }, checkpoints);
+    return report(db, start, state.verifiedAt, 0, { seq: state.brokenAt, reason: state.reason ?? "" }, await anchorsAfter(db, start.seq));
   }
   let head = start;
   let checked = 0;
@@ -130,16 +130,18 @@ export async function verifyNew(db: Queryable): Promise<ChainCheck> {
     problem = step.problem;
     if (step.checked < CHECK_BATCH) break;
   }
-  const anchors = await checkAnchors(db, start.seq);
-  problem ??= anchors.problem;
+  const { anchors, problem: anchorProblem } = await checkAnchors(db, start.seq);
+  problem ??= anchorProblem;
   if (problem) {
     await saveState(db, start, problem);
-    return report(db, start, state?.verifiedAt ?? new Date(), checked, problem, anchors.checkpoints);
+    return report(db, start, state?.verifiedAt ?? new Date(), checked, problem, anchors);
   }
   await saveState(db, head, null);
-  const newest = anchors.checkpoints.at(-1);
-  if (head.seq > (newest?.seq ?? 0)) anchors.checkpoints.push(await signHead(db, head, "verified"));
-  return report(db, head, new Date(), checked, null, anchors.checkpoints);
+  if (head.seq > (anchors.newest?.seq ?? 0)) {
+    anchors.newest = await signHead(db, head, "verified");
+    anchors.outside += 1;
+  }
+  return report(db, head, new Date(), checked, null, anchors);
 }
 
 export interface IssuedHead extends Head {

@@ -41,7 +41,7 @@ async function finish(db: Queryable, check: FullCheck, last: { seq: number; hash
   if (last.seq < check.throughSeq) {
     return { seq: last.seq + 1, reason: `the ledger reached entry #${check.throughSeq} when this check started, and now ends at entry #${last.seq}: entries were removed` };
   }
-  const { problem } = await checkAnchors(db, 0);
+  const { problem } = await checkAnchors(db, 0, true);
   if (problem) return problem;
   const [state] = await db.select().from(ledgerVerification);
   // A view may have verified further meanwhile, on top of this head: keep that.

@@ -27,7 +27,7 @@ export default async function LedgerCheckPage() {
         </p>
         <p className="text-sm">
           {chain.anchors.newest
-            ? `${chain.anchors.checkpoints} signed checkpoints; the newest is at entry #${chain.anchors.newest.seq}.`
+            ? `${chain.anchors.outside} signed checkpoints kept outside the database; the newest is at entry #${chain.anchors.newest.seq}.`
             : "No signed checkpoint yet."}
         </p>
         <p className="text-xs text-ink-soft">{chain.anchors.limit}</p>
