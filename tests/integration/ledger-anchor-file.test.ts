@@ -9,6 +9,7 @@ import { resetEnvForTests } from "@/lib/env";
 import { CHECKPOINT_FILE } from "@/lib/ledger/anchors";
 import { releaseDataFolder } from "@/lib/runtime/data-lock";
 import { checkpointsOutside } from "@/lib/server/ledger-anchors";
+import { verifyLedger } from "@/lib/server/ledger";
 import { verifyNew } from "@/lib/server/ledger-check";
 import { truncateAfter } from "../support/ledger-tamper";
 
@@ -42,7 +43,10 @@ describe("checkpoints in the data folder", () => {
   it("find a truncation with the database's own checkpoints gone, from the file", async () => {
     const [head] = await db.select().from(ledgerEntries).orderBy(desc(ledgerEntries.seq)).limit(1);
     await truncateAfter(db, head.seq - 3);
-    expect(await verifyNew(db)).toMatchObject({ ok: false, brokenAt: head.seq - 2, reason: expect.stringMatching(/the newest entries were removed/) });
+    const removed = { ok: false, brokenAt: head.seq - 2, reason: expect.stringMatching(/the newest entries were removed/) };
+    expect(await verifyNew(db)).toMatchObject(removed);
+    // The whole-chain check scripts use (a restore, for one) sees it too.
+    expect(await verifyLedger(db)).toMatchObject(removed);
   });
 
   it("read lines added since the last read, and count a line that is not a checkpoint", () => {
