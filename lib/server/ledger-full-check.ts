@@ -1,5 +1,5 @@
 import "server-only";
-import { count, desc, eq, lte } from "drizzle-orm";
+import { and, count, desc, eq, lte } from "drizzle-orm";
 import { getDb, type Queryable } from "@/db/client";
 import { ledgerEntries, ledgerFullChecks, ledgerVerification, users } from "@/db/schema";
 import { ANCHOR_LIMIT } from "@/lib/ledger/anchors";
@@ -72,7 +72,8 @@ export async function stepFullCheck(viewer: Viewer, id: string, entries = CHECK_
       checked: check.checked + step.checked,
       ...(done ? { status: problem ? "broken" : "intact", brokenAt: problem?.seq ?? null, reason: problem?.reason ?? null, finishedAt: new Date() } : {}),
     })
-    .where(eq(ledgerFullChecks.id, id));
+    // Two steps sent at once: only the first moves the check on.
+    .where(and(eq(ledgerFullChecks.id, id), eq(ledgerFullChecks.checkedSeq, check.checkedSeq)));
   return load(db, id);
 }
 
