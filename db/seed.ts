@@ -6,6 +6,7 @@ import { seedDemoOffers } from "./seed-offers";
 import { seedDemoReview } from "./seed-review";
 import { seedDemoApprovalBands } from "./seed-approvals";
 import { appendLedger } from "@/lib/server/ledger";
+import { checkpointNow } from "@/lib/server/ledger-anchors";
 
 // Everything below is invented for the demonstration: no real company, person or figure.
 export const DEMO_PASSWORD = "ratecourt-demo";
@@ -65,7 +66,7 @@ export interface DemoContext {
 
 /** Fills an empty database with the demo scenario; does nothing when organisations exist. */
 export async function seedDemoData(db: Db): Promise<boolean> {
-  return db.transaction(async (tx) => {
+  const seeded = await db.transaction(async (tx) => {
     // Serialise first starts of several processes on one server database.
     await tx.execute(sql`select pg_advisory_xact_lock(72011949)`);
     const [{ n }] = await tx.select({ n: count() }).from(organisations);
@@ -73,6 +74,9 @@ export async function seedDemoData(db: Db): Promise<boolean> {
     await insertDemo(tx);
     return true;
   });
+  // One transaction wrote the whole demo ledger: sign its head once it is committed.
+  if (seeded) await checkpointNow(db, "schedule");
+  return seeded;
 }
 
 async function insertDemo(tx: Queryable) {

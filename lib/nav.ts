@@ -15,6 +15,7 @@ export function navFor(ability: AppAbility, roles: readonly string[], options: {
   if (ability.can("use", "Bounds")) items.push({ href: "/explorer", label: "Bound explorer" });
   if (ability.can("manage", "User")) items.push({ href: "/people", label: "People" });
   if (ability.can("read", "ApprovalLimit")) items.push({ href: "/approval-limits", label: "Approval limits" });
+  if (ability.can("verify", "Ledger")) items.push({ href: "/ledger-check", label: "Ledger check" });
   if (options.mailroom && ability.can("use", "Mailroom")) items.push({ href: "/mailroom", label: "Mailroom" });
   items.push({ href: "/memo-check", label: "Memo check" });
   return items;

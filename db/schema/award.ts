@@ -1,4 +1,4 @@
-import { index, integer, jsonb, numeric, pgTable, text, uniqueIndex } from "drizzle-orm/pg-core";
+import { bigint, index, integer, jsonb, numeric, pgTable, text, uniqueIndex } from "drizzle-orm/pg-core";
 import { tenderRef } from "./refs";
 import { id, createdAt, updatedAt } from "./columns";
 import { users } from "./people";
@@ -83,5 +83,8 @@ export const memos = pgTable("memos", {
   sha256: text("sha256").notNull().unique(),
   storageKey: text("storage_key").notNull(),
   size: integer("size").notNull(),
+  /** The ledger head the memo was issued at, printed in it (null when the ledger was empty). */
+  ledgerSeq: bigint("ledger_seq", { mode: "number" }),
+  ledgerHash: text("ledger_hash"),
   createdAt: createdAt(),
 });

@@ -2,6 +2,7 @@
 import { formatInTimeZone } from "date-fns-tz";
 import { CHANNEL_LABELS, formatCondition, formatMoney, formatSci } from "@/lib/format";
 import type { MemoDocument } from "@/lib/pdf/memo";
+import { headLine, type Head } from "@/lib/ledger/head";
 import type { ChannelModel, OperatingPoint } from "@/db/schema/tenders";
 import type { MarkKind } from "@/db/schema/evaluation";
 import type { ClaimMetric, Verdict } from "@/db/schema/offers";
@@ -75,6 +76,8 @@ export interface MemoFacts {
   approvals: { name: string; decidedAt: Date; comment: string }[];
   approvalsNeeded: number;
   cautions: string;
+  /** The ledger head an issued memo was issued at (null: the ledger was empty); a preview has none. */
+  ledgerHead?: Head | null;
 }
 
 
@@ -115,6 +118,7 @@ export function memoDocument(f: MemoFacts): MemoDocument {
     draft: f.draft,
     issuedAt: f.issuedAt,
     issuedAtText: when(f.issuedAt, f.zone),
+    ledgerLine: f.ledgerHead === undefined ? null : headLine(f.ledgerHead),
     tender: {
       reference: t.reference,
       title: t.title,

@@ -15,6 +15,7 @@ import {
   signoffSchema,
   threadSchema,
 } from "@/lib/validation/review";
+import { ledgerStepSchema } from "@/lib/validation/ledger";
 import { cancelTenderSchema, tenderInputSchema, tenderPatchSchema } from "@/lib/validation/tender";
 import { addendumSchema, ledgerPageSchema, objectionSchema } from "@/lib/validation/notices";
 
@@ -106,6 +107,10 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/tenders/{id}/memo", tag: "Memo", summary: "Download the signed award memo", produces: "application/pdf" },
   { method: "get", path: "/tenders/{id}/memo/preview", tag: "Memo", summary: "Preview the award memo before approval", produces: "application/pdf" },
   { method: "post", path: "/memo-check", tag: "Memo", summary: "Check a memo file or fingerprint", body: fingerprintSchema, upload: { file: "the memo PDF" }, public: true },
-  { method: "get", path: "/ledger/verify", tag: "Ledger", summary: "Re-verify the whole ledger chain" },
+  { method: "get", path: "/ledger/verify", tag: "Ledger", summary: "Verify the entries added since the last check, and the signed checkpoints" },
+  { method: "get", path: "/ledger/checks", tag: "Ledger", summary: "The most recent full checks of the ledger (admin)" },
+  { method: "post", path: "/ledger/checks", tag: "Ledger", summary: "Start a full check of the whole ledger (admin)", created: true },
+  { method: "get", path: "/ledger/checks/{id}", tag: "Ledger", summary: "Progress and result of a full check (admin)" },
+  { method: "post", path: "/ledger/checks/{id}", tag: "Ledger", summary: "Verify the next batch of a full check (admin)", query: ledgerStepSchema },
   { method: "post", path: "/backups", tag: "Operations", summary: "Back up the embedded database and object store while the server runs (admin)", created: true },
 ];

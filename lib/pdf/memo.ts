@@ -12,6 +12,8 @@ export interface MemoDocument {
   /** The award time (or the preview's time): also the PDF's creation and modification date. */
   issuedAt: Date;
   issuedAtText: string;
+  /** The ledger head the memo was issued at, in words; null on a preview. */
+  ledgerLine: string | null;
   tender: {
     reference: string;
     title: string;
@@ -137,7 +139,8 @@ export async function renderMemo(memo: MemoDocument): Promise<Uint8Array> {
   w.text(memo.tender.buyerOrganisation, { soft: true, size: 9 });
   w.text(`Award memo ${memo.identifier}`, { bold: true, size: 17, gap: 1 });
   w.text(`${memo.tender.reference}: ${memo.tender.title}`, { bold: true, size: 12.5 });
-  w.text(memo.draft ? `Preview of ${memo.issuedAtText}: not approved, not an award.` : `Issued ${memo.issuedAtText}`, { soft: true });
+  w.text(memo.draft ? `Preview of ${memo.issuedAtText}: not approved, not an award.` : `Issued ${memo.issuedAtText}`, { soft: true, gap: memo.ledgerLine ? 0 : undefined });
+  if (memo.ledgerLine) w.text(memo.ledgerLine, { soft: true, size: 8.5 });
 
   w.heading("Requirements");
   if (memo.tender.description) w.text(memo.tender.description, { gap: 4 });

@@ -17,6 +17,7 @@ import { appendLedger } from "./ledger";
 import { approvalsGiven, issueMemo, type MemoRow } from "./memos";
 import { approvalRequestNotices, awardDisclosure } from "./approval-notices";
 import { addressesOf, notify, type Notice } from "./notify";
+import { checkpointNow, withLedgerHead } from "./ledger-anchors";
 import { getCurrentRecommendation, type RecommendationRow } from "./recommendations";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, type TenderRow } from "./tenders";
@@ -118,7 +119,9 @@ export async function decideRecommendation(viewer: Viewer, tenderId: string, inp
       throw error;
     });
 
-  notify(withSafetyCaution(tender, await decisionNotices(db, viewer, tender, { ...rec, ...rule }, rule, outcome)));
+  // Each award is anchored at once: its entries can no longer be cut off the end without trace.
+  if (outcome.kind === "awarded") await checkpointNow(db, "award");
+  notify(await withLedgerHead(db, withSafetyCaution(tender, await decisionNotices(db, viewer, tender, { ...rec, ...rule }, rule, outcome))));
   return outcome;
 }
 

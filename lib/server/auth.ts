@@ -1,13 +1,10 @@
 import "server-only";
-import fs from "node:fs";
-import path from "node:path";
-import { randomBytes } from "node:crypto";
 import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { nextCookies } from "better-auth/next-js";
-import { dataDir, getDb, type Db } from "@/db/client";
+import { getDb, type Db } from "@/db/client";
 import { env } from "@/lib/env";
-import { ensurePrivateFolder } from "@/lib/runtime/data-lock";
+import { keptSecret } from "./secrets";
 import { accounts, sessions, users, verifications } from "@/db/schema";
 import { eq } from "drizzle-orm";
 
@@ -16,20 +13,7 @@ export function appUrl(): string {
 }
 
 /** A secret from the environment, or one made once and kept in the data folder. */
-function secret(): string {
-  const { BETTER_AUTH_SECRET, DB_MEMORY, DATABASE_URL } = env();
-  if (BETTER_AUTH_SECRET) return BETTER_AUTH_SECRET;
-  if (DB_MEMORY || DATABASE_URL) {
-    const g = globalThis as { __ratecourtSecret?: string };
-    return (g.__ratecourtSecret ??= randomBytes(32).toString("hex"));
-  }
-  const file = path.join(dataDir(), "auth-secret");
-  if (!fs.existsSync(file)) {
-    ensurePrivateFolder(dataDir());
-    fs.writeFileSync(file, randomBytes(32).toString("hex"), { mode: 0o600 });
-  }
-  return fs.readFileSync(file, "utf8").trim();
-}
+const secret = () => keptSecret(env().BETTER_AUTH_SECRET, "auth-secret");
 
 function trustedOrigins(base: string): string[] {
   const url = new URL(base);

@@ -2,7 +2,9 @@ import "server-only";
 import { asc, desc, eq, sql } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
 import { ledgerEntries } from "@/db/schema";
-import { entryHash, GENESIS_HASH, verifyChain, type LedgerBody } from "@/lib/ledger/chain";
+import { entryHash, GENESIS_HASH, verifyChain, type ChainReport, type LedgerBody } from "@/lib/ledger/chain";
+import { checkpointIfDue } from "./ledger-anchors";
+import { checkAnchors } from "./ledger-check";
 
 export interface LedgerInput {
   tenderId?: string | null;
@@ -16,14 +18,19 @@ export interface LedgerInput {
 // Any constant works; it serialises appends so that two writers never chain onto the same entry.
 const LEDGER_LOCK = 72_011_948;
 
+/** Transactions that have appended already: their earlier entries are not committed yet. */
+const appendedIn = new WeakSet<Queryable>();
+
 /** Appends one entry. Call it inside the transaction that makes the change it records. */
 export async function appendLedger(tx: Queryable, input: LedgerInput) {
   await tx.execute(sql`select pg_advisory_xact_lock(${LEDGER_LOCK})`);
   const [last] = await tx
-    .select({ hash: ledgerEntries.hash })
+    .select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash })
     .from(ledgerEntries)
     .orderBy(desc(ledgerEntries.seq))
     .limit(1);
+  await checkpointIfDue(tx, last ?? null, appendedIn.has(tx));
+  appendedIn.add(tx);
   const prevHash = last?.hash ?? GENESIS_HASH;
   const body: LedgerBody = {
     tenderId: input.tenderId ?? null,
@@ -48,6 +55,12 @@ export async function listLedger(db: Queryable, tenderId?: string) {
   return (tenderId ? query.where(eq(ledgerEntries.tenderId, tenderId)) : query).orderBy(asc(ledgerEntries.seq));
 }
 
-export async function verifyLedger(db: Queryable) {
-  return verifyChain(await listLedger(db));
+/** Re-verifies every entry and every signed checkpoint at once (scripts and tests; views use verifyNew). */
+export async function verifyLedger(db: Queryable): Promise<ChainReport> {
+  const rows = await listLedger(db);
+  const report = verifyChain(rows);
+  if (!report.ok) return report;
+  const { problem } = await checkAnchors(db, 0, true);
+  if (!problem) return report;
+  return { ok: false, entries: report.entries, brokenAt: problem.seq, position: rows.filter((r) => r.seq <= problem.seq).length, reason: problem.reason };
 }

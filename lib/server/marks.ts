@@ -8,6 +8,7 @@ import { markProblem } from "@/lib/review/marks";
 import { ConflictError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
 import { notify } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { claimSubject, loadClaim } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { insertThread, threadNotice } from "./threads";
@@ -50,6 +51,6 @@ export async function createMark(viewer: Viewer, claimId: string, input: MarkInp
     const thread = clarify ? await insertThread(tx, viewer, claim, { subject: input.subject!, body: input.comment }) : null;
     return { mark, thread };
   });
-  if (outcome.thread) notify(await threadNotice(db, tender, outcome.thread, viewer, input.comment, "vendor"));
+  if (outcome.thread) notify(await withLedgerHead(db, await threadNotice(db, tender, outcome.thread, viewer, input.comment, "vendor")));
   return { ...outcome.mark, threadId: outcome.thread?.id ?? null };
 }

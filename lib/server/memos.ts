@@ -6,11 +6,14 @@ import { approvals, claims, declarations, evidenceRuns, marks, memos, offers, or
 import { CAUTIONS } from "@/app/_components/cautions";
 import { memoDocument } from "@/lib/approvals/memo-content";
 import { memoIdentifier } from "@/lib/approvals/routing";
+import type { Head } from "@/lib/ledger/head";
 import { renderMemo } from "@/lib/pdf/memo";
 import { latestMarks } from "@/lib/review/marks";
 import { countedStatus } from "@/lib/review/evidence";
 import { getObject, isObjectNotFound, putObject, sha256Hex } from "@/lib/storage";
 import { ConflictError, ForbiddenError, NotFoundError } from "./errors";
+import { currentHead } from "./ledger-anchors";
+import { issuedHead, type IssuedHead } from "./ledger-check";
 import { getCurrentRecommendation, type RecommendationRow } from "./recommendations";
 import { ensureLocalServices } from "./services";
 import { authorize, type Viewer } from "./session";
@@ -80,6 +83,8 @@ interface RenderOptions {
   draft: boolean;
   issuedAt: Date;
   approvals: { name: string; decidedAt: Date; comment: string }[];
+  /** An issued memo prints the ledger head it was issued at; a preview has none. */
+  ledgerHead?: Head | null;
 }
 
 /** Renders the memo of a recommendation from the database as it stands. */
@@ -111,6 +116,7 @@ export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: Recom
     safetyRelevant: tender.safetyRelevant,
     technical: await technicalRecord(db, tender.id),
     cautions: CAUTIONS,
+    ledgerHead: options.ledgerHead,
   });
   return renderMemo(document);
 }
@@ -123,12 +129,23 @@ export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: Recom
 export async function issueMemo(tx: Queryable, tender: TenderRow, rec: RecommendationRow, issuedAt: Date): Promise<MemoRow> {
   const identifier = memoIdentifier(tender.reference);
   const given = await approvalsGiven(tx, rec.id);
-  const bytes = await renderMemoFor(tx, tender, rec, { identifier, draft: false, issuedAt, approvals: given });
+  const ledgerHead = await currentHead(tx);
+  const bytes = await renderMemoFor(tx, tender, rec, { identifier, draft: false, issuedAt, approvals: given, ledgerHead });
   await ensureLocalServices();
   const stored = await putObject(`memos/${tender.id}/${identifier}.pdf`, bytes, "application/pdf");
   const [row] = await tx
     .insert(memos)
-    .values({ identifier, tenderId: tender.id, recommendationId: rec.id, sha256: stored.sha256, storageKey: stored.key, size: stored.size, createdAt: issuedAt })
+    .values({
+      identifier,
+      tenderId: tender.id,
+      recommendationId: rec.id,
+      sha256: stored.sha256,
+      storageKey: stored.key,
+      size: stored.size,
+      ledgerSeq: ledgerHead?.seq ?? null,
+      ledgerHash: ledgerHead?.hash ?? null,
+      createdAt: issuedAt,
+    })
     .returning();
   return row;
 }
@@ -177,6 +194,7 @@ export type MemoCheckResult =
       tender: { reference: string; title: string };
       awardedAt: string;
       approvedBy: { name: string; at: string }[];
+      ledgerHead: IssuedHead | null;
     };
 
 /** Public: is this file (or fingerprint) an award memo Ratecourt issued? Says for which tender, approved by whom and when. */
@@ -199,6 +217,7 @@ export async function checkMemo(viewer: Viewer | null, input: { bytes: Uint8Arra
     tender: { reference: row.reference, title: row.title },
     awardedAt: (row.awardedAt ?? row.memo.createdAt).toISOString(),
     approvedBy: given.map((a) => ({ name: a.name, at: a.decidedAt.toISOString() })),
+    ledgerHead: row.memo.ledgerSeq === null || row.memo.ledgerHash === null ? null : await issuedHead(db, { seq: row.memo.ledgerSeq, hash: row.memo.ledgerHash }),
   };
 }
 

@@ -13,6 +13,7 @@ import { unfinishedMessage } from "./engine";
 import { ConflictError, InputError, NotFoundError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesOf, notify } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, type TenderWithInvites } from "./tenders";
 
@@ -188,11 +189,11 @@ export async function submitOffer(viewer: Viewer, tenderId: string, input: Offer
     writeOfferVersion(tx, { tender, vendorOrgId, actor: ledgerActor(viewer), input, claims: evaluated, at: now }),
   );
   const summary = verdictSummary(evaluated.map((c) => c.verdict));
-  notify({
+  notify(await withLedgerHead(db, {
     to: await addressesOf(db, [vendorOrgId]),
     subject: `${tender.reference}: offer version ${row.version} received`,
     text: `Your offer to ${tender.reference} "${tender.title}" was received as version ${row.version}.\nVerdicts: ${summary.plausible} plausible, ${summary["needs-evidence"]} needing evidence, ${summary.impossible} impossible.\nYou may correct and resubmit it until the tender closes.`,
-  });
+  }));
   const [view] = await assemble(viewer, tender, [row]);
   return view;
 }
@@ -213,11 +214,11 @@ export async function withdrawOffer(viewer: Viewer, offerId: string, now = new D
     await appendLedger(tx, { tenderId: row.tenderId, actor: ledgerActor(viewer), action: "offer.withdrawn", subjectType: "Offer", subjectId: row.id, data: { version: row.version, vendorOrgId: row.vendorOrgId } });
     return changed;
   });
-  notify({
+  notify(await withLedgerHead(db, {
     to: await addressesOf(db, [row.vendorOrgId]),
     subject: `${tender.reference}: offer withdrawn`,
     text: `Version ${row.version} of your offer to ${tender.reference} "${tender.title}" was withdrawn by ${viewer.name}. You may submit again until the tender closes.`,
-  });
+  }));
   const [view] = await assemble(viewer, tender, [updated]);
   return view;
 }

@@ -16,6 +16,7 @@ import { ConflictError, ForbiddenError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
 import { approvalRequestNotices } from "./approval-notices";
 import { notify } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { loadScoringInput } from "./comparison";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, tenderSubject, type TenderWithInvites } from "./tenders";
@@ -153,13 +154,13 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
   });
   const notice = awaitingApprovalNotice(tender, 0, band.approvalsNeeded, formatMoney(input.value, tender.currency));
   notify(
-    withSafetyCaution(
+    await withLedgerHead(db, withSafetyCaution(
       tender,
       await approvalRequestNotices(db, tender, row, band, {
         subject: notice.subject,
         text: `${viewer.name} recommends awarding ${tender.reference} to ${scored.vendorName}: ${input.quantity.toLocaleString("en-GB")} units.\n\nJustification: ${input.justification}\n\n${notice.text}`,
       }),
-    ),
+    )),
   );
   return row;
 }

@@ -11,6 +11,7 @@ import type { SignoffInput } from "@/lib/validation/review";
 import { ConflictError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesWithRole, notify } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, type TenderRow } from "./tenders";
 
@@ -109,11 +110,11 @@ export async function signTechnical(viewer: Viewer, tenderId: string, input: Sig
     return { row, complete };
   });
   if (outcome.complete) {
-    notify(withSafetyCaution(tender, [{
+    notify(await withLedgerHead(db, withSafetyCaution(tender, [{
       to: await addressesWithRole(db, "buyer"),
       subject: `${tender.reference}: technical evaluation signed`,
       text: `${viewer.name} signed the technical evaluation of ${tender.reference} ${tender.title}. The commercial envelopes can now be opened.\n\nStatement: ${input.statement}\n\n/tenders/${tenderId}`,
-    }]));
+    }])));
   }
   return { ...outcome.row, complete: outcome.complete };
 }

@@ -12,6 +12,7 @@ import { describeZodError, fieldErrorsOf } from "@/lib/validation/messages";
 import { appUrl } from "./auth";
 import { appendLedger } from "./ledger";
 import { addressesOf, addressesWithRole, notify } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, tenderSubject, tendersWhere, type TenderWithInvites } from "./tenders";
 import { ConflictError, InputError } from "./errors";
@@ -151,7 +152,7 @@ export async function openTender(viewer: Viewer, id: string): Promise<TenderWith
 
   const addresses = await addressesOf(db, tender.invitedOrgIds);
   const notice = invitationNotice(opened, appUrl());
-  notify(addresses.map((address) => ({ to: [address], ...notice })));
+  notify(await withLedgerHead(db, addresses.map((address) => ({ to: [address], ...notice }))));
   return reload(db, id);
 }
 
@@ -182,6 +183,6 @@ export async function cancelTender(viewer: Viewer, id: string, input: CancelTend
   const vendors = tender.state === "draft" ? [] : await addressesOf(db, tender.invitedOrgIds);
   const team = await addressesWithRole(db, "buyer");
   const notice = cancellationNotice(cancelled, input.reason, appUrl());
-  notify([...new Set([...vendors, ...team])].map((address) => ({ to: [address], ...notice })));
+  notify(await withLedgerHead(db, [...new Set([...vendors, ...team])].map((address) => ({ to: [address], ...notice }))));
   return reload(db, id);
 }

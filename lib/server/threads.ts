@@ -8,6 +8,7 @@ import type { CloseThreadInput, MessageInput, ThreadInput } from "@/lib/validati
 import { ConflictError, ForbiddenError, NotFoundError } from "./errors";
 import { appendLedger } from "./ledger";
 import { addressesOf, notify, readersWithRole, type Notice } from "./notify";
+import { withLedgerHead } from "./ledger-anchors";
 import { loadClaim } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
 
@@ -66,7 +67,7 @@ export async function openThread(viewer: Viewer, claimId: string, input: ThreadI
   if (tender.state !== "technical") throw new ConflictError("Questions are asked only during technical evaluation.");
   const db = await getDb();
   const thread = await db.transaction((tx) => insertThread(tx, viewer, claim, input));
-  notify(await threadNotice(db, tender, thread, viewer, input.body, "vendor"));
+  notify(await withLedgerHead(db, await threadNotice(db, tender, thread, viewer, input.body, "vendor")));
   return thread;
 }
 
@@ -148,7 +149,7 @@ export async function postMessage(viewer: Viewer, threadId: string, input: Messa
     });
     return row;
   });
-  notify(await threadNotice(db, tender, thread, viewer, input.body, fromVendor ? "engineers" : "vendor"));
+  notify(await withLedgerHead(db, await threadNotice(db, tender, thread, viewer, input.body, fromVendor ? "engineers" : "vendor")));
   return message;
 }
 

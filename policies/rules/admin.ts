@@ -13,6 +13,8 @@ export function adminRules({ can, cannot }: RuleBuilder, actor: Actor): void {
   );
   // The ledger is shown on the tender page, so the tender itself is readable too.
   can([...READ], ["Ledger", "Tender"]);
+  // A full re-verification of the whole chain, batch by batch (the Ledger check page).
+  can("verify", "Ledger");
   can("use", "Mailroom");
   can("create", "Backup");
 }

@@ -17,6 +17,7 @@ export default defineConfig({
     { name: "comparison", testMatch: "comparison.spec.ts", dependencies: ["review"] },
     { name: "deadlock", testMatch: "deadlock.spec.ts", dependencies: ["comparison"] },
     { name: "award", testMatch: "award.spec.ts", dependencies: ["deadlock"] },
+    { name: "ledger", testMatch: "ledger-check.spec.ts", dependencies: ["award"] },
   ],
   workers: 1,
   fullyParallel: false,

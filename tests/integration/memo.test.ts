@@ -1,18 +1,22 @@
 import { createHash } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { eq } from "drizzle-orm";
+import { desc, eq } from "drizzle-orm";
 import { PDFDocument } from "pdf-lib";
 import type { Db } from "@/db/client";
-import { memos, recommendations, tenders } from "@/db/schema";
+import { ledgerEntries, memos, recommendations, tenders } from "@/db/schema";
 import { GET as memoGet } from "@/app/api/v1/tenders/[id]/memo/route";
 import { GET as previewGet } from "@/app/api/v1/tenders/[id]/memo/preview/route";
 import { POST as checkPost } from "@/app/api/v1/memo-check/route";
 import { POST as decidePost } from "@/app/api/v1/tenders/[id]/approvals/route";
 import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
+import { headLine } from "@/lib/ledger/head";
+import { flushMail, listCapturedMail } from "@/lib/mail";
 import { approvalsGiven, renderMemoFor } from "@/lib/server/memos";
 import { BASE, closeDb, freshDatabase, params, request, signInAs } from "../support/app";
 import { createApprovalFixture, FIXTURE_OFFERS, type ApprovalFixture } from "../support/approval-fixtures";
 import { pdfText } from "../unit/pdf/pdf-text";
+import { runFullCheck } from "../support/ledger-checks";
+import { allEntries, restoreEntries, rewriteFrom } from "../support/ledger-tamper";
 
 let db: Db;
 let f: ApprovalFixture;
@@ -89,8 +93,32 @@ describe("the issued memo", () => {
   it("renders again to the same bytes from the same record", async () => {
     const [tender] = await db.select().from(tenders).where(eq(tenders.id, f.tenderId));
     const [rec] = await db.select().from(recommendations).where(eq(recommendations.id, f.recommendationId));
-    const again = await renderMemoFor(db, tender, rec, { identifier: `${f.reference}-M1`, draft: false, issuedAt: tender.awardedAt!, approvals: await approvalsGiven(db, rec.id) });
+    const [memo] = await db.select().from(memos).where(eq(memos.tenderId, f.tenderId));
+    const ledgerHead = { seq: memo.ledgerSeq!, hash: memo.ledgerHash! };
+    const again = await renderMemoFor(db, tender, rec, { identifier: `${f.reference}-M1`, draft: false, issuedAt: tender.awardedAt!, approvals: await approvalsGiven(db, rec.id), ledgerHead });
     expect(sha(again)).toBe(sha(file));
+  });
+
+  it("prints the ledger head it was issued at: the approval entry just before the award's", async () => {
+    const [memo] = await db.select().from(memos).where(eq(memos.tenderId, f.tenderId));
+    const entries = await db.select().from(ledgerEntries).where(eq(ledgerEntries.tenderId, f.tenderId)).orderBy(ledgerEntries.seq);
+    const [approval, award] = entries.slice(-2);
+    expect([approval.action, award.action]).toEqual(["approval.given", "tender.awarded"]);
+    expect(memo).toMatchObject({ ledgerSeq: approval.seq, ledgerHash: approval.hash });
+    expect(await pdfText(file)).toContain(headLine(approval));
+  });
+
+  it("is announced in notices that carry the ledger head they were sent at, the award entry included", async () => {
+    const [award] = await db.select().from(ledgerEntries).where(eq(ledgerEntries.tenderId, f.tenderId)).orderBy(desc(ledgerEntries.seq)).limit(1);
+    let notices = [] as ReturnType<typeof listCapturedMail>;
+    for (let i = 0; i < 100 && notices.length === 0; i++) {
+      await flushMail();
+      notices = listCapturedMail().filter((m) => m.subject.startsWith(`Award notice: ${f.reference}`));
+      if (notices.length === 0) await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(notices).toHaveLength(1);
+    const head = /Ledger head when issued: entry #(\d+), hash ([0-9a-f]{12})/.exec(notices[0].text);
+    expect(Number(head?.[1])).toBeGreaterThanOrEqual(award.seq);
   });
 });
 
@@ -102,6 +130,21 @@ describe("Memo check (public)", () => {
     expect(result).toMatchObject({ authentic: true, identifier: `${f.reference}-M1`, tender: { reference: f.reference, title: f.title }, sha256: sha(file) });
     expect(result.approvedBy.map((a: { name: string }) => a.name)).toEqual(["Helen Strand"]);
     expect(Date.parse(result.awardedAt)).not.toBeNaN();
+    const [memo] = await db.select().from(memos).where(eq(memos.tenderId, f.tenderId));
+    expect(result.ledgerHead).toMatchObject({ seq: memo.ledgerSeq, hash: memo.ledgerHash, inVerifiedChain: true });
+    expect(result.ledgerHead.standing).toMatch(new RegExp(`^Entry #${memo.ledgerSeq} is in the ledger with the same hash, and the chain is verified through entry #\\d+\\.$`));
+  });
+
+  it("says when the head the memo was issued at is no longer in the chain", async () => {
+    const all = await allEntries(db);
+    const [memo] = await db.select().from(memos).where(eq(memos.tenderId, f.tenderId));
+    await rewriteFrom(db, memo.ledgerSeq!, { quietly: "changed" });
+    const result = await (await check({ form: formWith(file) })).json();
+    expect(result).toMatchObject({ authentic: true, ledgerHead: { seq: memo.ledgerSeq, inVerifiedChain: false } });
+    expect(result.ledgerHead.standing).toBe(`Entry #${memo.ledgerSeq} no longer has the hash it had at issue: the ledger was rewritten.`);
+    await restoreEntries(db, all);
+    expect(await runFullCheck(await signInAs("admin@tarnwell.example"))).toMatchObject({ status: "intact" });
+    expect((await (await check({ body: { sha256: sha(file) } })).json()).ledgerHead.inVerifiedChain).toBe(true);
   });
 
   it("fails a memo with one byte changed", async () => {

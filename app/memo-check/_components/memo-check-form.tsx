@@ -2,11 +2,9 @@
 
 import { useState, useTransition } from "react";
 import { DateTime } from "@/app/_components/date-time";
+import { headLabel } from "@/lib/ledger/head";
+import type { MemoCheckResult as Result } from "@/lib/server/memos";
 import { fingerprintSchema } from "@/lib/validation/approvals";
-
-type Result =
-  | { authentic: false; sha256: string }
-  | { authentic: true; sha256: string; identifier: string; tender: { reference: string; title: string }; awardedAt: string; approvedBy: { name: string; at: string }[] };
 
 async function post(body: FormData | { sha256: string }): Promise<{ result?: Result; error?: string }> {
   const response = await fetch("/api/v1/memo-check", body instanceof FormData ? { method: "POST", body } : { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
@@ -69,6 +67,11 @@ function Answer({ result }: { result: Result }) {
       <ul className="text-sm">
         {result.approvedBy.map((a) => <li key={a.name + a.at}>Approved by {a.name}, <DateTime value={a.at} /></li>)}
       </ul>
+      {result.ledgerHead ? (
+        <p aria-label="Ledger head" className={`text-sm ${result.ledgerHead.inVerifiedChain ? "" : "font-semibold text-verdict-impossible"}`}>
+          Issued at ledger {headLabel(result.ledgerHead)}. {result.ledgerHead.standing}
+        </p>
+      ) : null}
       <p className="break-all font-mono text-xs text-ink-soft">{result.sha256}</p>
     </section>
   );

@@ -16,6 +16,7 @@ function sample(overrides: Partial<MemoDocument> = {}): MemoDocument {
     draft: false,
     issuedAt: AT,
     issuedAtText: "4 Mar 2027, 10:15 UTC",
+    ledgerLine: "Ledger head when issued: entry #41, hash 0123456789ab.",
     tender: {
       reference: "RC-2099-001",
       title: "Harbour buoy radios",
@@ -60,6 +61,7 @@ describe("the award memo PDF", () => {
     const text = await pdfText(bytes);
     expect(text).toContain("RC-2099-001: Harbour buoy radios");
     expect(text).toContain("Example Port Authority");
+    expect(text).toContain("Ledger head when issued: entry #41, hash 0123456789ab.");
     for (const vendor of ["Alder Links: AL-9", "Birch Radio: BR-2", "Cedar RF: CR-1"]) expect(text).toContain(vendor);
     for (const word of ["Plausible", "Impossible", "Needs evidence"]) expect(text).toContain(word);
     expect(text).toContain("Approved by Quinn Approver, 4 Mar 2027, 09:00 UTC");

@@ -61,6 +61,7 @@ const TABLE: Record<Role, Entry[]> = {
     [ACTIONS.filter((a) => a !== "delete"), "Organisation", [make.Organisation()]],
     [ACTIONS, "ApprovalLimit", [make.ApprovalLimit()]],
     [READ, "Ledger", [make.Ledger(), make.Ledger({ tenderId: T2 })]],
+    ["verify", "Ledger", [make.Ledger()]],
     [READ, "Tender", tendersIn(TENDER_STATES)],
     ["use", "Mailroom", [make.Mailroom()]],
     ["create", "Backup", [make.Backup()]],

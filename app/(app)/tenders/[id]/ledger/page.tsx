@@ -20,8 +20,8 @@ export default async function TenderLedgerPage({ params, searchParams }: { param
       <p className="text-xs text-ink-soft">Append-only; each entry&apos;s hash covers its content and the entry before it, so a silent edit breaks the chain. Details your role does not read are withheld.</p>
       <p role="status" aria-label="Chain check" className={`mt-2 text-sm ${check.ok ? "text-verdict-plausible" : "font-semibold text-verdict-impossible"}`}>
         {check.ok
-          ? `Chain verified just now: all ${check.entries} entries of this tender are intact.`
-          : `Chain broken at entry #${check.brokenAt} (position ${check.position} of this tender): ${check.reason}.`}
+          ? `Chain verified through entry #${check.verifiedThrough.seq} (${check.checkedNow} new entries checked just now): all ${check.entries} entries of this tender are intact.`
+          : `Chain broken at entry #${check.brokenAt} (${check.position === null ? "not one of this tender's" : `position ${check.position} of this tender`}): ${check.reason}.`}
       </p>
       <ol className="mt-3 space-y-1" aria-label="Entries, newest first">
         {ledger.entries.map((e) => (
