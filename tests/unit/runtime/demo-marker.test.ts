@@ -6,6 +6,7 @@ const production = {
   NODE_ENV: "production",
   BETTER_AUTH_SECRET: "s".repeat(32),
   BETTER_AUTH_URL: "https://ratecourt.example.org",
+  LEDGER_KEY: "k".repeat(32),
   SMTP_URL: "smtp://mail.example.org:25",
   MAIL_FROM: "rc@example.org",
   S3_ENDPOINT: "https://objects.example.org",

@@ -6,6 +6,7 @@ const complete = {
   ...production,
   BETTER_AUTH_SECRET: "s".repeat(40),
   BETTER_AUTH_URL: "https://ratecourt.example.org",
+  LEDGER_KEY: "k".repeat(40),
   SMTP_URL: "smtps://mailer:pw@mail.example.org:465",
   MAIL_FROM: "Ratecourt <ratecourt@example.org>",
   S3_ENDPOINT: "https://objects.example.org",
@@ -28,6 +29,7 @@ describe("settings", () => {
     expect(problems.map((line) => line.split(":")[0])).toEqual([
       "BETTER_AUTH_SECRET",
       "BETTER_AUTH_URL",
+      "LEDGER_KEY",
       "SMTP_URL",
       "MAIL_FROM",
       "S3_ENDPOINT",
