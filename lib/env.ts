@@ -32,6 +32,11 @@ const envSchema = z.object({
   RATECOURT_DATA_LOCK_PID: optional(z.coerce.number().int().positive()),
   /** Where the local SMTP fake keeps the captured mail (shared by the fake and the Mailroom). */
   RATECOURT_MAIL_CAPTURE_FILE: optional(z.string()),
+  /**
+   * How many reverse proxies in front of the app append to X-Forwarded-For. 0 (the default): the
+   * header is not trusted at all, since any client can send it; see lib/server/client-address.ts.
+   */
+  TRUST_PROXY_HOPS: optional(z.coerce.number().int().min(0).max(10)).transform((v) => v ?? 0),
   /** Read by the Next.js build and the starter, never by the app; listed so that typos show. */
   NEXT_PHASE: optional(z.string()),
 });

@@ -5,3 +5,4 @@ export * from "./offers";
 export * from "./evaluation";
 export * from "./award";
 export * from "./ledger";
+export * from "./sign-in";

@@ -4,12 +4,19 @@ import path from "node:path";
 import { randomBytes } from "node:crypto";
 import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { APIError } from "better-auth/api";
 import { nextCookies } from "better-auth/next-js";
 import { dataDir, getDb, type Db } from "@/db/client";
 import { env } from "@/lib/env";
 import { ensurePrivateFolder } from "@/lib/runtime/data-lock";
 import { accounts, sessions, users, verifications } from "@/db/schema";
 import { eq } from "drizzle-orm";
+import { signInGuard } from "./sign-in-guard";
+import { AUTH_RATE, consumeRate, SIGN_IN_RATE } from "./throttle";
+
+/** Set by the auth route handler from the trusted client address (lib/server/client-address.ts); a client's own value is dropped. */
+export const CLIENT_ADDRESS_HEADER = "x-ratecourt-client-address";
+export const DEACTIVATED_MESSAGE = "This account has been deactivated. Ask an administrator.";
 
 export function appUrl(): string {
   return env().appUrl;
@@ -39,9 +46,10 @@ function trustedOrigins(base: string): string[] {
 
 function createAuth(db: Db) {
   const baseURL = appUrl();
+  const authSecret = secret();
   return betterAuth({
     baseURL,
-    secret: secret(),
+    secret: authSecret,
     trustedOrigins: trustedOrigins(baseURL),
     database: drizzleAdapter(db, {
       provider: "pg",
@@ -57,29 +65,36 @@ function createAuth(db: Db) {
         approvalLimit: { type: "number", required: false, input: false },
       },
     },
-    // The signed session cookie spares a session lookup for a minute; roles, organisation and the
-    // active flag are still read from the database on every request (lib/server/session.ts).
-    session: { expiresIn: 60 * 60 * 12, updateAge: 60 * 60, cookieCache: { enabled: true, maxAge: 60 } },
+    // No cookie cache: every request reads the session row, so deleting the rows ends the sessions at once.
+    session: { expiresIn: 60 * 60 * 12, updateAge: 60 * 60, cookieCache: { enabled: false } },
+    // People change their own records only through our People rules, never through the library's endpoints.
+    disabledPaths: ["/update-user", "/change-email", "/delete-user", "/sign-up/email"],
+    // Per client address, counted in the database so that every instance shares the count.
     rateLimit: {
       enabled: true,
-      window: 60,
-      max: 200,
-      customRules: { "/sign-in/email": { window: 60, max: 20 } },
+      ...AUTH_RATE,
+      customRules: { "/sign-in/email": SIGN_IN_RATE },
+      customStorage: { consume: consumeRate },
     },
-    advanced: { database: { generateId: () => crypto.randomUUID() } },
+    advanced: {
+      database: { generateId: () => crypto.randomUUID() },
+      ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
+    },
     databaseHooks: {
       session: {
         create: {
-          // A deactivated account gets no new session, whichever way sign-in is attempted.
+          // A deactivated account gets no new session, whichever way sign-in is attempted. This runs
+          // only after the password was checked, so the answer tells nothing to someone guessing.
           before: async (session) => {
             const [user] = await db.select({ active: users.active }).from(users).where(eq(users.id, session.userId));
-            return user?.active ? { data: session } : false;
+            if (!user?.active) throw new APIError("FORBIDDEN", { message: DEACTIVATED_MESSAGE });
+            return { data: session };
           },
         },
       },
     },
     // Must stay last: it sets cookies from server actions.
-    plugins: [nextCookies()],
+    plugins: [signInGuard(authSecret, baseURL.startsWith("https:")), nextCookies()],
   });
 }
 
