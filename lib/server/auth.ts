@@ -11,6 +11,7 @@ import { env } from "@/lib/env";
 import { ensurePrivateFolder } from "@/lib/runtime/data-lock";
 import { accounts, sessions, users, verifications } from "@/db/schema";
 import { eq } from "drizzle-orm";
+import { trustedOrigins } from "./origin";
 import { signInGuard } from "./sign-in-guard";
 import { AUTH_RATE, consumeRate, SIGN_IN_RATE } from "./throttle";
 
@@ -36,12 +37,6 @@ function secret(): string {
     fs.writeFileSync(file, randomBytes(32).toString("hex"), { mode: 0o600 });
   }
   return fs.readFileSync(file, "utf8").trim();
-}
-
-function trustedOrigins(base: string): string[] {
-  const url = new URL(base);
-  const port = url.port ? `:${url.port}` : "";
-  return [base, `${url.protocol}//localhost${port}`, `${url.protocol}//127.0.0.1${port}`];
 }
 
 function createAuth(db: Db) {

@@ -15,6 +15,7 @@ export {
   checkPdfUpload,
   detectExecutable,
   MAX_UPLOAD_BYTES,
+  pdfFileName,
   sanitizeFileName,
   sha256Hex,
   sniffPdf,
