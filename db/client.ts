@@ -5,6 +5,7 @@ import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
 import type { PGliteInterface } from "@electric-sql/pglite";
 import { env } from "@/lib/env";
 import { holdDataFolder } from "@/lib/runtime/data-lock";
+import { ADVISORY_LOCKS } from "./locks";
 import * as schema from "./schema/index";
 import { seedDemoData } from "./seed";
 
@@ -26,7 +27,6 @@ export function dataDir(): string {
 }
 
 const migrationsFolder = () => path.join(process.cwd(), "drizzle");
-const MIGRATION_LOCK = 72_011_950;
 
 async function openPglite(): Promise<Handle> {
   const { PGlite } = await import("@electric-sql/pglite");
@@ -54,10 +54,10 @@ async function openServer(url: string): Promise<Handle> {
   // Several instances may start at once against one server: one migrates, the others wait.
   const client = await pool.connect();
   try {
-    await client.query("select pg_advisory_lock($1)", [MIGRATION_LOCK]);
+    await client.query("select pg_advisory_lock($1)", [ADVISORY_LOCKS.migrations]);
     await migrate(drizzle(client, { schema }), { migrationsFolder: migrationsFolder() });
   } finally {
-    await client.query("select pg_advisory_unlock($1)", [MIGRATION_LOCK]).catch(() => undefined);
+    await client.query("select pg_advisory_unlock($1)", [ADVISORY_LOCKS.migrations]).catch(() => undefined);
     client.release();
   }
   return { db: drizzle(pool, { schema }) as unknown as Db, close: () => pool.end() };

@@ -1,5 +1,6 @@
 import { count, sql } from "drizzle-orm";
 import type { Db, Queryable } from "./client";
+import { ADVISORY_LOCKS } from "./locks";
 import { organisations, tenderInvitations, tenders, type RoleName } from "./schema";
 import { insertUser } from "@/lib/server/people-store";
 import { seedDemoOffers } from "./seed-offers";
@@ -68,7 +69,7 @@ export interface DemoContext {
 export async function seedDemoData(db: Db): Promise<boolean> {
   const seeded = await db.transaction(async (tx) => {
     // Serialise first starts of several processes on one server database.
-    await tx.execute(sql`select pg_advisory_xact_lock(72011949)`);
+    await tx.execute(sql`select pg_advisory_xact_lock(${ADVISORY_LOCKS.demoSeed})`);
     const [{ n }] = await tx.select({ n: count() }).from(organisations);
     if (n > 0) return false;
     await insertDemo(tx);

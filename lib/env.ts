@@ -42,6 +42,11 @@ const envSchema = z.object({
   ENGINE_TEST_DELAY_MS: optional(z.coerce.number().int().min(0).max(600_000)),
   /** Set by the starter (lib/runtime/start.ts) for the server it runs: that process holds the data folder. */
   RATECOURT_DATA_LOCK_PID: optional(z.coerce.number().int().positive()),
+  /**
+   * How many reverse proxies in front of the app append to X-Forwarded-For. 0 (the default): the
+   * header is not trusted at all, since any client can send it; see lib/server/client-address.ts.
+   */
+  TRUST_PROXY_HOPS: optional(z.coerce.number().int().min(0).max(10)).transform((v) => v ?? 0),
   /** Read by the Next.js build and the starter, never by the app; listed so that typos show. */
   NEXT_PHASE: optional(z.string()),
 });

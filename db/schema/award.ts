@@ -1,6 +1,6 @@
 import { bigint, index, integer, jsonb, numeric, pgTable, text, uniqueIndex } from "drizzle-orm/pg-core";
 import { tenderRef } from "./refs";
-import { id, createdAt, updatedAt } from "./columns";
+import { id, createdAt, oneOf, updatedAt } from "./columns";
 import { users } from "./people";
 import { tenders } from "./tenders";
 import { offers } from "./offers";
@@ -49,7 +49,7 @@ export const recommendations = pgTable(
     /** The buyer's reason for withdrawing it from approval. */
     withdrawReason: text("withdraw_reason"),
   },
-  (t) => [index("recommendations_tender_idx").on(t.tenderId)],
+  (t) => [index("recommendations_tender_idx").on(t.tenderId), oneOf("recommendations_status_check", t.status, RECOMMENDATION_STATUSES)],
 );
 
 export const approvals = pgTable(

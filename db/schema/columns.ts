@@ -1,4 +1,5 @@
-import { text, timestamp } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { check, text, timestamp, type AnyPgColumn } from "drizzle-orm/pg-core";
 
 export const id = () =>
   text("id")
@@ -10,3 +11,7 @@ export const updatedAt = () =>
     .notNull()
     .defaultNow()
     .$onUpdate(() => new Date());
+
+/** A check constraint that keeps a text column to a fixed list of values (states, verdicts, roles…). */
+export const oneOf = (name: string, column: AnyPgColumn, values: readonly string[]) =>
+  check(name, sql`${column} in (${sql.raw(values.map((v) => `'${v.replace(/'/g, "''")}'`).join(", "))})`);

@@ -1,6 +1,6 @@
 import { doublePrecision, index, pgTable, primaryKey, text, timestamp } from "drizzle-orm/pg-core";
 import { tenderRef, vendorRef } from "./refs";
-import { id, createdAt } from "./columns";
+import { id, createdAt, oneOf } from "./columns";
 import { users } from "./people";
 import { tenders } from "./tenders";
 import { claims } from "./offers";
@@ -25,7 +25,7 @@ export const marks = pgTable(
       .references(() => users.id),
     markedAt: createdAt(),
   },
-  (t) => [index("marks_claim_idx").on(t.claimId)],
+  (t) => [index("marks_claim_idx").on(t.claimId), oneOf("marks_mark_check", t.mark, MARKS)],
 );
 
 export const threads = pgTable(
@@ -97,7 +97,7 @@ export const evidenceRuns = pgTable(
       .references(() => users.id),
     recordedAt: createdAt(),
   },
-  (t) => [index("evidence_claim_idx").on(t.claimId)],
+  (t) => [index("evidence_claim_idx").on(t.claimId), oneOf("evidence_status_check", t.status, EVIDENCE_STATUSES)],
 );
 
 /** One row per engineer who signed; a safety-relevant tender needs two before it moves on. */

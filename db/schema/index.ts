@@ -6,3 +6,4 @@ export * from "./evaluation";
 export * from "./award";
 export * from "./ledger";
 export * from "./notices";
+export * from "./sign-in";

@@ -1,7 +1,7 @@
 import { sql } from "drizzle-orm";
 import { doublePrecision, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import { tenderRef, vendorRef } from "./refs";
-import { id, createdAt } from "./columns";
+import { id, createdAt, oneOf } from "./columns";
 import { users } from "./people";
 
 export const OFFER_STATUSES = ["submitted", "superseded", "withdrawn"] as const;
@@ -46,6 +46,7 @@ export const offers = pgTable(
   (t) => [
     uniqueIndex("offers_version_idx").on(t.tenderId, t.vendorOrgId, t.version),
     index("offers_tender_idx").on(t.tenderId),
+    oneOf("offers_status_check", t.status, OFFER_STATUSES),
   ],
 );
 
@@ -78,7 +79,11 @@ export const claims = pgTable(
     engineVersion: text("engine_version").notNull(),
     evaluatedAt: timestamp("evaluated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("claims_offer_idx").on(t.offerId), index("claims_tender_idx").on(t.tenderId)],
+  (t) => [
+    index("claims_offer_idx").on(t.offerId),
+    index("claims_tender_idx").on(t.tenderId),
+    oneOf("claims_verdict_check", t.verdict, VERDICTS),
+  ],
 );
 
 export const documents = pgTable(

@@ -1,17 +1,21 @@
 import { boolean, index, numeric, pgTable, primaryKey, text, timestamp } from "drizzle-orm/pg-core";
-import type { Role } from "@/policies/vocabulary";
-import { id, createdAt, updatedAt } from "./columns";
+import { ROLES, type Role } from "@/policies/vocabulary";
+import { id, createdAt, oneOf, updatedAt } from "./columns";
 
 export const ORGANISATION_KINDS = ["buyer", "vendor"] as const;
 export type OrganisationKind = (typeof ORGANISATION_KINDS)[number];
 
-export const organisations = pgTable("organisations", {
-  id: id(),
-  name: text("name").notNull().unique(),
-  kind: text("kind").$type<OrganisationKind>().notNull(),
-  country: text("country"),
-  createdAt: createdAt(),
-});
+export const organisations = pgTable(
+  "organisations",
+  {
+    id: id(),
+    name: text("name").notNull().unique(),
+    kind: text("kind").$type<OrganisationKind>().notNull(),
+    country: text("country"),
+    createdAt: createdAt(),
+  },
+  (t) => [oneOf("organisations_kind_check", t.kind, ORGANISATION_KINDS)],
+);
 
 // The four tables below follow better-auth's core schema (user, session, account, verification);
 // its schema CLI needs Node 22, so they are written here by hand.
@@ -91,5 +95,5 @@ export const userRoles = pgTable(
     role: text("role").$type<RoleName>().notNull(),
     grantedAt: createdAt(),
   },
-  (t) => [primaryKey({ columns: [t.userId, t.role] })],
+  (t) => [primaryKey({ columns: [t.userId, t.role] }), oneOf("user_roles_role_check", t.role, ROLES)],
 );

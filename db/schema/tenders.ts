@@ -1,10 +1,12 @@
 import { sql } from "drizzle-orm";
 import { boolean, index, integer, jsonb, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import type { TenderState } from "@/policies/vocabulary";
-import { id, createdAt, updatedAt } from "./columns";
+import { id, createdAt, oneOf, updatedAt } from "./columns";
 import { organisations, users } from "./people";
 
-export { TENDER_STATES } from "@/policies/vocabulary";
+import { TENDER_STATES } from "@/policies/vocabulary";
+
+export { TENDER_STATES };
 export type { TenderState };
 
 export type ChannelModel = "bsc" | "bec" | "biawgn";
@@ -59,7 +61,7 @@ export const tenders = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [index("tenders_state_idx").on(t.state)],
+  (t) => [index("tenders_state_idx").on(t.state), oneOf("tenders_state_check", t.state, TENDER_STATES)],
 );
 
 export const tenderInvitations = pgTable(

@@ -37,6 +37,9 @@ function operation(route: ApiRoute) {
       ...(route.public ? {} : { "401": errorResponse("Signed out"), "403": errorResponse("Not allowed for this person") }),
       "404": errorResponse("Not found, or not visible to this person"),
       "409": errorResponse("Not possible in the current state"),
+      ...(Object.keys(content).length
+        ? { "413": errorResponse("The body is larger than the route accepts"), "415": errorResponse("The body is not of a type the route accepts") }
+        : {}),
     },
   };
 }
@@ -50,7 +53,7 @@ export function openApiDocument(serverUrl = "/api/v1") {
     info: {
       title: "Ratecourt API",
       version: "1.0.0",
-      description: "Tenders for radio modules with every coding claim judged against the limits of channel coding. Sign in through /api/auth/sign-in/email; send the session cookie and an Origin header.",
+      description: "Tenders for radio modules with every coding claim judged against the limits of channel coding. Sign in through /api/auth/sign-in/email; send the session cookie, and with every write an Origin header equal to the app's address (403 otherwise).",
     },
     servers: [{ url: serverUrl }],
     components: {

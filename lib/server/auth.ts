@@ -1,12 +1,20 @@
 import "server-only";
 import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { APIError } from "better-auth/api";
 import { nextCookies } from "better-auth/next-js";
 import { getDb, type Db } from "@/db/client";
 import { env } from "@/lib/env";
 import { keptSecret } from "./secrets";
 import { accounts, sessions, users, verifications } from "@/db/schema";
 import { eq } from "drizzle-orm";
+import { trustedOrigins } from "./origin";
+import { signInGuard } from "./sign-in-guard";
+import { AUTH_RATE, consumeRate, SIGN_IN_RATE } from "./throttle";
+
+/** Set by the auth route handler from the trusted client address (lib/server/client-address.ts); a client's own value is dropped. */
+export const CLIENT_ADDRESS_HEADER = "x-ratecourt-client-address";
+export const DEACTIVATED_MESSAGE = "This account has been deactivated. Ask an administrator.";
 
 export function appUrl(): string {
   return env().appUrl;
@@ -15,17 +23,12 @@ export function appUrl(): string {
 /** A secret from the environment, or one made once and kept in the data folder. */
 const secret = () => keptSecret(env().BETTER_AUTH_SECRET, "auth-secret");
 
-function trustedOrigins(base: string): string[] {
-  const url = new URL(base);
-  const port = url.port ? `:${url.port}` : "";
-  return [base, `${url.protocol}//localhost${port}`, `${url.protocol}//127.0.0.1${port}`];
-}
-
 function createAuth(db: Db) {
   const baseURL = appUrl();
+  const authSecret = secret();
   return betterAuth({
     baseURL,
-    secret: secret(),
+    secret: authSecret,
     trustedOrigins: trustedOrigins(baseURL),
     database: drizzleAdapter(db, {
       provider: "pg",
@@ -41,29 +44,36 @@ function createAuth(db: Db) {
         approvalLimit: { type: "number", required: false, input: false },
       },
     },
-    // The signed session cookie spares a session lookup for a minute; roles, organisation and the
-    // active flag are still read from the database on every request (lib/server/session.ts).
-    session: { expiresIn: 60 * 60 * 12, updateAge: 60 * 60, cookieCache: { enabled: true, maxAge: 60 } },
+    // No cookie cache: every request reads the session row, so deleting the rows ends the sessions at once.
+    session: { expiresIn: 60 * 60 * 12, updateAge: 60 * 60, cookieCache: { enabled: false } },
+    // People change their own records only through our People rules, never through the library's endpoints.
+    disabledPaths: ["/update-user", "/change-email", "/delete-user", "/sign-up/email"],
+    // Per client address, counted in the database so that every instance shares the count.
     rateLimit: {
       enabled: true,
-      window: 60,
-      max: 200,
-      customRules: { "/sign-in/email": { window: 60, max: 20 } },
+      ...AUTH_RATE,
+      customRules: { "/sign-in/email": SIGN_IN_RATE },
+      customStorage: { consume: consumeRate },
     },
-    advanced: { database: { generateId: () => crypto.randomUUID() } },
+    advanced: {
+      database: { generateId: () => crypto.randomUUID() },
+      ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
+    },
     databaseHooks: {
       session: {
         create: {
-          // A deactivated account gets no new session, whichever way sign-in is attempted.
+          // A deactivated account gets no new session, whichever way sign-in is attempted. This runs
+          // only after the password was checked, so the answer tells nothing to someone guessing.
           before: async (session) => {
             const [user] = await db.select({ active: users.active }).from(users).where(eq(users.id, session.userId));
-            return user?.active ? { data: session } : false;
+            if (!user?.active) throw new APIError("FORBIDDEN", { message: DEACTIVATED_MESSAGE });
+            return { data: session };
           },
         },
       },
     },
     // Must stay last: it sets cookies from server actions.
-    plugins: [nextCookies()],
+    plugins: [signInGuard(authSecret, baseURL.startsWith("https:")), nextCookies()],
   });
 }
 

@@ -9,21 +9,24 @@ import { appendLedger } from "./ledger";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, tenderSubject } from "./tenders";
 
-/** The viewer's own declaration on a tender, or null. */
+const DECLARERS_ONLY = "Engineers and approvers declare on tenders past their draft.";
+
+/** The viewer's own declaration on a tender they may read, or null; 403 for those who never declare. */
 export async function getDeclaration(viewer: Viewer, tenderId: string) {
+  await getTender(viewer, tenderId);
+  authorize(viewer, "read", asSubject("Declaration", { tenderId, userId: viewer.actor.id }), "Only engineers and approvers declare on tenders.");
   const db = await getDb();
   const [row] = await db
     .select()
     .from(declarations)
     .where(and(eq(declarations.tenderId, tenderId), eq(declarations.userId, viewer.actor.id)));
-  if (!row) return null;
-  authorize(viewer, "read", asSubject("Declaration", { tenderId, userId: row.userId }));
-  return row;
+  return row ?? null;
 }
 
-/** The invited vendors, by name, that a declaration may name. */
+/** The invited vendors, by name, that a declaration may name: only for those who may declare on the tender. */
 export async function listDeclarableVendors(viewer: Viewer, tenderId: string) {
   const tender = await getTender(viewer, tenderId);
+  authorize(viewer, "declare", tenderSubject(tender), DECLARERS_ONLY);
   if (tender.invitedOrgIds.length === 0) return [];
   const db = await getDb();
   return db
@@ -39,7 +42,7 @@ export async function listDeclarableVendors(viewer: Viewer, tenderId: string) {
  */
 export async function createDeclaration(viewer: Viewer, tenderId: string, input: DeclarationInput) {
   const tender = await getTender(viewer, tenderId);
-  authorize(viewer, "declare", tenderSubject(tender), "Engineers and approvers declare on tenders past their draft.");
+  authorize(viewer, "declare", tenderSubject(tender), DECLARERS_ONLY);
   authorize(viewer, "create", asSubject("Declaration", { tenderId, userId: viewer.actor.id }));
   const named = [...new Set(input.conflictedOrgIds)];
   const strangers = named.filter((id) => !tender.invitedOrgIds.includes(id));

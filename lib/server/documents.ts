@@ -4,10 +4,11 @@ import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { documents, offers, tenders } from "@/db/schema";
 import { documentRecord, offerRecord, submissionRefusal } from "@/lib/offers";
-import { checkPdfUpload, deleteObject, getObject, isObjectNotFound, MAX_UPLOAD_BYTES, putObject, sanitizeFileName, sha256Hex } from "@/lib/storage";
+import { checkPdfUpload, deleteObject, getObject, isObjectNotFound, MAX_UPLOAD_BYTES, pdfFileName, putObject, sha256Hex } from "@/lib/storage";
 import { documentKindSchema, type DocumentKind } from "@/lib/validation/offer";
 import { describeZodError, fieldErrorsOf } from "@/lib/validation/messages";
 import { AppError, ConflictError, InputError, NotFoundError } from "./errors";
+import { isMultipart, readForm, singleFile } from "./http";
 import { appendLedger } from "./ledger";
 import { ensureLocalServices } from "./services";
 import { authorize, ledgerActor, type Viewer } from "./session";
@@ -47,20 +48,13 @@ export async function documentsFor(db: Queryable, tenderId: string, vendorOrgIds
 const tooLarge = () => new AppError(`The file is larger than ${LIMIT_MB} MB; upload a PDF of at most ${LIMIT_MB} MB.`, 413);
 const notPdf = (message: string) => new AppError(message, 415);
 
-/** Reads a multipart upload ("file", "kind"), refusing an oversized body before reading it. */
+/** Reads a multipart upload ("file", "kind"), counting the bytes as they arrive. */
 async function readPdfUpload(request: Request): Promise<{ kind: DocumentKind; fileName: string; bytes: Uint8Array }> {
-  const declared = Number(request.headers.get("content-length") ?? 0);
-  if (declared > MAX_UPLOAD_BYTES + MULTIPART_SLACK) throw tooLarge();
-  let form: FormData;
-  try {
-    form = await request.formData();
-  } catch {
-    throw new InputError('Send the document as multipart/form-data with a "file" field and a "kind" field.');
-  }
+  if (!isMultipart(request)) throw new InputError('Send the document as multipart/form-data with a "file" field and a "kind" field.');
+  const form = await readForm(request, MAX_UPLOAD_BYTES + MULTIPART_SLACK, tooLarge());
   const kind = documentKindSchema.safeParse(form.get("kind"));
   if (!kind.success) throw new InputError(describeZodError(kind.error), { kind: fieldErrorsOf(kind.error)._ ?? ["Choose a kind."] });
-  const file = form.get("file");
-  if (!(file instanceof Blob)) throw new InputError('Attach the PDF in a field named "file".', { file: ["Attach a PDF."] });
+  const file = singleFile(form, "file", 'Attach the PDF in a field named "file".');
   if (file.size > MAX_UPLOAD_BYTES) throw tooLarge();
   const bytes = new Uint8Array(await file.arrayBuffer());
   const check = checkPdfUpload(bytes);
@@ -70,8 +64,7 @@ async function readPdfUpload(request: Request): Promise<{ kind: DocumentKind; fi
     if (check.reason === "executable") throw notPdf(`This file is a program or archive (${check.kind}), not a PDF, whatever its name says; upload the PDF itself.`);
     throw notPdf("Only PDF files are accepted, and this file does not start like a PDF.");
   }
-  const name = "name" in file && typeof file.name === "string" ? file.name : "document.pdf";
-  return { kind: kind.data, fileName: sanitizeFileName(name), bytes };
+  return { kind: kind.data, fileName: pdfFileName(file.name), bytes };
 }
 
 /** Uploads a datasheet or test report to the vendor's current offer, while the tender is open. */

@@ -2,6 +2,7 @@ import "server-only";
 import { revalidatePath } from "next/cache";
 import type { ZodType } from "zod";
 import { fieldErrorsOf } from "@/lib/validation/messages";
+import { BAD_TEXT_MESSAGE, findBadText } from "@/lib/validation/text";
 import { AppError } from "@/lib/server/errors";
 import { requireViewer, type Viewer } from "@/lib/server/session";
 
@@ -22,6 +23,8 @@ export async function attemptForm<I, T>(
   values: unknown,
   work: (viewer: Viewer, input: I) => Promise<T>,
 ): Promise<{ ok: true; value: T } | { ok: false; result: FormResult }> {
+  const bad = findBadText(values);
+  if (bad) return { ok: false, result: { message: `A field ${BAD_TEXT_MESSAGE}`, fieldErrors: { [bad]: [BAD_TEXT_MESSAGE] } } };
   const parsed = schema.safeParse(values);
   if (!parsed.success) return { ok: false, result: { message: "Check the highlighted fields.", fieldErrors: fieldErrorsOf(parsed.error), values } };
   try {

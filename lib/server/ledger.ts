@@ -1,6 +1,7 @@
 import "server-only";
 import { asc, desc, eq, sql } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
+import { ADVISORY_LOCKS } from "@/db/locks";
 import { ledgerEntries } from "@/db/schema";
 import { entryHash, GENESIS_HASH, verifyChain, type ChainReport, type LedgerBody } from "@/lib/ledger/chain";
 import { checkpointIfDue } from "./ledger-anchors";
@@ -15,15 +16,12 @@ export interface LedgerInput {
   data?: Record<string, unknown>;
 }
 
-// Any constant works; it serialises appends so that two writers never chain onto the same entry.
-const LEDGER_LOCK = 72_011_948;
-
 /** Transactions that have appended already: their earlier entries are not committed yet. */
 const appendedIn = new WeakSet<Queryable>();
 
 /** Appends one entry. Call it inside the transaction that makes the change it records. */
 export async function appendLedger(tx: Queryable, input: LedgerInput) {
-  await tx.execute(sql`select pg_advisory_xact_lock(${LEDGER_LOCK})`);
+  await tx.execute(sql`select pg_advisory_xact_lock(${ADVISORY_LOCKS.ledgerAppend})`);
   const [last] = await tx
     .select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash })
     .from(ledgerEntries)

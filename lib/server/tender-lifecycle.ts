@@ -2,6 +2,7 @@ import "server-only";
 import { and, eq, inArray, like, sql } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
+import { ADVISORY_LOCKS } from "@/db/locks";
 import { organisations, tenderInvitations, tenders } from "@/db/schema";
 import { changedFields, draftInput, draftValues } from "@/lib/tenders/draft";
 import { cancellationNotice, invitationNotice } from "@/lib/tenders/notices";
@@ -16,9 +17,6 @@ import { withLedgerHead } from "./ledger-anchors";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, tenderSubject, tendersWhere, type TenderWithInvites } from "./tenders";
 import { ConflictError, InputError } from "./errors";
-
-// Serialises reference numbering so that two drafts never take the same sequence.
-const REFERENCE_LOCK = 72_011_950;
 
 /** Invitations go to vendor organisations only; their names, sorted, for the ledger. */
 async function checkInvitations(db: Queryable, ids: string[]): Promise<string[]> {
@@ -57,7 +55,7 @@ export async function createTender(viewer: Viewer, input: TenderInput): Promise<
   const db = await getDb();
   const invited = await checkInvitations(db, input.invitedOrgIds);
   const id = await db.transaction(async (tx) => {
-    await tx.execute(sql`select pg_advisory_xact_lock(${REFERENCE_LOCK})`);
+    await tx.execute(sql`select pg_advisory_xact_lock(${ADVISORY_LOCKS.tenderReference})`);
     const year = new Date().getUTCFullYear();
     const taken = await tx.select({ reference: tenders.reference }).from(tenders).where(like(tenders.reference, `RC-${year}-%`));
     const reference = nextReference(taken.map((t) => t.reference), year);

@@ -94,3 +94,14 @@ export function sanitizeFileName(name: string): string {
 export function sha256Hex(bytes: Uint8Array | string): string {
   return createHash("sha256").update(bytes).digest("hex");
 }
+
+/**
+ * The download name of an uploaded PDF: the sanitized name with its last extension, whatever it
+ * was, replaced by ".pdf" ("setup.exe" -> "setup.pdf", "x.pdf.exe" -> "x.pdf"), so a saved copy
+ * always opens as what the server checked it to be.
+ */
+export function pdfFileName(name: string): string {
+  const safe = sanitizeFileName(name);
+  const stem = safe === FALLBACK_FILE_NAME ? "document" : safe.replace(/\.[^.]*$/, "").replace(/\.pdf$/i, "");
+  return sanitizeFileName(`${stem || "document"}.pdf`);
+}

@@ -14,6 +14,7 @@ export {
   checkPdfUpload,
   detectExecutable,
   MAX_UPLOAD_BYTES,
+  pdfFileName,
   sanitizeFileName,
   sha256Hex,
   sniffPdf,

@@ -173,6 +173,57 @@ describe("refused uploads write nothing", () => {
   });
 });
 
+describe("upload names and shapes", () => {
+  let oxbow: Headers;
+  beforeAll(async () => {
+    oxbow = await signInAs("bids@oxbow.example");
+  });
+
+  it("always keeps a .pdf download name, whatever the file was called", async () => {
+    for (const [given, kept] of [["setup.exe", "setup.pdf"], ["x.pdf.exe", "x.pdf"], ["Report.PDF", "Report.pdf"], ["noextension", "noextension.pdf"]]) {
+      const response = await upload(oxbow, oxbowOfferId, new File([PDF], given));
+      expect(response.status).toBe(201);
+      const doc = await response.json();
+      expect(doc.fileName).toBe(kept);
+      expect((await download(oxbow, doc.id)).headers.get("content-disposition")).toContain(`filename="${kept}"`);
+    }
+  });
+
+  it("refuses a second file in one upload instead of dropping it", async () => {
+    const before = await counts();
+    const form = new FormData();
+    form.set("kind", "datasheet");
+    form.append("file", new File([PDF], "one.pdf"));
+    form.append("file", new File([PDF], "two.pdf"));
+    const response = await uploadPost(
+      new Request(`${BASE}/api/v1/offers/${oxbowOfferId}/documents`, { method: "POST", headers: oxbow, body: form }),
+      params({ id: oxbowOfferId }),
+    );
+    await refused(response, 400, /one file per upload/, before);
+  });
+
+  it("stops reading a body past the limit that came without a Content-Length", async () => {
+    const before = await counts();
+    const chunk = new Uint8Array(1024 * 1024);
+    let sent = 0;
+    // A chunked body that would never end: the server must stop reading, not wait for it.
+    const body = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        sent += chunk.length;
+        controller.enqueue(chunk);
+      },
+    });
+    const headers = new Headers(oxbow);
+    headers.set("content-type", "multipart/form-data; boundary=x");
+    const response = await uploadPost(
+      new Request(`${BASE}/api/v1/offers/${oxbowOfferId}/documents`, { method: "POST", headers, body, duplex: "half" } as RequestInit),
+      params({ id: oxbowOfferId }),
+    );
+    await refused(response, 413, /20 MB/, before);
+    expect(sent).toBeLessThan(25 * 1024 * 1024);
+  });
+});
+
 describe("the ledger", () => {
   it("still verifies", async () => {
     expect(await verifyLedger(db)).toMatchObject({ ok: true });

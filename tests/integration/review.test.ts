@@ -8,7 +8,9 @@ import { declarations, ledgerEntries, marks, organisations, technicalSignoffs, t
 import { GET as queueGet } from "@/app/api/v1/claims/route";
 import { GET as claimGet } from "@/app/api/v1/claims/[id]/route";
 import { POST as markPost } from "@/app/api/v1/claims/[id]/marks/route";
-import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
+import { GET as declarationGet, POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
+import { getDeclaration, listDeclarableVendors } from "@/lib/server/declarations";
+import { requireViewer } from "@/lib/server/session";
 import { POST as signPost } from "@/app/api/v1/tenders/[id]/signoff/route";
 import { GET as threadsGet } from "@/app/api/v1/threads/route";
 import { GET as messagesGet, POST as messagePost } from "@/app/api/v1/threads/[id]/messages/route";
@@ -205,5 +207,24 @@ describe("technical sign-off", () => {
     const list: unknown[] = (await (await threadsGet(request(`/api/v1/threads?tenderId=${fx.tenderId}`, { headers: as.marram }), undefined)).json()).threads;
     expect(list.length).toBeGreaterThan(0);
     expect(await db.select().from(threads).where(eq(threads.vendorOrgId, fx.orgIds.oxbow))).toHaveLength(0);
+  });
+});
+
+describe("declaration data answers only those it belongs to", () => {
+  it("names the invited vendors only to someone who may declare on the tender", async () => {
+    for (const who of ["marram", "buyer"]) {
+      await expect(listDeclarableVendors(await requireViewer(as[who]), fx.tenderId)).rejects.toThrow(/Engineers and approvers declare/);
+    }
+    expect((await listDeclarableVendors(await requireViewer(as.director), fx.tenderId)).length).toBeGreaterThan(0);
+  });
+
+  it("answers a declaration only for a tender the viewer may read, and only to those who declare", async () => {
+    const engineer = await requireViewer(as.engineer);
+    await expect(getDeclaration(engineer, crypto.randomUUID())).rejects.toThrow(/No such tender/);
+    await expect(getDeclaration(await requireViewer(as.marram), fx.tenderId)).rejects.toThrow(/Only engineers and approvers/);
+    const get = (who: string, id: string) => declarationGet(request(`/api/v1/tenders/${id}/declaration`, { headers: as[who] }), params({ id }));
+    expect((await get("engineer", crypto.randomUUID())).status).toBe(404);
+    expect((await get("oxbow", fx.tenderId)).status).toBe(403);
+    expect((await get("engineer", fx.tenderId)).status).toBe(200);
   });
 });

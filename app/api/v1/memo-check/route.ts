@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { isMultipart, jsonRoute, readForm, readJson, singleFile } from "@/lib/server/http";
 import { InputError } from "@/lib/server/errors";
 import { checkMemo } from "@/lib/server/memos";
 import { getViewer } from "@/lib/server/session";
@@ -8,14 +8,9 @@ const TOO_LARGE = "The file is larger than 20 MB; an award memo is far smaller."
 
 /** A memo file (multipart field "file") or a pasted fingerprint (JSON { sha256 }). */
 async function readInput(request: Request): Promise<{ bytes: Uint8Array } | { sha256: string }> {
-  const type = request.headers.get("content-type") ?? "";
-  if (!type.startsWith("multipart/form-data")) return readJson(request, fingerprintSchema);
-  if (Number(request.headers.get("content-length") ?? 0) > MAX_MEMO_BYTES + 65_536) throw new InputError(TOO_LARGE, { file: [TOO_LARGE] });
-  const form = await request.formData().catch(() => {
-    throw new InputError("The upload could not be read as a form.");
-  });
-  const file = form.get("file");
-  if (!(file instanceof Blob)) throw new InputError('Attach the memo as the form field "file".', { file: ["Choose a file."] });
+  if (!isMultipart(request)) return readJson(request, fingerprintSchema);
+  const form = await readForm(request, MAX_MEMO_BYTES + 65_536, new InputError(TOO_LARGE, { file: [TOO_LARGE] }));
+  const file = singleFile(form, "file", 'Attach the memo as the form field "file".');
   if (file.size === 0) throw new InputError("The file is empty.", { file: ["The file is empty."] });
   if (file.size > MAX_MEMO_BYTES) throw new InputError(TOO_LARGE, { file: [TOO_LARGE] });
   return { bytes: new Uint8Array(await file.arrayBuffer()) };

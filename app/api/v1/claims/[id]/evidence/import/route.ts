@@ -1,21 +1,21 @@
 import { AppError, InputError } from "@/lib/server/errors";
-import { jsonRoute, MAX_JSON_BYTES, readJson } from "@/lib/server/http";
+import { isMultipart, jsonRoute, MAX_JSON_BYTES, readForm, readJson, singleFile } from "@/lib/server/http";
 import { importEvidence } from "@/lib/server/evidence";
 import { requireViewer } from "@/lib/server/session";
 import { evidenceImportSchema } from "@/lib/validation/review";
+import { BAD_TEXT_MESSAGE, isCleanText } from "@/lib/validation/text";
+
+const TOO_LARGE = "The file is larger than 1 MB.";
 
 /** The CSV as a multipart "file" field (with "preview" set to "true" for a preview), or as JSON { csv, preview }. */
 async function readCsv(request: Request): Promise<{ csv: string; preview: boolean }> {
-  if (!(request.headers.get("content-type") ?? "").startsWith("multipart/form-data")) {
-    return readJson(request, evidenceImportSchema);
-  }
-  if (Number(request.headers.get("content-length") ?? 0) > MAX_JSON_BYTES) throw new AppError("The file is larger than 1 MB.", 413);
-  const form = await request.formData().catch(() => null);
-  const file = form?.get("file");
-  if (!file || typeof file === "string") throw new InputError("Attach the CSV file as the field \"file\".", { file: ["Choose a CSV file."] });
-  if (file.size > MAX_JSON_BYTES) throw new AppError("The file is larger than 1 MB.", 413);
-  const parsed = evidenceImportSchema.safeParse({ csv: await file.text(), preview: form?.get("preview") === "true" });
+  if (!isMultipart(request)) return readJson(request, evidenceImportSchema);
+  const form = await readForm(request, MAX_JSON_BYTES + 65_536, new AppError(TOO_LARGE, 413));
+  const file = singleFile(form, "file", 'Attach the CSV file as the field "file".');
+  if (file.size > MAX_JSON_BYTES) throw new AppError(TOO_LARGE, 413);
+  const parsed = evidenceImportSchema.safeParse({ csv: await file.text(), preview: form.get("preview") === "true" });
   if (!parsed.success) throw new InputError("The file is empty.", { file: ["The file is empty."] });
+  if (!isCleanText(parsed.data.csv)) throw new InputError(`The file ${BAD_TEXT_MESSAGE}`, { file: [BAD_TEXT_MESSAGE] });
   return parsed.data;
 }
 
