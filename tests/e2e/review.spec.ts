@@ -15,6 +15,8 @@ async function markIfNotFinal(page: Page, href: string) {
   await expect(page.getByRole("region", { name: "Findings" })).toBeVisible();
   if (/^(Accepted|Rejected as impossible)/.test((await page.getByTestId("current-mark").textContent()) ?? "")) return;
   const form = page.getByRole("form", { name: "Mark this claim" });
+  // No mark is chosen for the engineer.
+  await expect(form.getByRole("radio", { checked: true })).toHaveCount(0);
   const impossible = (await page.locator('main header [data-verdict="impossible"]').count()) > 0;
   if (impossible) {
     await form.getByLabel("Rejected as impossible").check();
