@@ -15,6 +15,8 @@ async function markIfNotFinal(page: Page, href: string) {
   await expect(page.getByRole("region", { name: "Findings" })).toBeVisible();
   if (/^(Accepted|Rejected as impossible)/.test((await page.getByTestId("current-mark").textContent()) ?? "")) return;
   const form = page.getByRole("form", { name: "Mark this claim" });
+  // No mark is chosen for the engineer.
+  await expect(form.getByRole("radio", { checked: true })).toHaveCount(0);
   const impossible = (await page.locator('main header [data-verdict="impossible"]').count()) > 0;
   if (impossible) {
     await form.getByLabel("Rejected as impossible").check();
@@ -71,14 +73,14 @@ test("the engineer records a lab run and asks Marram a question", async ({ page 
   await expect(run.getByRole("status")).toContainText("Lab run recorded: inconclusive.");
   await expect(run.getByRole("status")).toContainText("milder than the claim's p = 5e-3");
   const runs = page.getByRole("table", { name: "Lab runs" });
-  await expect(runs.locator('tr[data-status="inconclusive"]')).toContainText("p = 5e-5");
+  await expect(runs.locator('tr[data-status="inconclusive"]', { hasText: "p = 5e-5" })).toHaveCount(1);
   await expect(page.getByRole("region", { name: "Charts" })).toContainText("lab runs");
 
   // The same counts at the claim's own channel verify it.
   await run.getByLabel("Channel condition").fill("0.005");
   await run.getByRole("button", { name: "Record run" }).click();
   await expect(run.getByRole("status")).toContainText("Lab run recorded: verified.");
-  await expect(runs.locator('tr[data-status="verified"]')).toContainText("0 / 3,000,000");
+  await expect(runs.locator('tr[data-status="verified"]', { hasText: "0 / 3,000,000" })).toHaveCount(1);
 
   const mark = page.getByRole("form", { name: "Mark this claim" });
   await mark.getByLabel("Clarification requested").check();
