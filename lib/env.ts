@@ -78,7 +78,7 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
   const demoMode = raw.NODE_ENV !== "production" || raw.DEMO;
   return {
     ...raw,
-    BACKUP_DIR: path.resolve(raw.BACKUP_DIR ?? `${raw.DATA_DIR}-backups`),
+    BACKUP_DIR: path.resolve(/* turbopackIgnore: true */ raw.BACKUP_DIR ?? `${raw.DATA_DIR}-backups`),
     demoMode,
     seedDemo: raw.SEED ? raw.SEED === "demo" : demoMode,
     appUrl: (raw.BETTER_AUTH_URL ?? `http://localhost:${raw.PORT}`).replace(/\/$/, ""),

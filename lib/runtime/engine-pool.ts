@@ -41,7 +41,8 @@ type Pending = {
 type Slot = { worker: Worker; ready: boolean; running?: Pending };
 
 // Resolved from the project folder at run time: the same file in development, tests and `next start`.
-const workerScript = () => path.join(process.cwd(), "lib", "runtime", "engine-worker.mjs");
+// The ignore comments keep Turbopack from bundling it (and tsx with it) as a worker entry.
+const workerScript = () => path.join(/* turbopackIgnore: true */ process.cwd(), "lib", "runtime", "engine-worker.mjs");
 
 class EnginePool {
   private readonly slots = new Set<Slot>();
@@ -78,7 +79,7 @@ class EnginePool {
   }
 
   private spawn(): void {
-    const slot: Slot = { worker: new Worker(workerScript()), ready: false };
+    const slot: Slot = { worker: new Worker(/* turbopackIgnore: true */ workerScript()), ready: false };
     slot.worker.unref();
     slot.worker.on("message", (message: EngineReply) => this.onMessage(slot, message));
     slot.worker.on("error", (error) => this.onDeath(slot, error));
