@@ -113,12 +113,14 @@ export function productionRefusal(problems: string[]): string {
 const KEY = Symbol.for("ratecourt.env");
 type Holder = { [KEY]?: Env };
 
-/** The process's settings, parsed once. A production start with missing settings throws here too. */
+/** The process's settings, parsed once. A production start (not the build) with missing settings throws here too. */
 export function env(): Env {
   const holder = globalThis as Holder;
   if (!holder[KEY]) {
     const parsed = parseEnv();
-    const problems = productionProblems(parsed);
+    // The build needs no secrets or services: the server that runs it is checked at its start.
+    const building = parsed.NEXT_PHASE === "phase-production-build";
+    const problems = building ? [] : productionProblems(parsed);
     if (problems.length > 0) throw new EnvError(productionRefusal(problems));
     holder[KEY] = parsed;
   }

@@ -38,7 +38,7 @@ type Pending = {
   resolve(value: unknown): void;
   reject(error: Error): void;
 };
-type Slot = { worker: Worker; ready: boolean; running?: Pending };
+type Slot = { worker: Worker; ready: boolean; started: Promise<void>; running?: Pending };
 
 // Resolved from the project folder at run time: the same file in development, tests and `next start`.
 // The ignore comments keep Turbopack from bundling it (and tsx with it) as a worker entry.
@@ -67,6 +67,12 @@ class EnginePool {
     });
   }
 
+  /** Starts every worker and waits until each has loaded the engine (or failed to). */
+  async warm(): Promise<void> {
+    while (this.slots.size < this.size) this.spawn();
+    await Promise.all([...this.slots].map((slot) => slot.started));
+  }
+
   /** Stops every worker; queued and running jobs fail. */
   async close(): Promise<void> {
     for (const pending of [...this.queue, ...[...this.slots].flatMap((s) => (s.running ? [s.running] : []))]) {
@@ -79,7 +85,12 @@ class EnginePool {
   }
 
   private spawn(): void {
-    const slot: Slot = { worker: new Worker(/* turbopackIgnore: true */ workerScript()), ready: false };
+    const worker = new Worker(/* turbopackIgnore: true */ workerScript());
+    const started = new Promise<void>((resolve) => {
+      worker.on("message", (message: EngineReply) => "ready" in message && resolve());
+      worker.once("exit", () => resolve());
+    });
+    const slot: Slot = { worker, ready: false, started };
     slot.worker.unref();
     slot.worker.on("message", (message: EngineReply) => this.onMessage(slot, message));
     slot.worker.on("error", (error) => this.onDeath(slot, error));
@@ -151,6 +162,11 @@ type Holder = { [KEY]?: EnginePool };
 
 function pool(): EnginePool {
   return ((globalThis as Holder)[KEY] ??= new EnginePool(env().ENGINE_WORKERS));
+}
+
+/** Starts the engine's workers now rather than at the first request (tests time the work, not the start). */
+export function warmEnginePool(): Promise<void> {
+  return pool().warm();
 }
 
 /** Runs one engine task in a worker thread within the request deadline (ENGINE_DEADLINE_MS). */

@@ -10,7 +10,7 @@ import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route
 import { GET as meGet } from "@/app/api/v1/me/route";
 import type { Db } from "@/db/client";
 import { claims, evidenceRuns, ledgerEntries, offers, tenders } from "@/db/schema";
-import { closeEnginePool } from "@/lib/runtime/engine-pool";
+import { closeEnginePool, warmEnginePool } from "@/lib/runtime/engine-pool";
 import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
 import { setEnv } from "../support/env";
 import { reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
@@ -43,8 +43,8 @@ afterEach(async () => {
 
 /** Starts the workers (their start-up is not what these tests time), then makes every job spin past the deadline. */
 async function slowEngine(workers = 2) {
-  const warming = setEnv({ ENGINE_WORKERS: String(workers), ENGINE_DEADLINE_MS: "30000" });
-  await Promise.all(Array.from({ length: workers }, () => evaluate(honest)));
+  const warming = setEnv({ ENGINE_WORKERS: String(workers), ENGINE_DEADLINE_MS: "120000" });
+  await warmEnginePool();
   warming();
   restore = setEnv({ ENGINE_WORKERS: String(workers), ENGINE_DEADLINE_MS: "1500", ENGINE_TEST_DELAY_MS: "600000" });
 }

@@ -2,7 +2,7 @@
 // terminated and replaced. ENGINE_TEST_DELAY_MS makes each job spin first, like a claim that never ends.
 import { afterAll, afterEach, describe, expect, it } from "vitest";
 import { evaluateClaim, type ClaimInput } from "@/lib/bounds";
-import { closeEnginePool, isEngineDeadline, runEngine, type EngineDeadlineError } from "@/lib/runtime/engine-pool";
+import { closeEnginePool, isEngineDeadline, runEngine, warmEnginePool, type EngineDeadlineError } from "@/lib/runtime/engine-pool";
 import { setEnv } from "../support/env";
 
 const claim: ClaimInput = { channel: { model: "bsc", p: 1e-3 }, code: { n: 2048, k: 1640 }, target: { metric: "bler", value: 1e-4 } };
@@ -38,8 +38,9 @@ describe("the engine worker pool", () => {
   });
 
   it("stops a job past its deadline, keeps the request thread free meanwhile, and serves the next job on a fresh worker", async () => {
-    restore = setEnv({ ENGINE_WORKERS: "1", ENGINE_DEADLINE_MS: "1500" });
-    await runEngine("claims", [claim]); // the worker is up
+    // A worker's first start compiles the engine: warm it with a deadline no loaded machine misses.
+    restore = setEnv({ ENGINE_WORKERS: "1", ENGINE_DEADLINE_MS: "120000" });
+    await warmEnginePool();
     restore();
     restore = setEnv({ ENGINE_WORKERS: "1", ENGINE_DEADLINE_MS: "1500", ENGINE_TEST_DELAY_MS: "600000" });
     const started = performance.now();
@@ -48,18 +49,20 @@ describe("the engine worker pool", () => {
     const { error } = await slow;
     expect(isEngineDeadline(error)).toBe(true);
     expect(error).toMatchObject({ started: true, done: 0, deadlineMs: 1500 });
-    expect(performance.now() - started).toBeLessThan(4000);
-    expect(stall).toBeLessThan(500);
+    // Generous on a loaded machine, yet far from what a blocked thread or a missed deadline gives.
+    expect(performance.now() - started).toBeLessThan(6000);
+    expect(stall).toBeLessThan(1000);
 
     restore();
-    restore = setEnv({ ENGINE_WORKERS: "1", ENGINE_DEADLINE_MS: "10000" });
+    // The replacement worker starts cold, like the first one.
+    restore = setEnv({ ENGINE_WORKERS: "1", ENGINE_DEADLINE_MS: "120000" });
     const [after] = await runEngine("claims", [claim]);
     expect(after.verdict).toBe(evaluateClaim(claim).verdict);
   });
 
   it("answers a job that waited behind busy workers past its deadline as not started", async () => {
-    restore = setEnv({ ENGINE_WORKERS: "1", ENGINE_DEADLINE_MS: "20000" });
-    await runEngine("claims", [claim]);
+    restore = setEnv({ ENGINE_WORKERS: "1", ENGINE_DEADLINE_MS: "120000" });
+    await warmEnginePool();
     restore();
     restore = setEnv({ ENGINE_WORKERS: "1", ENGINE_DEADLINE_MS: "1500", ENGINE_TEST_DELAY_MS: "600000" });
     const [first, second] = await Promise.all([settle(runEngine("claims", [claim])), settle(runEngine("claims", [claim]))]);

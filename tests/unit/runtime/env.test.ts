@@ -66,3 +66,22 @@ describe("settings", () => {
     expect(parseEnv({ PORT: "4000" }).appUrl).toBe("http://localhost:4000");
   });
 });
+
+describe("env() during the build", () => {
+  it("needs no production settings while Next.js builds, and refuses a production start without them", async () => {
+    const { env, resetEnvForTests } = await import("@/lib/env");
+    const saved = { ...process.env };
+    try {
+      for (const name of Object.keys(process.env)) if (/^(DEMO|SEED|BETTER_AUTH_|LEDGER_KEY|SMTP_|MAIL_|S3_)/.test(name)) delete process.env[name];
+      Object.assign(process.env, { NODE_ENV: "production", NEXT_PHASE: "phase-production-build" });
+      resetEnvForTests();
+      expect(env().demoMode).toBe(false);
+      process.env.NEXT_PHASE = "phase-production-server";
+      resetEnvForTests();
+      expect(() => env()).toThrow(/BETTER_AUTH_SECRET/);
+    } finally {
+      process.env = saved;
+      resetEnvForTests();
+    }
+  });
+});
