@@ -127,7 +127,7 @@ describe("marks and clarification threads", () => {
     await vi.waitFor(async () => {
       await flushMail();
       expect(mailTo("offers@marram.example", /question from the evaluators/)).toHaveLength(1);
-    });
+    }, { timeout: 15_000 });
   });
 
   it("shows a vendor only its own organisation's threads", async () => {
@@ -155,7 +155,7 @@ describe("marks and clarification threads", () => {
       await flushMail();
       expect(mailTo("engineer@tarnwell.example", /vendor answer/)).toHaveLength(1);
       expect(mailTo("director@tarnwell.example", /vendor answer/)).toHaveLength(1);
-    });
+    }, { timeout: 15_000 });
     const empty = await messagePost(request(`/api/v1/threads/${threadId}/messages`, { method: "POST", headers: as.marram, body: { body: " " } }), params({ id: threadId }));
     expect(empty.status).toBe(400);
   });
@@ -200,7 +200,7 @@ describe("technical sign-off", () => {
     await vi.waitFor(async () => {
       await flushMail();
       expect(mailTo("buyer@tarnwell.example", /technical evaluation signed/)).toHaveLength(1);
-    });
+    }, { timeout: 15_000 });
   });
 
   it("keeps the threads readable by the vendor after the sign-off", async () => {
