@@ -1,6 +1,7 @@
 // The findings a verdict is built from: a code, a one-sentence message with the numbers, a source.
 import type { OperatingPoint } from "./resolve";
 import { fmtChannel, fmtCode, fmtRate, sci, sciLn } from "./format";
+import { logRawBerForNcg } from "./conversions";
 
 export type Severity = "violation" | "gap" | "support" | "info";
 export interface Finding {
@@ -98,7 +99,7 @@ export function ncgFinding(op: OperatingPoint): Finding {
   return {
     code: "ncg-resolved",
     severity: "info",
-    message: `A net coding gain of ${(c.ncgDb as number).toFixed(2)} dB at output BER ${sci(op.target)} and rate ${fmtRate(op.rate)} implies a raw BER of ${sci(c.p as number)}${soft}.`,
+    message: `A net coding gain of ${(c.ncgDb as number).toFixed(2)} dB at output BER ${sci(op.target)} and rate ${fmtRate(op.rate)} implies a raw BER of ${sciLn(logRawBerForNcg(c.ncgDb as number, op.target, op.rate))}${soft}.`,
     source: SOURCES.ncg,
   };
 }

@@ -2,7 +2,7 @@
 import type { ClaimInput } from "./schema";
 import { bscCapacity, bscDispersion, becCapacity, becDispersion } from "./channels";
 import { biawgnCapDisp } from "./biawgn";
-import { ebn0ToEsn0, esn0ForRawBer, esn0ToEbn0, overheadToRate, rawBerForNcg } from "./conversions";
+import { ebn0ToEsn0, esn0ForNcg, esn0ToEbn0, overheadToRate, rawBerForNcg } from "./conversions";
 
 export type Model = "bsc" | "bec" | "biawgn";
 export type Unit = "p" | "e" | "ebn0Db" | "esn0Db";
@@ -61,7 +61,7 @@ export function resolveClaim(claim: ClaimInput): OperatingPoint {
   }
   let esn0Db: number;
   let unit: Unit = "ebn0Db";
-  if (ncgP !== undefined) esn0Db = esn0ForRawBer(ncgP);
+  if (ch.ncgDb !== undefined) esn0Db = esn0ForNcg(ch.ncgDb, target.value, rate);
   else if (ch.esn0Db !== undefined) {
     esn0Db = ch.esn0Db;
     unit = "esn0Db";

@@ -75,6 +75,8 @@ export const claimSchema = z
     const wanted = c.channel.model === "bsc" ? ["p", "ncgDb"] : c.channel.model === "biawgn" ? ["ebn0Db", "esn0Db", "ncgDb"] : ["e"];
     if (given(wanted).length !== 1)
       ctx.addIssue({ code: "custom", path: ["channel", wanted[0]], message: `give exactly one of ${wanted.join(", ")}` });
+    if (ch.ncgDb !== undefined && c.target.value >= 0.5)
+      ctx.addIssue({ code: "custom", path: ["target", "value"], message: "must be below 0.5 with a net coding gain (the coding gain is defined at an output BER below 0.5)" });
     const { n, k, rate, overhead } = c.code;
     const forms = [k !== undefined, rate !== undefined, overhead !== undefined].filter(Boolean).length;
     if (forms !== 1)

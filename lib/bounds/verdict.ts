@@ -27,8 +27,10 @@ function gallager(op: OperatingPoint) {
 /** Channel margins: threshold over claimed (p, e), or threshold minus claimed (dB). */
 function channelMargins(op: OperatingPoint, t: Thresholds) {
   const db = op.model === "biawgn";
+  // A ratio over a subnormal claimed p or e can overflow: no margin is shown then, rather than infinity.
+  const finite = (x: number) => (Number.isFinite(x) ? x : null);
   const m = (th: number | null) =>
-    th === null ? null : db ? th - op.claimed : op.claimed > 0 ? th / op.claimed : null;
+    th === null ? null : db ? finite(th - op.claimed) : op.claimed > 0 ? finite(th / op.claimed) : null;
   return {
     channelKind: db ? ("dB" as const) : ("ratio" as const),
     channel: { capacity: m(t.capacity), converse: m(t.converse), achievable: m(t.achievable), normal: m(t.normal) },
