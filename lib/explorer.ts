@@ -58,7 +58,7 @@ export function buildBoundCharts(view: BoundView): BoundCharts {
 /** The chart view of a stored verdict: its code and the channel the engine actually used (null without n and k). */
 export function boundViewOfResult(result: ClaimResult): BoundView | null {
   const { n, channel, target } = result;
-  // A rate stated with n gives a fractional k; the chart uses the nearest whole number of bits.
+  // The engine gives a whole k; results stored by engines before 1.1 may carry a fractional one.
   const k = result.k == null ? null : Math.round(result.k);
   if (n == null || k == null || k < 1 || k > n || n < 2) return null;
   const x =

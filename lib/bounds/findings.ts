@@ -59,8 +59,10 @@ export function achievabilityFinding(op: OperatingPoint, lnAch: number, perfect:
     : { code: "beyond-achievability", severity: "gap", message: `The claimed ${metricName(op)} ${sci(op.target)} beats what is guaranteed (${got}), so it needs a code better than a random one, and evidence.`, source };
 }
 
-export function normalFinding(op: OperatingPoint, lnBler: number, rate: number, deciding: boolean, ok: boolean): Finding {
+export function normalFinding(op: OperatingPoint, lnBler: number, rate: number, deciding: boolean, ok: boolean, unreliable: string | null = null): Finding {
   const text = `At n = ${op.n} the normal approximation expects BLER ${sciLn(lnBler)} at rate ${fmtRate(op.rate)} and a best rate of ${fmtRate(rate)} at ${metricName(op)} ${sci(op.target)}`;
+  if (unreliable)
+    return { code: "normal-approximation-unreliable", severity: "info", message: `${text} (an approximation, not a bound, and unreliable here since ${unreliable}).`, source: SOURCES.normal };
   if (!deciding)
     return { code: "normal-approximation", severity: "info", message: `${text} (an approximation, not a bound).`, source: SOURCES.normal };
   return ok

@@ -199,4 +199,11 @@ export function ballVolumes(n: number): BallVolumes {
 /** Drops the cached ball-volume tables (for cold-start benchmarks, or to free memory). */
 export function clearBoundsCaches(): void {
   ballCache.clear();
+  for (const clear of cacheClearers) clear();
+}
+
+const cacheClearers: (() => void)[] = [];
+/** Lets another module's cache be dropped with the others by clearBoundsCaches. */
+export function onClearBoundsCaches(clear: () => void): void {
+  cacheClearers.push(clear);
 }

@@ -18,10 +18,10 @@ describe("the bound charts", () => {
     expect(inside.channel[inside.channel.length - 1].x).toBeGreaterThan(0.02);
   });
 
-  it("chart a rate stated with n at the nearest whole k, and nothing without n", () => {
+  it("chart a rate stated with n at the engine's whole k, and nothing without n", () => {
     const withN = evaluateClaim({ channel: { model: "bsc", p: 1e-3 }, code: { n: 2048, rate: 0.95 }, target: { metric: "bler", value: 1e-6 } });
-    expect(withN.k).toBeCloseTo(1945.6, 6);
-    expect(boundViewOfResult(withN)).toMatchObject({ model: "bsc", x: 1e-3, n: 2048, k: 1946, target: 1e-6 });
+    expect(withN.k).toBe(1945); // floor(2048 x 0.95 = 1945.6)
+    expect(boundViewOfResult(withN)).toMatchObject({ model: "bsc", x: 1e-3, n: 2048, k: 1945, target: 1e-6 });
     const rateOnly = evaluateClaim({ channel: { model: "bsc", p: 1e-3 }, code: { rate: 0.95 }, target: { metric: "bler", value: 1e-6 } });
     expect(boundViewOfResult(rateOnly)).toBeNull();
   });

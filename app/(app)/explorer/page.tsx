@@ -41,7 +41,7 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
         <div className="flex flex-wrap items-center gap-3">
           <VerdictBadge verdict={charts.result.verdict} />
           <span className="text-sm">
-            Rate {charts.result.rate.toFixed(4)} bits per channel use, capacity {charts.result.capacity.toFixed(4)}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
+            Rate {charts.result.rate?.toFixed(4) ?? "–"} bits per channel use, capacity {charts.result.capacity?.toFixed(4) ?? "–"}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
           </span>
         </div>
       </section>

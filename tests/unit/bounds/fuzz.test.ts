@@ -39,13 +39,22 @@ const channel = fc.oneof(
   db.map((ebn0Db) => ({ model: "biawgn", ebn0Db })),
   db.map((esn0Db) => ({ model: "biawgn", esn0Db })),
   ncg.map((ncgDb) => ({ model: "biawgn", ncgDb })),
+  fc
+    .record({
+      sensitivityDbm: edgy([-250, 30, -120], -250, 30),
+      bitRate: edgy([Number.MIN_VALUE, 1, 1e12], Number.MIN_VALUE, 1e12),
+      noiseFigureDb: fc.option(edgy([0, 40], 0, 40), { nil: undefined }),
+      assumedNoiseFigureDb: fc.option(edgy([0, 40], 0, 40), { nil: undefined }),
+    })
+    .map((s) => ({ model: "biawgn", ...s })),
 );
 const n = fc.oneof(fc.constantFrom(1, 2, 3, MAX_N), fc.integer({ min: 1, max: 5000 }), fc.integer({ min: 1, max: MAX_N }));
 const frac = edgy([0, 1, 1e-9], 0, 1);
 const rate = edgy([1, 0.5, 0.9999, ...tiny], Number.MIN_VALUE, 1);
 const overhead = edgy([0, 1000, 1e-12], 0, 1000);
 const code = fc.oneof(
-  fc.tuple(n, frac).map(([n, f]) => ({ n, k: Math.max(1, Math.min(n, Math.round(f * n))) })),
+  fc.tuple(n, frac, fc.constantFrom(undefined, "bpsk", "qpsk")).map(([n, f, modulation]) => ({ n, k: Math.max(1, Math.min(n, Math.round(f * n))), modulation })),
+  fc.oneof(fc.constantFrom(1, 2, MAX_N), fc.integer({ min: 1, max: MAX_N })).map((k) => ({ k })),
   rate.map((rate) => ({ rate })),
   fc.tuple(n, rate).map(([n, rate]) => ({ n, rate })),
   overhead.map((overhead) => ({ overhead })),
