@@ -50,7 +50,7 @@ function energyCheck(op: OperatingPoint, k: number, limit: number | null) {
  * and plausibility at the realistic Eb/N0 by the normal approximation where it is reliable or by
  * Gallager's random-coding bound (rigorous) anywhere.
  */
-export function radioWithCode(op: OperatingPoint, logConv: number, logAch: number, tol: number): RadioOutcome {
+export function radioWithCode(op: OperatingPoint, logConv: number, logAch: number, tol: number, exponentAtClaim: number): RadioOutcome {
   const r = op.radio!;
   const n = op.n as number;
   const k = op.k as number;
@@ -74,7 +74,8 @@ export function radioWithCode(op: OperatingPoint, logConv: number, logAch: numbe
     : belowConverse
       ? `its BLER ${sciLn(lnNormal)} falls below the 1959 converse ${sciLn(lnSpReal)}`
       : null;
-  const lnGallager = gallagerLogBler(n, biawgnGallagerExponent(esn0, op.rate).exponent);
+  const same = r.realisticEbn0Db === r.ebn0Db;
+  const lnGallager = gallagerLogBler(n, same ? exponentAtClaim : biawgnGallagerExponent(esn0, op.rate).exponent);
   const basis = lnGallager <= logAch + tol ? "gallager" : whyNot === null && lnNormal <= logAch + tol ? "normal" : null;
   findings.push(R.restsOnFinding(op, basis, lnGallager, whyNot));
   return {

@@ -75,12 +75,13 @@ export function evaluateClaim(input: ClaimInput): ClaimResult {
   let normal: ClaimResult["normal"] = null;
   let plausible = false;
   let radio: RadioOutcome | null = null;
+  const exponent = gallager(op);
   if (known) {
     const lnNormal = normalApproxLogBler(n, k, op.capacity, op.dispersion, op.logTerm);
     const nRate = normalApproxRate(n, op.capacity, op.dispersion, logAch, op.logTerm);
     normal = { rate: nRate, ...bound(lnNormal) };
     if (model === "biawgn") {
-      radio = radioWithCode(op, logConv, logAch, tol);
+      radio = radioWithCode(op, logConv, logAch, tol, exponent);
       violated ||= radio.violated;
       plausible = radio.plausible === true;
       findings.push(F.normalFinding(op, lnNormal, nRate, false, false, radio.normalUnreliable), ...radio.findings);
@@ -100,7 +101,6 @@ export function evaluateClaim(input: ClaimInput): ClaimResult {
     }
   } else findings.push(F.asymptoticFinding(op));
 
-  const exponent = gallager(op);
   const lnGallager = known ? gallagerLogBler(n, exponent) : null;
   findings.push(F.gallagerFinding(op, exponent, lnGallager));
 
