@@ -11,7 +11,7 @@ test("the Bound explorer keeps its view in the address and judges the point", as
   await expect(page.getByRole("figure", { name: "Best rate against block length" }).locator("svg").first()).toBeVisible();
 
   // A gentler code on the same channel: the form writes the new view into the address.
-  await page.getByLabel("k (bits)").fill("1024");
+  await page.getByLabel("k (bits)", { exact: true }).fill("1024");
   await page.getByRole("button", { name: "Show" }).click();
   await expect(page).toHaveURL(/k=1024/);
   await expect(page.getByRole("region", { name: "Verdict for this point" }).locator("[data-verdict]")).toHaveAttribute("data-verdict", "plausible");
@@ -25,7 +25,7 @@ test("a bad view in the address gets messages in words and no verdict, not an er
   await expect(alert).toContainText("The information bits k must be a whole number from 1 to n (100).");
   await expect(alert).toContainText("The raw BER p must be above 0 and at most 0.5.");
   await expect(page.getByRole("region", { name: "Verdict for this point" })).toHaveCount(0);
-  await expect(page.getByLabel("k (bits)")).toHaveValue("200"); // what was typed stays, to be corrected
+  await expect(page.getByLabel("k (bits)", { exact: true })).toHaveValue("200"); // what was typed stays, to be corrected
 });
 
 test("the explorer draws the 1959 bound and converts a sensitivity, keeping both in the address", async ({ page }) => {
