@@ -1,6 +1,11 @@
+import type { SensitivityView } from "@/lib/validation/explorer";
 import {
   channelCurve,
   ebn0ToEsn0,
+  ebn0ToSensitivityDbm,
+  energyConverseEbn0Db,
+  orthogonalEbn0Db,
+  sensitivityToEbn0Db,
   evaluateClaim,
   rateCurve,
   type ChannelCurvePoint,
@@ -58,7 +63,7 @@ export function buildBoundCharts(view: BoundView): BoundCharts {
 /** The chart view of a stored verdict: its code and the channel the engine actually used (null without n and k). */
 export function boundViewOfResult(result: ClaimResult): BoundView | null {
   const { n, channel, target } = result;
-  // A rate stated with n gives a fractional k; the chart uses the nearest whole number of bits.
+  // The engine gives a whole k; results stored by engines before 1.1 may carry a fractional one.
   const k = result.k == null ? null : Math.round(result.k);
   if (n == null || k == null || k < 1 || k > n || n < 2) return null;
   const x =
@@ -67,4 +72,33 @@ export function boundViewOfResult(result: ClaimResult): BoundView | null {
     : channel.ebn0Db ?? (channel.esn0Db == null ? undefined : channel.esn0Db - 10 * Math.log10(k / n));
   if (x == null || !Number.isFinite(x) || x <= 0 && channel.model !== "biawgn") return null;
   return { model: channel.model, x, n, k, target: Math.min(target.value, 0.49) };
+}
+
+export interface SensitivityResult {
+  /** Eb/N0 (dB) at the level given, or the level (dBm) at the Eb/N0 given, at the noise figure. */
+  ebn0Db: number;
+  levelDbm: number;
+  /** Least Eb/N0 to send the payload at the PER (PPV 2011 converse), and the level it needs. */
+  limitEbn0Db: number | null;
+  limitLevelDbm: number | null;
+  /** Orthogonal signalling's Eb/N0 at the same PER (achievable), and its level. */
+  achievableEbn0Db: number | null;
+  achievableLevelDbm: number | null;
+}
+
+/** The sensitivity calculator: input level to Eb/N0 and back, with the energy limits for a payload. */
+export function sensitivityResult(v: SensitivityView): SensitivityResult {
+  const ebn0Db = v.level !== undefined ? sensitivityToEbn0Db(v.level, v.rb, v.nf) : (v.ebn0 ?? 0);
+  const toLevel = (e: number | null) => (e === null ? null : ebn0ToSensitivityDbm(e, v.rb, v.nf));
+  const lnPer = Math.log(v.per);
+  const limitEbn0Db = energyConverseEbn0Db(v.payload, lnPer);
+  const achievableEbn0Db = orthogonalEbn0Db(v.payload, lnPer);
+  return {
+    ebn0Db,
+    levelDbm: toLevel(ebn0Db) as number,
+    limitEbn0Db,
+    limitLevelDbm: toLevel(limitEbn0Db),
+    achievableEbn0Db,
+    achievableLevelDbm: toLevel(achievableEbn0Db),
+  };
 }

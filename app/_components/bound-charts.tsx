@@ -15,7 +15,7 @@ import {
 import type { BoundCharts } from "@/lib/explorer";
 import { formatSci } from "@/lib/format";
 
-const COLOURS = { converse: "#b42318", achievable: "#1f7a3a", normal: "#0f5e6b", capacity: "#4a5568", claim: "#1c2430", run: "#8a5a00" };
+const COLOURS = { converse: "#b42318", achievable: "#1f7a3a", normal: "#0f5e6b", capacity: "#4a5568", energy: "#8a5a00", claim: "#1c2430", run: "#6b3fa0" };
 
 /** A lab run on the channel chart: its channel and the upper bound of its error rate. */
 export interface ChartRun {
@@ -31,10 +31,14 @@ export function ChannelChart({ charts, runs = [] }: { charts: BoundCharts; runs?
   const logX = view.model !== "biawgn";
   const xLabel = view.model === "bsc" ? "raw BER p" : view.model === "bec" ? "erasure probability e" : "Eb/N0 (dB)";
   const fmtX = (v: number) => (logX ? formatSci(v, 1) : `${v.toFixed(1)} dB`);
+  const soft = view.model === "biawgn";
+  // Soft decision: thresholds in Eb/N0 (the capacity one is in the claim's unit, Eb/N0 here)
   const thresholds = [
     { key: "capacity", label: "capacity", value: result.thresholds.capacity, colour: COLOURS.capacity },
     { key: "converse", label: "converse", value: result.thresholds.converse, colour: COLOURS.converse },
     { key: "achievable", label: "random coding", value: result.thresholds.achievable, colour: COLOURS.achievable },
+    { key: "sphere", label: "sphere packing", value: soft ? result.thresholds.spherePacking : null, colour: COLOURS.converse },
+    { key: "energy", label: `energy limit, k = ${view.k}`, value: soft ? (result.energy?.converseEbn0Db ?? null) : null, colour: COLOURS.energy },
   ].filter((t): t is { key: string; label: string; value: number; colour: string } => t.value != null && Number.isFinite(t.value));
   const xs = channel.map((p) => p.x);
   const inRange = (v: number) => v >= Math.min(...xs) && v <= Math.max(...xs);
@@ -47,8 +51,8 @@ export function ChannelChart({ charts, runs = [] }: { charts: BoundCharts; runs?
           <YAxis domain={[(min: number) => Math.max(Math.floor(min), -30), 0]} tickFormatter={pow10} label={{ value: "BLER", angle: -90, position: "insideLeft" }} allowDataOverflow />
           <Tooltip formatter={(v) => (typeof v === "number" ? pow10(v) : String(v))} labelFormatter={(v) => fmtX(Number(v))} />
           <Legend verticalAlign="top" />
-          <Line dataKey="converse" name="least possible BLER (converse)" stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
-          <Line dataKey="achievable" name="random-coding BLER (achievable)" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />
+          <Line dataKey="converse" name={soft ? "least possible BLER (1959 sphere packing)" : "least possible BLER (converse)"} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
+          {soft ? null : <Line dataKey="achievable" name="random-coding BLER (achievable)" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />}
           <Line dataKey="normal" name="normal approximation" stroke={COLOURS.normal} dot={false} strokeWidth={1.5} strokeDasharray="2 3" isAnimationActive={false} />
           {thresholds.filter((t) => inRange(t.value)).map((t) => (
             <ReferenceLine key={t.key} x={t.value} stroke={t.colour} strokeDasharray="3 3" label={{ value: t.label, position: "top", fontSize: 11, fill: t.colour }} />
@@ -66,6 +70,7 @@ export function ChannelChart({ charts, runs = [] }: { charts: BoundCharts; runs?
 /** Best rate against block length at the target, with capacity as the ceiling and the claim as a point. */
 export function RateChart({ charts }: { charts: BoundCharts }) {
   const { view, rate } = charts;
+  const soft = view.model === "biawgn";
   return (
     <figure aria-label="Best rate against block length" className="h-80 w-full">
       <ResponsiveContainer width="100%" height="100%">
@@ -76,8 +81,8 @@ export function RateChart({ charts }: { charts: BoundCharts }) {
           <Tooltip formatter={(v) => (typeof v === "number" ? v.toFixed(4) : String(v))} labelFormatter={(v) => `n = ${Number(v).toLocaleString("en-GB")}`} />
           <Legend verticalAlign="top" />
           <Line dataKey="capacity" name="capacity" stroke={COLOURS.capacity} dot={false} isAnimationActive={false} />
-          <Line dataKey="converseRate" name="largest rate allowed (converse)" stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
-          <Line dataKey="achievableRate" name="rate guaranteed (random coding)" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />
+          <Line dataKey="converseRate" name={soft ? "largest rate allowed (1959 sphere packing)" : "largest rate allowed (converse)"} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
+          {soft ? null : <Line dataKey="achievableRate" name="rate guaranteed (random coding)" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />}
           <Line dataKey="normalRate" name="normal approximation" stroke={COLOURS.normal} dot={false} strokeDasharray="2 3" isAnimationActive={false} />
           <ReferenceDot x={view.n} y={view.k / view.n} r={6} fill={COLOURS.claim} stroke="#fff" label={{ value: "claim", position: "right", fontSize: 12 }} />
         </LineChart>

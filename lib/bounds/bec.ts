@@ -15,9 +15,16 @@ export function becConverseLog(n: number, k: number, e: number): number {
   if (e === 0) return -Infinity; // no erasures: every code of rate <= 1 is decoded
   const B = binomial(n, e);
   const first = Math.floor(n - k) + 1;
-  // Each term is a binomial probability times 1 - 2^-(l-n+k): both log-concave in l.
-  const term = (l: number) => B.logPmf(l) + log1mExp((n - l - k) * LN2);
-  return Math.min(0, logSumConcave(term, first, n, Math.max(first, B.mode)));
+  if (!Number.isInteger(k)) {
+    // Each term is a binomial probability times 1 - 2^-(l-n+k): both log-concave in l.
+    const term = (l: number) => B.logPmf(l) + log1mExp((n - l - k) * LN2);
+    return Math.min(0, logSumConcave(term, first, n, Math.max(first, B.mode)));
+  }
+  // With whole k the sum splits as P[L >= first] - 2^(n-k) E[2^-L; L >= first], two walks by the
+  // term ratio; every factor 2^(n-k-l) is at most 1/2 there, so the difference loses at most one bit.
+  const tail = logBinomRange(B, first, n);
+  const weighted = logBinomSum(B, first, n, -LN2, (n * e) / (2 - e)) + (n - k) * LN2;
+  return Math.min(0, tail + log1mExp(Math.min(0, weighted - tail)));
 }
 
 /**

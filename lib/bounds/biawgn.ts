@@ -26,7 +26,8 @@ function softplus(x: number): number {
  */
 function gaussExpect(h: (z: number) => number, split: number, tol = TOL): number {
   const f = (z: number) => h(z) * INV_SQRT_2PI * Math.exp(-0.5 * z * z);
-  const c = Math.min(Z_MAX, Math.max(-Z_MAX, split));
+  // With no signal at all (Es/N0 so low that mu underflows to 0) the split is 0/0: any split will do.
+  const c = Number.isNaN(split) ? 0 : Math.min(Z_MAX, Math.max(-Z_MAX, split));
   return integrate(f, -Z_MAX, c, tol) + integrate(f, c, Z_MAX, tol);
 }
 

@@ -12,12 +12,19 @@ standard output, in the same order (bounds engine ${ENGINE_VERSION}).
 A claim:
   {"channel": {"model": "bsc", "p": 0.002} | {"model": "bec", "e": 0.05}
              | {"model": "biawgn", "ebn0Db": 2.0} | {"model": "biawgn", "esn0Db": -1.0}
-             | {"model": "bsc" | "biawgn", "ncgDb": 8.5},
-   "code": {"n": 1944, "k": 1620} | {"rate": 0.8333} | {"overhead": 0.07}  (n may accompany rate or overhead),
+             | {"model": "bsc" | "biawgn", "ncgDb": 8.5}
+             | {"model": "biawgn", "sensitivityDbm": -121.5, "bitRate": 1200,
+                "noiseFigureDb": 2, "assumedNoiseFigureDb": 4}
+               (bitRate: information bits per second; noise figures optional, default 0 dB),
+   "code": {"n": 1944, "k": 1620} | {"rate": 0.8333} | {"overhead": 0.07}  (n may accompany rate or overhead;
+           a rate with n is taken as the whole k = floor(n R))
+           | {"k": 160}  (a payload alone, BI-AWGN in ebn0Db or sensitivityDbm: energy checks only),
+           optional "modulation": "bpsk" | "qpsk" (BI-AWGN; default bpsk),
    "target": {"metric": "bler" | "ber", "value": 1e-6}}
 
 A result carries "verdict" (impossible, needs-evidence, plausible), "findings", bounds, thresholds
-and margins; see lib/bounds/schema.ts for every field.
+and margins, and for the BI-AWGN channel "spherePacking", "energy" and "implied" (Eb/N0 in dB);
+see lib/bounds/result.ts for every field.
 
 Lines that are empty or hold only white space are skipped and produce no output line.
 A line that is not valid JSON or not a valid claim produces {"error": "..."} naming the field

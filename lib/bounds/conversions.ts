@@ -1,6 +1,6 @@
 // Conversions of the trade between rates, overheads, SNRs, Q-factors and coding gains.
 import { dbToLinear, linearToDb } from "./channels";
-import { erfc, erfcinv, qFunc, qInv } from "./special";
+import { erfc, erfcinv, logQ, qFunc, qInv } from "./special";
 
 /** OH = n/k - 1, so R = 1 / (1 + OH). */
 export function overheadToRate(overhead: number): number {
@@ -47,8 +47,26 @@ export function netCodingGainDb(berIn: number, berOut: number, rate: number): nu
   return 20 * Math.log10(erfcinv(2 * berOut)) - 20 * Math.log10(erfcinv(2 * berIn)) + 10 * Math.log10(rate);
 }
 
+/** erfcinv(2 BER_in) for a claimed NCG at output BER berOut and rate R (the G.975.1 definition solved). */
+function ncgArgument(ncgDb: number, berOut: number, rate: number): number {
+  return erfcinv(2 * berOut) * 10 ** ((10 * Math.log10(rate) - ncgDb) / 20);
+}
+
 /** The raw BER a claimed NCG implies at output BER berOut and rate R (the G.975.1 definition solved for BER_in). */
 export function rawBerForNcg(ncgDb: number, berOut: number, rate: number): number {
-  const x = erfcinv(2 * berOut) * 10 ** ((10 * Math.log10(rate) - ncgDb) / 20);
-  return 0.5 * erfc(x);
+  return 0.5 * erfc(ncgArgument(ncgDb, berOut, rate));
+}
+
+/** ln of that raw BER, ln Q(sqrt(2) x), finite where the BER itself underflows. */
+export function logRawBerForNcg(ncgDb: number, berOut: number, rate: number): number {
+  return logQ(Math.SQRT2 * ncgArgument(ncgDb, berOut, rate));
+}
+
+/**
+ * Es/N0 (dB) of hard-decision BPSK at the raw BER a claimed NCG implies: Qinv(BER_in)^2 / 2 with
+ * Qinv(BER_in) = sqrt(2) erfcinv(2 BER_in), so Es/N0 = erfcinv(2 BER_in)^2, taken straight from the
+ * NCG so that it stays finite where the raw BER itself underflows to 0.
+ */
+export function esn0ForNcg(ncgDb: number, berOut: number, rate: number): number {
+  return 20 * Math.log10(ncgArgument(ncgDb, berOut, rate));
 }

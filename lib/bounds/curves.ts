@@ -3,7 +3,8 @@ import { bscConverseLog, bscRcuLog } from "./bsc";
 import { becAchievLog, becConverseLog } from "./bec";
 import { biawgnCapDisp, biawgnEsn0ForCapacity, esn0Where } from "./biawgn";
 import { bscCapacity, bscDispersion, becCapacity, becDispersion } from "./channels";
-import { ebn0ToEsn0 } from "./conversions";
+import { ebn0ToEsn0, esn0ToEbn0 } from "./conversions";
+import { spherePackingLog } from "./sphere";
 import { normalApproxLog2M, normalApproxLogBler, normalApproxRate } from "./normal";
 import { channelThreshold } from "./solve";
 import { h2inv, toLog10 } from "./special";
@@ -56,9 +57,15 @@ export function channelCurve({ model, n, k, points = 60, from, to }: ChannelCurv
       }, biawgnEsn0ForCapacity(rate)) - ebn0ToEsn0(0, rate);
     const lo = from ?? ebn0ForNormal(LN_HIGH) - 1;
     const hi = to ?? Math.max(lo + 1, ebn0ForNormal(LN_LOW) + 1);
+    // The converse is Shannon's 1959 bound (equal-energy codes: BPSK, Gray QPSK).
     return spaced(lo, hi, points, false).map((x) => {
       const cd = biawgnCapDisp(ebn0ToEsn0(x, rate));
-      return { x, converse: null, achievable: null, normal: toLog10(normalApproxLogBler(n, k, cd.capacity, cd.dispersion, true)) };
+      return {
+        x,
+        converse: toLog10(spherePackingLog(n, k, x)),
+        achievable: null,
+        normal: toLog10(normalApproxLogBler(n, k, cd.capacity, cd.dispersion, true)),
+      };
     });
   }
   const bsc = model === "bsc";
@@ -81,7 +88,7 @@ export function channelCurve({ model, n, k, points = 60, from, to }: ChannelCurv
 export interface RateCurvePoint {
   n: number;
   capacity: number;
-  /** Largest k/n the converse allows at the target BLER (null for the BI-AWGN channel). */
+  /** Largest k/n the converse allows at the target BLER (BI-AWGN: Shannon's 1959 bound at this Es/N0). */
   converseRate: number | null;
   /** Largest k/n the RCU (BSC) or Theorem 37 (BEC) bound guarantees (null for the BI-AWGN channel). */
   achievableRate: number | null;
@@ -144,7 +151,11 @@ export function rateCurve({ model, x, targetBler, nMin = 10, nMax = 100_000, poi
   const ns = [...new Set(spaced(nMin, nMax, points, true).map(Math.round))];
   return ns.map((n) => {
     const normalRate = normalApproxRate(n, cd.capacity, cd.dispersion, lnEps, model !== "bec");
-    if (model === "biawgn") return { n, capacity: cd.capacity, converseRate: null, achievableRate: null, normalRate };
+    if (model === "biawgn") {
+      // At a fixed Es/N0 the 1959 bound grows with k, so the largest k it allows is a bisection.
+      const ok = (k: number) => spherePackingLog(n, k, esn0ToEbn0(x, k / n)) <= lnEps;
+      return { n, capacity: cd.capacity, converseRate: largestK(n, ok, n * normalRate) / n, achievableRate: null, normalRate };
+    }
     const conv = model === "bsc" ? bscConverseLog : becConverseLog;
     const ach = model === "bsc" ? bscRcuLog : becAchievLog;
     const kc = largestK(n, (k) => conv(n, k, x) <= lnEps, n * normalRate);

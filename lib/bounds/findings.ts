@@ -1,6 +1,7 @@
 // The findings a verdict is built from: a code, a one-sentence message with the numbers, a source.
 import type { OperatingPoint } from "./resolve";
 import { fmtChannel, fmtCode, fmtRate, sci, sciLn } from "./format";
+import { logRawBerForNcg } from "./conversions";
 
 export type Severity = "violation" | "gap" | "support" | "info";
 export interface Finding {
@@ -58,8 +59,10 @@ export function achievabilityFinding(op: OperatingPoint, lnAch: number, perfect:
     : { code: "beyond-achievability", severity: "gap", message: `The claimed ${metricName(op)} ${sci(op.target)} beats what is guaranteed (${got}), so it needs a code better than a random one, and evidence.`, source };
 }
 
-export function normalFinding(op: OperatingPoint, lnBler: number, rate: number, deciding: boolean, ok: boolean): Finding {
+export function normalFinding(op: OperatingPoint, lnBler: number, rate: number, deciding: boolean, ok: boolean, unreliable: string | null = null): Finding {
   const text = `At n = ${op.n} the normal approximation expects BLER ${sciLn(lnBler)} at rate ${fmtRate(op.rate)} and a best rate of ${fmtRate(rate)} at ${metricName(op)} ${sci(op.target)}`;
+  if (unreliable)
+    return { code: "normal-approximation-unreliable", severity: "info", message: `${text} (an approximation, not a bound, and unreliable here since ${unreliable}).`, source: SOURCES.normal };
   if (!deciding)
     return { code: "normal-approximation", severity: "info", message: `${text} (an approximation, not a bound).`, source: SOURCES.normal };
   return ok
@@ -98,7 +101,7 @@ export function ncgFinding(op: OperatingPoint): Finding {
   return {
     code: "ncg-resolved",
     severity: "info",
-    message: `A net coding gain of ${(c.ncgDb as number).toFixed(2)} dB at output BER ${sci(op.target)} and rate ${fmtRate(op.rate)} implies a raw BER of ${sci(c.p as number)}${soft}.`,
+    message: `A net coding gain of ${(c.ncgDb as number).toFixed(2)} dB at output BER ${sci(op.target)} and rate ${fmtRate(op.rate)} implies a raw BER of ${sciLn(logRawBerForNcg(c.ncgDb as number, op.target, op.rate))}${soft}.`,
     source: SOURCES.ncg,
   };
 }

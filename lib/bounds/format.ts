@@ -5,6 +5,8 @@ import { LOG10E } from "./special";
 export function sciLn(lnValue: number): string {
   if (lnValue === -Infinity) return "0";
   const l10 = lnValue * LOG10E;
+  // Beyond a million decades the mantissa has no digits left in a double: give the power alone.
+  if (Math.abs(l10) >= 1e6) return `10^(${l10.toPrecision(4)})`;
   let e = Math.floor(l10);
   let m = 10 ** (l10 - e);
   if (Number(m.toFixed(1)) >= 10) {

@@ -1,5 +1,6 @@
 // The claim contract shared by the CLI and the HTTP API: zod schemas, inferred types, messages.
 import { z } from "zod";
+import { THERMAL_DBM_PER_HZ } from "./thermal";
 
 export const MAX_N = 10_000_000;
 
@@ -14,6 +15,9 @@ const P_RANGE = "a raw bit error rate from 0 to 0.5";
 const E_RANGE = "an erasure probability from 0 to below 1";
 const DB_RANGE = "dB from -50 to 50";
 const NCG_RANGE = "a net coding gain in dB from -20 to 40";
+const SENS_RANGE = "an input level in dBm from -250 to 30";
+const RB_RANGE = "an information bit rate in bit/s from 0.001 to 1e12";
+const NF_RANGE = "a noise figure in dB from 0 to 40";
 
 const channelSchema = z.discriminatedUnion(
   "model",
@@ -32,6 +36,10 @@ const channelSchema = z.discriminatedUnion(
       ebn0Db: num(DB_RANGE).min(-50, `must be at least -50 (${DB_RANGE})`).max(50, `must be at most 50 (${DB_RANGE})`).optional(),
       esn0Db: num(DB_RANGE).min(-50, `must be at least -50 (${DB_RANGE})`).max(50, `must be at most 50 (${DB_RANGE})`).optional(),
       ncgDb: num(NCG_RANGE).min(-20, `must be at least -20 (${NCG_RANGE})`).max(40, `must be at most 40 (${NCG_RANGE})`).optional(),
+      sensitivityDbm: num(SENS_RANGE).min(-250, `must be at least -250 (${SENS_RANGE})`).max(30, `must be at most 30 (${SENS_RANGE})`).optional(),
+      bitRate: num(RB_RANGE).gt(0, `must be above 0 (${RB_RANGE})`).min(1e-3, `must be at least 0.001 (${RB_RANGE})`).max(1e12, `must be at most 1e12 (${RB_RANGE})`).optional(),
+      noiseFigureDb: num(NF_RANGE).min(0, `must be at least 0 (${NF_RANGE})`).max(40, `must be at most 40 (${NF_RANGE})`).optional(),
+      assumedNoiseFigureDb: num(NF_RANGE).min(0, `must be at least 0 (${NF_RANGE})`).max(40, `must be at most 40 (${NF_RANGE})`).optional(),
     }),
   ],
   {
@@ -60,6 +68,7 @@ const codeSchema = z.object({
   k: num("an integer from 1 to n").int("must be an integer (from 1 to n)").min(1, "must be at least 1 (from 1 to n)").optional(),
   rate: num("a code rate above 0 and at most 1").gt(0, "must be above 0 (a code rate above 0 and at most 1)").max(1, "must be at most 1 (a code rate above 0 and at most 1)").optional(),
   overhead: num("an overhead n/k - 1 from 0 to 1000").min(0, "must be at least 0 (an overhead n/k - 1 from 0 to 1000)").max(1000, "must be at most 1000 (an overhead n/k - 1 from 0 to 1000)").optional(),
+  modulation: z.enum(["bpsk", "qpsk"], { error: () => 'must be "bpsk" or "qpsk" (Gray-mapped)' }).optional(),
 }, obj("n and k, or rate, or overhead"));
 
 const targetSchema = z.object({
@@ -72,15 +81,31 @@ export const claimSchema = z
   .superRefine((c, ctx) => {
     const ch = c.channel as Record<string, unknown>;
     const given = (keys: string[]) => keys.filter((key) => ch[key] !== undefined);
-    const wanted = c.channel.model === "bsc" ? ["p", "ncgDb"] : c.channel.model === "biawgn" ? ["ebn0Db", "esn0Db", "ncgDb"] : ["e"];
+    const wanted = c.channel.model === "bsc" ? ["p", "ncgDb"] : c.channel.model === "biawgn" ? ["ebn0Db", "esn0Db", "ncgDb", "sensitivityDbm"] : ["e"];
     if (given(wanted).length !== 1)
       ctx.addIssue({ code: "custom", path: ["channel", wanted[0]], message: `give exactly one of ${wanted.join(", ")}` });
+    const sensitivity = ch.sensitivityDbm !== undefined;
+    if (sensitivity && ch.bitRate === undefined)
+      ctx.addIssue({ code: "custom", path: ["channel", "bitRate"], message: `is required with sensitivityDbm (${RB_RANGE}: the payload bits per second)` });
+    if (sensitivity && typeof ch.bitRate === "number") {
+      const s = ch.sensitivityDbm as number;
+      const ebn0 = (nf: unknown) => s - THERMAL_DBM_PER_HZ - 10 * Math.log10(ch.bitRate as number) - ((nf as number | undefined) ?? 0);
+      if ([ebn0(ch.noiseFigureDb), ebn0(ch.assumedNoiseFigureDb)].some((x) => x < -100 || x > 100))
+        ctx.addIssue({ code: "custom", path: ["channel", "sensitivityDbm"], message: "with this bit rate and noise figure implies an Eb/N0 outside -100 to 100 dB; check the units (dBm, information bits per second)" });
+    }
+    for (const key of ["bitRate", "noiseFigureDb", "assumedNoiseFigureDb"])
+      if (!sensitivity && ch[key] !== undefined)
+        ctx.addIssue({ code: "custom", path: ["channel", key], message: "goes only with sensitivityDbm (a receiver sensitivity in dBm)" });
+    if (c.code.modulation !== undefined && c.channel.model !== "biawgn")
+      ctx.addIssue({ code: "custom", path: ["code", "modulation"], message: 'applies only to the "biawgn" channel' });
+    if (ch.ncgDb !== undefined && c.target.value >= 0.5)
+      ctx.addIssue({ code: "custom", path: ["target", "value"], message: "must be below 0.5 with a net coding gain (the coding gain is defined at an output BER below 0.5)" });
     const { n, k, rate, overhead } = c.code;
     const forms = [k !== undefined, rate !== undefined, overhead !== undefined].filter(Boolean).length;
     if (forms !== 1)
       ctx.addIssue({ code: "custom", path: ["code"], message: "give exactly one of k (with n), rate or overhead" });
-    else if (k !== undefined && n === undefined)
-      ctx.addIssue({ code: "custom", path: ["code", "n"], message: `is required with k (${N_RANGE})` });
+    else if (k !== undefined && n === undefined && !(ch.ebn0Db !== undefined || sensitivity))
+      ctx.addIssue({ code: "custom", path: ["code", "n"], message: `is required with k (${N_RANGE}), except for a BI-AWGN claim in ebn0Db or sensitivityDbm, where k alone is a payload` });
     else if (k !== undefined && n !== undefined && k > n)
       ctx.addIssue({ code: "custom", path: ["code", "k"], message: `must be at most n (${n})` });
     else if (n !== undefined && k === undefined) {
@@ -92,58 +117,7 @@ export const claimSchema = z
 
 export type ClaimInput = z.infer<typeof claimSchema>;
 
-const finding = z.object({
-  code: z.string(),
-  severity: z.enum(["violation", "gap", "support", "info"]),
-  message: z.string(),
-  source: z.string(),
-});
-const bound = z.object({ log10Bler: z.number(), bler: z.number() }).nullable();
-
-export const claimResultSchema = z.object({
-  verdict: z.enum(["impossible", "needs-evidence", "plausible"]),
-  findings: z.array(finding),
-  rate: z.number(),
-  capacity: z.number(),
-  converse: bound,
-  achievable: bound,
-  normal: z.object({ rate: z.number(), log10Bler: z.number(), bler: z.number() }).nullable(),
-  thresholds: z.object({
-    capacity: z.number(),
-    shannon: z.number(),
-    converse: z.number().nullable(),
-    achievable: z.number().nullable(),
-    normal: z.number().nullable(),
-    unit: z.enum(["p", "e", "ebn0Db", "esn0Db"]),
-  }),
-  margins: z.object({
-    rateGapBits: z.number().nullable(),
-    rateGapFraction: z.number().nullable(),
-    channelKind: z.enum(["ratio", "dB"]),
-    channel: z.object({
-      capacity: z.number().nullable(),
-      converse: z.number().nullable(),
-      achievable: z.number().nullable(),
-      normal: z.number().nullable(),
-    }),
-  }),
-  channel: z.object({
-    model: z.enum(["bsc", "bec", "biawgn"]),
-    p: z.number().optional(),
-    e: z.number().optional(),
-    esn0Db: z.number().optional(),
-    ebn0Db: z.number().optional(),
-    ncgDb: z.number().optional(),
-  }),
-  n: z.number().nullable(),
-  k: z.number().nullable(),
-  target: z.object({ metric: z.enum(["bler", "ber"]), value: z.number(), log10: z.number() }),
-  dispersion: z.number(),
-  gallager: z.object({ exponent: z.number(), log10Bler: z.number().nullable() }),
-  engineVersion: z.string(),
-});
-
-export type ClaimResult = z.infer<typeof claimResultSchema>;
+export { claimResultSchema, type ClaimResult } from "./result";
 
 /** One line naming each offending field, e.g. "code.k: must be at most n (1944)". */
 export function formatClaimError(error: z.ZodError): string {

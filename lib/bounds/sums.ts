@@ -131,8 +131,10 @@ export function logBinomRange(B: Binomial, a: number, b: number): number {
 export class BallVolumes {
   private readonly cache = new Map<number, number>();
   private readonly lgn: number;
+  private readonly half: Binomial;
   constructor(readonly n: number) {
     this.lgn = gammaln(n + 1);
+    this.half = binomial(n, 0.5);
   }
   logChoose = (t: number): number => {
     if (t < 0 || t > this.n) return -Infinity;
@@ -144,7 +146,8 @@ export class BallVolumes {
     if (L > this.n) return this.n * LN2;
     let v = this.cache.get(L);
     if (v === undefined) {
-      v = logSumConcave(this.logChoose, 0, L - 1, this.n / 2);
+      // sum_{t<L} C(n, t) = 2^n P[Binomial(n, 1/2) < L], walked by the term ratio
+      v = this.n * LN2 + logBinomSum(this.half, 0, L - 1);
       if (this.cache.size > 50_000) this.cache.clear();
       this.cache.set(L, v);
     }
@@ -196,4 +199,11 @@ export function ballVolumes(n: number): BallVolumes {
 /** Drops the cached ball-volume tables (for cold-start benchmarks, or to free memory). */
 export function clearBoundsCaches(): void {
   ballCache.clear();
+  for (const clear of cacheClearers) clear();
+}
+
+const cacheClearers: (() => void)[] = [];
+/** Lets another module's cache be dropped with the others by clearBoundsCaches. */
+export function onClearBoundsCaches(clear: () => void): void {
+  cacheClearers.push(clear);
 }

@@ -9,6 +9,9 @@ import { bscGallagerExponent, becGallagerExponent, biawgnGallagerExponent, galla
 import { claimThresholds, type Thresholds } from "./thresholds";
 import { logNumericSlack, toLog10 } from "./special";
 import { ENGINE_VERSION } from "./version";
+import { evaluatePayloadClaim } from "./payload";
+import { radioPreamble, radioWithCode, type RadioOutcome } from "./radio";
+import { wholeKFinding } from "./radio-findings";
 import * as F from "./findings";
 
 /** A claim within a relative 1e-9 of a bound gets the benefit of the doubt (specification, section 5). */
@@ -25,17 +28,26 @@ function gallager(op: OperatingPoint) {
 }
 
 /** Channel margins: threshold over claimed (p, e), or threshold minus claimed (dB). */
-function channelMargins(op: OperatingPoint, t: Thresholds) {
+function channelMargins(op: OperatingPoint, t: Thresholds, radio: RadioOutcome | null) {
   const db = op.model === "biawgn";
+  // A ratio over a subnormal claimed p or e can overflow: no margin is shown then, rather than infinity.
+  const finite = (x: number) => (Number.isFinite(x) ? x : null);
   const m = (th: number | null) =>
-    th === null ? null : db ? th - op.claimed : op.claimed > 0 ? th / op.claimed : null;
+    th === null ? null : db ? finite(th - op.claimed) : op.claimed > 0 ? finite(th / op.claimed) : null;
   return {
     channelKind: db ? ("dB" as const) : ("ratio" as const),
-    channel: { capacity: m(t.capacity), converse: m(t.converse), achievable: m(t.achievable), normal: m(t.normal) },
+    channel: {
+      capacity: m(t.capacity),
+      // BI-AWGN: the 1959 threshold minus the implied Eb/N0 (a difference of dB, the same in Es/N0)
+      converse: radio?.spThreshold != null && op.radio ? finite(radio.spThreshold - op.radio.ebn0Db) : m(t.converse),
+      achievable: m(t.achievable),
+      normal: m(t.normal),
+    },
   };
 }
 
 export function evaluateClaim(input: ClaimInput): ClaimResult {
+  if (input.code.n === undefined && input.code.k !== undefined) return evaluatePayloadClaim(input);
   const op = resolveClaim(input);
   const { n, k, rate, model } = op;
   const known = n !== null && k !== null;
@@ -46,6 +58,8 @@ export function evaluateClaim(input: ClaimInput): ClaimResult {
   const logAch = lnTarget;
   const tol = Math.log1p(BENEFIT) + (known ? logNumericSlack(n) : 0);
 
+  findings.push(...radioPreamble(op));
+  if (op.kFrom !== null) findings.push(wholeKFinding(op));
   if (op.channel.ncgDb !== undefined) findings.push(F.ncgFinding(op));
   if (op.metric === "ber") findings.push(F.berFinding(op));
   if (op.x === 0 && model !== "biawgn") findings.push(F.noiselessFinding(op));
@@ -60,13 +74,17 @@ export function evaluateClaim(input: ClaimInput): ClaimResult {
   let achievable: ClaimResult["achievable"] = null;
   let normal: ClaimResult["normal"] = null;
   let plausible = false;
+  let radio: RadioOutcome | null = null;
+  const exponent = gallager(op);
   if (known) {
     const lnNormal = normalApproxLogBler(n, k, op.capacity, op.dispersion, op.logTerm);
     const nRate = normalApproxRate(n, op.capacity, op.dispersion, logAch, op.logTerm);
     normal = { rate: nRate, ...bound(lnNormal) };
     if (model === "biawgn") {
-      plausible = lnNormal <= logAch + tol;
-      findings.push(F.normalFinding(op, lnNormal, nRate, true, plausible));
+      radio = radioWithCode(op, logConv, logAch, tol, exponent);
+      violated ||= radio.violated;
+      plausible = radio.plausible === true;
+      findings.push(F.normalFinding(op, lnNormal, nRate, false, false, radio.normalUnreliable), ...radio.findings);
     } else {
       const bsc = model === "bsc";
       const lnConv = bsc ? bscConverseLog(n, k, op.x) : becConverseLog(n, k, op.x);
@@ -83,12 +101,12 @@ export function evaluateClaim(input: ClaimInput): ClaimResult {
     }
   } else findings.push(F.asymptoticFinding(op));
 
-  const exponent = gallager(op);
   const lnGallager = known ? gallagerLogBler(n, exponent) : null;
   findings.push(F.gallagerFinding(op, exponent, lnGallager));
 
-  const thresholds = claimThresholds(op, logConv, logAch, op.target);
+  const thresholds = { ...claimThresholds(op, logConv, logAch, op.target), spherePacking: radio?.spThreshold ?? null };
   const gap = normal ? normal.rate - rate : null;
+  const energy = radio?.energy ?? null;
   return {
     verdict: violated ? "impossible" : plausible ? "plausible" : "needs-evidence",
     findings,
@@ -97,11 +115,14 @@ export function evaluateClaim(input: ClaimInput): ClaimResult {
     converse,
     achievable,
     normal,
+    spherePacking: radio?.spherePacking ?? null,
     thresholds,
+    energy,
+    implied: op.radio ? { ebn0Db: op.radio.ebn0Db } : null,
     margins: {
       rateGapBits: gap,
       rateGapFraction: gap !== null && normal && normal.rate > 0 ? gap / normal.rate : null,
-      ...channelMargins(op, thresholds),
+      ...channelMargins(op, thresholds, radio),
     },
     channel: op.channel,
     n,

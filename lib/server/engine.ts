@@ -10,12 +10,19 @@ const seconds = (ms: number) => `${ms / 1000} s`;
 /** A claim in a few words, so that an error can name it. */
 export function describeClaim({ channel, code, target }: ClaimInput): string {
   const db = (label: string, value: number) => `${label} ${value} dB`;
+  const soft = (): string => {
+    if (channel.model !== "biawgn") return "";
+    if (channel.sensitivityDbm !== undefined) return `BI-AWGN, sensitivity ${channel.sensitivityDbm} dBm at ${channel.bitRate} bit/s`;
+    if (channel.ebn0Db !== undefined) return `BI-AWGN, ${db("Eb/N0", channel.ebn0Db)}`;
+    if (channel.esn0Db !== undefined) return `BI-AWGN, ${db("Es/N0", channel.esn0Db)}`;
+    return `BI-AWGN, ${db("net coding gain", channel.ncgDb!)}`;
+  };
   const where =
     channel.model === "bec"
       ? `BEC e = ${channel.e}`
       : channel.model === "bsc"
         ? channel.p !== undefined ? `BSC p = ${channel.p}` : `BSC, ${db("net coding gain", channel.ncgDb!)}`
-        : `BI-AWGN, ${channel.ebn0Db !== undefined ? db("Eb/N0", channel.ebn0Db) : channel.esn0Db !== undefined ? db("Es/N0", channel.esn0Db) : db("net coding gain", channel.ncgDb!)}`;
+        : soft();
   const length = code.n !== undefined ? `n = ${code.n}` : null;
   const form = code.k !== undefined ? `k = ${code.k}` : code.rate !== undefined ? `rate ${code.rate}` : code.overhead !== undefined ? `overhead ${code.overhead}` : null;
   return `${where}; ${[length, form].filter(Boolean).join(", ")}; ${target.metric.toUpperCase()} ${target.value}`;

@@ -6,23 +6,63 @@ export const EXPLORER_DEFAULTS = {
   biawgn: { x: 2, n: 1944, k: 972 },
 } as const;
 
+/** A number from the address; an empty or non-numeric text gets the sentence given, not a validator's message. */
+const numberIn = (what: string) =>
+  z.preprocess((v) => (v === undefined || v === "" ? undefined : Number(v)), z.number({ error: `${what} must be a number` }).optional());
+
 /** The Bound explorer's view, as it lives in the URL's search parameters. */
 export const explorerSchema = z
   .object({
-    model: z.enum(["bsc", "bec", "biawgn"]).default("bsc"),
-    x: z.coerce.number().optional(),
-    n: z.coerce.number().int("n must be a whole number").min(2, "n must be at least 2").max(1_000_000, "n must be at most 1,000,000 here").optional(),
-    k: z.coerce.number().int("k must be a whole number").min(1, "k must be at least 1").optional(),
-    target: z.coerce.number().gt(0, "target must be above 0").lt(0.5, "target must be below 0.5").default(1e-4),
+    model: z.enum(["bsc", "bec", "biawgn"], { error: "the channel must be hard decision, erasures or soft decision" }).default("bsc"),
+    x: numberIn("the channel value"),
+    n: numberIn("the block length n"),
+    k: numberIn("the information bits k"),
+    target: numberIn("the target BLER"),
   })
   .transform((v) => {
     const d = EXPLORER_DEFAULTS[v.model];
-    return { model: v.model, x: v.x ?? d.x, n: v.n ?? d.n, k: v.k ?? d.k, target: v.target };
+    return { model: v.model, x: v.x ?? d.x, n: v.n ?? d.n, k: v.k ?? d.k, target: v.target ?? 1e-4 };
   })
   .superRefine((v, ctx) => {
-    if (v.k > v.n) ctx.addIssue({ code: "custom", path: ["k"], message: `k must be at most n (${v.n})` });
-    if (v.model === "bsc" && !(v.x > 0 && v.x <= 0.5)) ctx.addIssue({ code: "custom", path: ["x"], message: "p must be above 0 and at most 0.5" });
-    if (v.model === "bec" && !(v.x > 0 && v.x < 1)) ctx.addIssue({ code: "custom", path: ["x"], message: "e must be above 0 and below 1" });
-    if (v.model === "biawgn" && !(v.x >= -5 && v.x <= 20)) ctx.addIssue({ code: "custom", path: ["x"], message: "Eb/N0 must be from -5 to 20 dB" });
+    const issue = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
+    if (!Number.isInteger(v.n) || v.n < 2 || v.n > 1_000_000) issue("n", "the block length n must be a whole number of bits from 2 to 1,000,000");
+    else if (!Number.isInteger(v.k) || v.k < 1 || v.k > v.n) issue("k", `the information bits k must be a whole number from 1 to n (${v.n})`);
+    if (!(v.target > 0 && v.target < 0.5)) issue("target", "the target BLER must be above 0 and below 0.5");
+    if (v.model === "bsc" && !(v.x > 0 && v.x <= 0.5)) issue("x", "the raw BER p must be above 0 and at most 0.5");
+    if (v.model === "bec" && !(v.x > 0 && v.x < 1)) issue("x", "the erasure probability e must be above 0 and below 1");
+    if (v.model === "biawgn" && !(v.x >= -5 && v.x <= 20)) issue("x", "Eb/N0 must be from -5 to 20 dB");
   });
 export type ExplorerView = z.output<typeof explorerSchema>;
+
+/** The sensitivity calculator's inputs (from the address): a level in dBm or an Eb/N0, with what turns one into the other. */
+export const sensitivitySchema = z
+  .object({
+    level: numberIn("the input level"),
+    ebn0: numberIn("Eb/N0"),
+    rb: numberIn("the bit rate"),
+    nf: numberIn("the noise figure"),
+    payload: numberIn("the payload"),
+    per: numberIn("the target PER"),
+  })
+  .transform((v) => ({ level: v.level ?? (v.ebn0 === undefined ? -120 : undefined), ebn0: v.ebn0, rb: v.rb ?? 1200, nf: v.nf ?? 0, payload: v.payload ?? 160, per: v.per ?? 1e-2 }))
+  .superRefine((v, ctx) => {
+    const issue = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
+    if (v.level !== undefined && !(v.level >= -250 && v.level <= 30)) issue("level", "the input level must be from -250 to 30 dBm");
+    if (v.ebn0 !== undefined && !(v.ebn0 >= -50 && v.ebn0 <= 50)) issue("ebn0", "Eb/N0 must be from -50 to 50 dB");
+    if (v.level !== undefined && v.ebn0 !== undefined) issue("level", "give either the input level or Eb/N0, not both");
+    if (!(v.rb >= 1e-3 && v.rb <= 1e12)) issue("rb", "the information bit rate must be from 0.001 to 10^12 bit/s");
+    if (!(v.nf >= 0 && v.nf <= 40)) issue("nf", "the noise figure must be from 0 to 40 dB");
+    if (!Number.isInteger(v.payload) || v.payload < 1 || v.payload > 10_000_000) issue("payload", "the payload must be a whole number of bits from 1 to 10,000,000");
+    if (!(v.per > 0 && v.per < 0.5)) issue("per", "the target PER must be above 0 and below 0.5");
+  });
+export type SensitivityView = z.output<typeof sensitivitySchema>;
+
+/** The issues of a failed parse as sentences in words, one per field. */
+export function explorerIssues(error: z.ZodError): string[] {
+  return [...new Set(error.issues.map((i) => `${i.message[0].toUpperCase()}${i.message.slice(1)}.`))];
+}
+
+/** Search parameters as Next.js gives them to a page. */
+export type SearchParams = Record<string, string | string[] | undefined>;
+/** A search parameter's text: its first value, or "" when absent. */
+export const paramText = (v: string | string[] | undefined) => (Array.isArray(v) ? (v[0] ?? "") : (v ?? ""));

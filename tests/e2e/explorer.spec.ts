@@ -11,15 +11,33 @@ test("the Bound explorer keeps its view in the address and judges the point", as
   await expect(page.getByRole("figure", { name: "Best rate against block length" }).locator("svg").first()).toBeVisible();
 
   // A gentler code on the same channel: the form writes the new view into the address.
-  await page.getByLabel("k (bits)").fill("1024");
+  await page.getByLabel("k (bits)", { exact: true }).fill("1024");
   await page.getByRole("button", { name: "Show" }).click();
   await expect(page).toHaveURL(/k=1024/);
   await expect(page.getByRole("region", { name: "Verdict for this point" }).locator("[data-verdict]")).toHaveAttribute("data-verdict", "plausible");
   await expect(page.getByRole("note", { name: "Cautions" }).first()).toBeVisible();
 });
 
-test("a bad view in the address gets a message, not an error page", async ({ page }) => {
+test("a bad view in the address gets messages in words and no verdict, not an error page", async ({ page }) => {
   await signIn(page, ACCOUNTS.buyer);
   await page.goto("/explorer?model=bsc&x=0.9&n=100&k=200");
-  await expect(page.getByRole("alert").filter({ hasText: "k must be at most n" })).toBeVisible();
+  const alert = page.getByRole("alert").first();
+  await expect(alert).toContainText("The information bits k must be a whole number from 1 to n (100).");
+  await expect(alert).toContainText("The raw BER p must be above 0 and at most 0.5.");
+  await expect(page.getByRole("region", { name: "Verdict for this point" })).toHaveCount(0);
+  await expect(page.getByLabel("k (bits)", { exact: true })).toHaveValue("200"); // what was typed stays, to be corrected
+});
+
+test("the explorer draws the 1959 bound and converts a sensitivity, keeping both in the address", async ({ page }) => {
+  await signIn(page, ACCOUNTS.engineer);
+  await page.goto("/explorer?model=biawgn&x=1&n=1024&k=512&target=0.0001");
+  await expect(page.getByRole("region", { name: "Verdict for this point" }).locator("[data-verdict]")).toHaveAttribute("data-verdict", "impossible");
+  await expect(page.getByText("least possible BLER (1959 sphere packing)").first()).toBeVisible();
+  const calc = page.getByRole("region", { name: "Sensitivity calculator" });
+  await calc.getByLabel("Input level (dBm)").fill("-121.5");
+  await calc.getByLabel("Noise figure (dB)").fill("2");
+  await calc.getByRole("button", { name: "Convert" }).click();
+  await expect(page).toHaveURL(/level=-121\.5/);
+  await expect(page).toHaveURL(/k=512/);
+  await expect(calc.getByLabel("Sensitivity result")).toContainText("Eb/N0 = 19.68 dB");
 });

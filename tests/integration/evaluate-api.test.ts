@@ -65,4 +65,16 @@ describe("POST /api/v1/evaluate", () => {
     const signedOut = await call(honest, new Headers());
     expect(signedOut.status).toBe(401);
   });
+  it("judges a sensitivity claim with the radio fields, the same as the engine, and refuses bad radio input in its place", async () => {
+    const radio = { channel: { model: "biawgn", sensitivityDbm: -121.5, bitRate: 1200, noiseFigureDb: 2, assumedNoiseFigureDb: 4 }, code: { n: 1024, k: 512, modulation: "qpsk" }, target: { metric: "bler", value: 1e-4 } };
+    const response = await call(radio);
+    expect(response.status).toBe(200);
+    const result = await response.json();
+    expect(result).toEqual(JSON.parse(JSON.stringify(evaluateClaim(radio as never))));
+    expect(Object.keys(result)).toEqual(expect.arrayContaining(["spherePacking", "energy", "implied"]));
+    expect(result.thresholds.spherePacking).toBeCloseTo(1.0953, 4);
+    const bad = await call([radio, { ...radio, channel: { ...radio.channel, bitRate: -1 } }]);
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(await bad.json())).toMatch(/channel\.bitRate: must be above 0/);
+  });
 });

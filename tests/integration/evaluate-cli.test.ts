@@ -37,6 +37,13 @@ describe("evaluate CLI", () => {
     expect(out[5].converse.log10Bler).toBeLessThan(0);
   });
 
+  it("answers the claim that once never returned (BI-AWGN, NCG -20 dB, n = 2048, rate 1/2, BLER 1e-10)", () => {
+    const claim = { channel: { model: "biawgn", ncgDb: -20 }, code: { n: 2048, rate: 0.5 }, target: { metric: "bler", value: 1e-10 } };
+    const r = run(`${JSON.stringify(claim)}\n`);
+    expect(r.status).toBe(0);
+    expect(JSON.parse(r.stdout).verdict).toBe("plausible");
+  });
+
   it("prints usage with --help and exits 0", () => {
     const r = run("", ["--help"]);
     expect(r.status).toBe(0);

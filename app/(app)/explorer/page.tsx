@@ -6,22 +6,29 @@ import { formatSci } from "@/lib/format";
 import { boundCharts } from "@/lib/server/engine";
 import { pageViewer, orPage } from "@/lib/server/pages";
 import { authorize } from "@/lib/server/session";
-import { describeZodError } from "@/lib/validation/messages";
-import { EXPLORER_DEFAULTS, explorerSchema } from "@/lib/validation/explorer";
-import { ExplorerForm } from "./_components/explorer-form";
+import { EXPLORER_DEFAULTS, explorerIssues, explorerSchema, paramText, type SearchParams } from "@/lib/validation/explorer";
+import { ExplorerForm, type ExplorerFormValues } from "./_components/explorer-form";
+import { SensitivityPanel } from "./_components/sensitivity-panel";
 import { ClaimFindings, ClaimNumbers } from "@/app/_components/claim-numbers";
 
 export const metadata: Metadata = { title: "Bound explorer" };
 
-export default async function ExplorerPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+
+/** The form keeps what was typed; empty fields show the channel's defaults. */
+function formValues(raw: SearchParams): ExplorerFormValues {
+  const model = (["bsc", "bec", "biawgn"] as const).find((m) => m === paramText(raw.model)) ?? "bsc";
+  const d = EXPLORER_DEFAULTS[model];
+  const or = (v: string, fallback: number) => (v === "" ? String(fallback) : v);
+  return { model, x: or(paramText(raw.x), d.x), n: or(paramText(raw.n), d.n), k: or(paramText(raw.k), d.k), target: or(paramText(raw.target), 1e-4) };
+}
+
+export default async function ExplorerPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
   const viewer = await pageViewer();
   await orPage(Promise.resolve().then(() => authorize(viewer, "use", "Bounds")));
   const raw = await searchParams;
   const parsed = explorerSchema.safeParse(raw);
-  const view = parsed.success
-    ? parsed.data
-    : { model: "bsc" as const, ...EXPLORER_DEFAULTS.bsc, target: 1e-4 };
-  const { charts, refusal } = await boundCharts(view);
+  const view = parsed.success ? parsed.data : null;
+  const { charts, refusal } = view ? await boundCharts(view) : { charts: undefined, refusal: undefined };
   return (
     <div className="space-y-5">
       <div>
@@ -31,22 +38,25 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
           code is guaranteed to reach, and the normal approximation. The view lives in the address: copy it to share.
         </p>
       </div>
+      <ExplorerForm view={formValues(raw)} />
       {!parsed.success ? (
-        <p role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
-          {describeZodError(parsed.error)}. Showing the default view instead.
-        </p>
+        <div role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
+          <p>This view cannot be judged until these are corrected:</p>
+          <ul className="list-disc pl-5">
+            {explorerIssues(parsed.error).map((m) => <li key={m}>{m}</li>)}
+          </ul>
+        </div>
       ) : null}
-      <ExplorerForm view={view} />
       {refusal !== undefined ? (
         <p role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">{refusal}</p>
       ) : null}
-      {charts ? (
+      {charts && view ? (
         <>
           <section className="panel space-y-2" aria-label="Verdict for this point">
             <div className="flex flex-wrap items-center gap-3">
               <VerdictBadge verdict={charts.result.verdict} />
               <span className="text-sm">
-                Rate {charts.result.rate.toFixed(4)} bits per channel use, capacity {charts.result.capacity.toFixed(4)}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
+                Rate {charts.result.rate?.toFixed(4) ?? "–"} bits per channel use, capacity {charts.result.capacity?.toFixed(4) ?? "–"}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
               </span>
             </div>
           </section>
@@ -58,6 +68,7 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
           <ClaimNumbers result={charts.result} />
         </>
       ) : null}
+      <SensitivityPanel raw={raw} />
       <Cautions />
     </div>
   );

@@ -90,12 +90,15 @@ describe("chart series (Bound explorer)", () => {
     }
     const awgn = channelCurve({ model: "biawgn", n: 64800, k: 32400, points: 40 });
     expect(awgn.length).toBe(40);
-    expect(awgn.every((pt) => pt.converse === null && Number.isFinite(pt.normal))).toBe(true);
+    // the BI-AWGN converse is Shannon's 1959 bound, below the normal approximation where that is moderate
+    expect(awgn.every((pt) => pt.achievable === null && Number.isFinite(pt.normal) && pt.converse !== null)).toBe(true);
+    for (const pt of awgn) if (pt.normal > -9 && pt.normal < -0.3) expect(pt.converse!).toBeLessThanOrEqual(pt.normal);
   });
-  it("best rate against n for the BI-AWGN channel has only the normal approximation", () => {
+  it("best rate against n for the BI-AWGN channel: the 1959 bound's rate above the normal approximation's, and only the unconstrained AWGN caps it", () => {
     const pts = rateCurve({ model: "biawgn", x: 0, targetBler: 1e-5 });
     expect(pts[0].n).toBe(10);
     expect(pts[pts.length - 1].n).toBe(100_000);
-    expect(pts.every((pt) => pt.converseRate === null && pt.normalRate <= pt.capacity)).toBe(true);
+    // equal-energy codes need not be binary: their ceiling is the unconstrained AWGN, 1/2 log2(1 + 2 Es/N0) = 0.79 at 0 dB
+    expect(pts.every((pt) => pt.achievableRate === null && pt.normalRate <= pt.capacity && pt.converseRate! >= pt.normalRate && pt.converseRate! <= 0.7925)).toBe(true);
   });
 });

@@ -94,12 +94,22 @@ describe("claims without n, k or with a derived k", () => {
   it("overhead-only: R = 1 / (1 + OH)", () => {
     expect(bsc(0.002, { overhead: 0.07 }).rate).toBeCloseTo(1 / 1.07, 15);
   });
-  it("k missing: n with a rate gives k = n R", () => {
+  it("k missing: n with a rate gives the whole k = floor(n R), and says so", () => {
     const r = bsc(0.002, { n: 64800, rate: 5 / 6 });
     expect(r.k).toBe(54000);
+    expect(codes(r)).not.toContain("whole-k");
     expect(r.converse).not.toBeNull();
-    const real = bsc(0.002, { n: 1944, rate: 0.8333 });
-    expect(real.k).toBeCloseTo(1944 * 0.8333, 9); // log2 M need not be an integer (PPV)
+    const real = bsc(0.002, { n: 1944, rate: 0.8333 }); // n R = 1619.94
+    expect(real.k).toBe(1619);
+    expect(real.rate).toBe(1619 / 1944);
+    expect(real.findings.find((f) => f.code === "whole-k")!.message).toMatch(/1619\.94 information bits, so k = 1619 is used \(rounded down/);
+  });
+  it("rounding k down never makes a claim impossible that the fractional k allowed", () => {
+    // BLER bounds grow with k, so floor(n R) can only move a verdict away from impossible
+    const n = 2048;
+    const p = 0.0125;
+    const fractional = bscConverseLog(n, 2048 * 0.95, p);
+    expect(bscConverseLog(n, 1945, p)).toBeLessThanOrEqual(fractional);
   });
 });
 

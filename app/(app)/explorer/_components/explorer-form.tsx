@@ -1,20 +1,34 @@
 "use client";
 
-import { useRouter } from "next/navigation";
+import { useRouter, useSearchParams } from "next/navigation";
 import { useState, useTransition } from "react";
 import { EXPLORER_DEFAULTS, type ExplorerView } from "@/lib/validation/explorer";
+
+/** The form's texts: an invalid view keeps what was typed, so it can be corrected. */
+export interface ExplorerFormValues {
+  model: ExplorerView["model"];
+  x: string;
+  n: string;
+  k: string;
+  target: string;
+}
 
 const PARAMETER = { bsc: "Raw BER p", bec: "Erasure probability e", biawgn: "Eb/N0 (dB)" } as const;
 
 /** The explorer's inputs; applying them writes the view into the address so it can be shared. */
-export function ExplorerForm({ view }: { view: ExplorerView }) {
+export function ExplorerForm({ view }: { view: ExplorerFormValues }) {
   const router = useRouter();
   const [pending, startTransition] = useTransition();
   const [model, setModel] = useState(view.model);
-  const [values, setValues] = useState({ x: String(view.x), n: String(view.n), k: String(view.k), target: String(view.target) });
+  const [values, setValues] = useState({ x: view.x, n: view.n, k: view.k, target: view.target });
   const set = (key: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement>) => setValues({ ...values, [key]: e.target.value });
-  const apply = (next = values, nextModel = model) =>
-    startTransition(() => router.push(`/explorer?${new URLSearchParams({ model: nextModel, ...next }).toString()}`, { scroll: false }));
+  const params = useSearchParams();
+  // The explorer's own keys are replaced; others (the sensitivity calculator's) stay in the address.
+  const apply = (next = values, nextModel = model) => {
+    const query = new URLSearchParams(params.toString());
+    for (const [key, value] of Object.entries({ model: nextModel, ...next })) query.set(key, value);
+    startTransition(() => router.push(`/explorer?${query.toString()}`, { scroll: false }));
+  };
 
   return (
     <form
