@@ -80,7 +80,9 @@ test("a buyer drafts a tender with two operating points, invites two vendors and
 test("a buyer cannot cancel without a reason, and cancels a draft with one", async ({ page }) => {
   await signIn(page, ACCOUNTS.buyer);
   // A draft of its own through the API (the session cookie is shared), so the demo data stays as it is.
+  // Like a browser, the write names its origin: signed-in writes from elsewhere are refused.
   const created = await page.request.post("/api/v1/tenders", {
+    headers: { origin: new URL(page.url()).origin },
     data: {
       title: "Pump-house radios (to be cancelled)",
       channelModel: "biawgn",
