@@ -16,8 +16,10 @@ export interface Viewer {
 
 /** Who is asking, with roles and declarations read from the database on every request. */
 export async function getViewer(requestHeaders?: Headers): Promise<Viewer | null> {
-  const auth = await getAuth();
+  // The request's headers first: a page the build tries to prerender stops here, before it would
+  // open the database (and hold the data folder that the server will need).
   const h = requestHeaders ?? (await nextHeaders());
+  const auth = await getAuth();
   const session = await auth.api.getSession({ headers: h });
   if (!session) return null;
   const db = await getDb();
