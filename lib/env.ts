@@ -46,6 +46,8 @@ const envSchema = z.object({
    * How many reverse proxies in front of the app append to X-Forwarded-For. 0 (the default): the
    * header is not trusted at all, since any client can send it; see lib/server/client-address.ts.
    */
+  /** Sign-in attempts per client address and minute (the browser journeys, all from one address, raise it). */
+  SIGN_IN_ATTEMPTS_PER_MINUTE: optional(z.coerce.number().int().min(1).max(100_000)).transform((v) => v ?? 20),
   TRUST_PROXY_HOPS: optional(z.coerce.number().int().min(0).max(10)).transform((v) => v ?? 0),
   /** Read by the Next.js build and the starter, never by the app; listed so that typos show. */
   NEXT_PHASE: optional(z.string()),

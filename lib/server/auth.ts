@@ -10,7 +10,7 @@ import { accounts, sessions, users, verifications } from "@/db/schema";
 import { eq } from "drizzle-orm";
 import { trustedOrigins } from "./origin";
 import { signInGuard } from "./sign-in-guard";
-import { AUTH_RATE, consumeRate, SIGN_IN_RATE } from "./throttle";
+import { AUTH_RATE, consumeRate, signInRate } from "./throttle";
 
 /** Set by the auth route handler from the trusted client address (lib/server/client-address.ts); a client's own value is dropped. */
 export const CLIENT_ADDRESS_HEADER = "x-ratecourt-client-address";
@@ -52,7 +52,7 @@ function createAuth(db: Db) {
     rateLimit: {
       enabled: true,
       ...AUTH_RATE,
-      customRules: { "/sign-in/email": SIGN_IN_RATE },
+      customRules: { "/sign-in/email": signInRate() },
       customStorage: { consume: consumeRate },
     },
     advanced: {

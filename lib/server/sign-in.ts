@@ -4,7 +4,7 @@ import type { SignInInput } from "@/lib/validation/auth";
 import { getAuth } from "./auth";
 import { clientAddress } from "./client-address";
 import { ForbiddenError, InputError, TooManyError } from "./errors";
-import { consumeRate, SIGN_IN_RATE } from "./throttle";
+import { consumeRate, signInRate } from "./throttle";
 
 const WRONG = "Wrong e-mail or password.";
 const TOO_FAST = "Too many sign-in attempts from this address. Wait a minute and try again.";
@@ -16,7 +16,7 @@ const TOO_FAST = "Too many sign-in attempts from this address. Wait a minute and
  * better-auth's rate limiter.
  */
 export async function signIn(input: SignInInput, headers: Headers): Promise<void> {
-  const rate = await consumeRate(`sign-in-form|${clientAddress(headers)}`, SIGN_IN_RATE);
+  const rate = await consumeRate(`sign-in-form|${clientAddress(headers)}`, signInRate());
   if (!rate.allowed) throw new TooManyError(TOO_FAST);
   const auth = await getAuth();
   try {

@@ -1,6 +1,7 @@
 import "server-only";
 import { lt, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
+import { env } from "@/lib/env";
 import { rateLimits } from "@/db/schema";
 
 export interface RateRule {
@@ -10,7 +11,7 @@ export interface RateRule {
 }
 
 /** Sign-in attempts per client address, on the auth endpoint and on the sign-in form alike. */
-export const SIGN_IN_RATE: RateRule = { window: 60, max: 20 };
+export const signInRate = (): RateRule => ({ window: 60, max: env().SIGN_IN_ATTEMPTS_PER_MINUTE });
 /** Every other auth endpoint, per client address. */
 export const AUTH_RATE: RateRule = { window: 60, max: 100 };
 

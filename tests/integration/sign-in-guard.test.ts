@@ -7,7 +7,7 @@ import { resetEnvForTests } from "@/lib/env";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { signIn } from "@/lib/server/sign-in";
 import { recordFailure, SIGN_IN_MAX_FAILURES, SIGN_IN_MAX_UNTRUSTED_FAILURES } from "@/lib/server/sign-in-guard";
-import { SIGN_IN_RATE } from "@/lib/server/throttle";
+import { signInRate } from "@/lib/server/throttle";
 import { BASE, closeDb, freshDatabase } from "../support/app";
 
 let db: Db;
@@ -135,21 +135,21 @@ describe("per-address throttling", () => {
     behindProxy("1");
     const proxySaw = freshAddress();
     const statuses: number[] = [];
-    for (let i = 0; i <= SIGN_IN_RATE.max; i++) {
+    for (let i = 0; i <= signInRate().max; i++) {
       // The client sends its own invented X-Forwarded-For; the proxy appends the address it saw.
       statuses.push((await endpointSignIn(`spray-${i}@nowhere.example`, "whatever-1", { forwarded: `203.0.113.${i}, ${proxySaw}` })).status);
     }
-    expect(statuses.filter((s) => s === 401)).toHaveLength(SIGN_IN_RATE.max);
+    expect(statuses.filter((s) => s === 401)).toHaveLength(signInRate().max);
     expect(statuses.at(-1)).toBe(429);
   });
 
   it("without a configured proxy, rotating X-Forwarded-For gives no fresh tries, on the endpoint and on the form", async () => {
     const statuses: number[] = [];
-    for (let i = 0; i <= SIGN_IN_RATE.max; i++) {
+    for (let i = 0; i <= signInRate().max; i++) {
       statuses.push((await endpointSignIn(`rotate-${i}@nowhere.example`, "whatever-1", { forwarded: `192.0.2.${i}` })).status);
     }
     expect(statuses.at(-1)).toBe(429);
-    for (let i = 0; i < SIGN_IN_RATE.max; i++) {
+    for (let i = 0; i < signInRate().max; i++) {
       await expect(signIn({ email: `form-${i}@nowhere.example`, password: "whatever-1" }, formHeaders(`192.0.2.${100 + i}`))).rejects.toThrow();
     }
     await expect(signIn({ email: "form-last@nowhere.example", password: "whatever-1" }, formHeaders("192.0.2.250"))).rejects.toThrow(
