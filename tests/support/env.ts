@@ -13,3 +13,17 @@ export function setEnv(vars: Record<string, string | undefined>): () => void {
   apply(vars);
   return () => apply(before);
 }
+
+/** Every setting a production start needs, with invented values (lib/env.ts productionProblems). */
+export const PRODUCTION_SETTINGS = {
+  NODE_ENV: "production",
+  BETTER_AUTH_SECRET: "s".repeat(32),
+  BETTER_AUTH_URL: "https://ratecourt.example.org",
+  LEDGER_KEY: "k".repeat(32),
+  SMTP_URL: "smtp://mail.example.org:25",
+  MAIL_FROM: "rc@example.org",
+  S3_ENDPOINT: "https://objects.example.org",
+  S3_BUCKET: "ratecourt",
+  S3_ACCESS_KEY_ID: "key",
+  S3_SECRET_ACCESS_KEY: "secret",
+} as const;

@@ -1,19 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { demoMarkerFor } from "@/app/_components/demo-marker";
 import { parseEnv } from "@/lib/env";
+import { PRODUCTION_SETTINGS } from "../../support/env";
 
-const production = {
-  NODE_ENV: "production",
-  BETTER_AUTH_SECRET: "s".repeat(32),
-  BETTER_AUTH_URL: "https://ratecourt.example.org",
-  LEDGER_KEY: "k".repeat(32),
-  SMTP_URL: "smtp://mail.example.org:25",
-  MAIL_FROM: "rc@example.org",
-  S3_ENDPOINT: "https://objects.example.org",
-  S3_BUCKET: "ratecourt",
-  S3_ACCESS_KEY_ID: "key",
-  S3_SECRET_ACCESS_KEY: "secret",
-};
+const production = PRODUCTION_SETTINGS;
 
 describe("the demo marker", () => {
   it("shows in development and tests", () => {

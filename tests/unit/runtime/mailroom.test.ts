@@ -1,19 +1,8 @@
 import { afterEach, describe, expect, it } from "vitest";
 import { mailroomEnabled } from "@/lib/server/services";
-import { setEnv } from "../../support/env";
+import { PRODUCTION_SETTINGS, setEnv } from "../../support/env";
 
-const production = {
-  NODE_ENV: "production",
-  BETTER_AUTH_SECRET: "s".repeat(32),
-  BETTER_AUTH_URL: "https://ratecourt.example.org",
-  LEDGER_KEY: "k".repeat(32),
-  SMTP_URL: "smtp://mail.example.org:25",
-  MAIL_FROM: "rc@example.org",
-  S3_ENDPOINT: "https://objects.example.org",
-  S3_BUCKET: "ratecourt",
-  S3_ACCESS_KEY_ID: "key",
-  S3_SECRET_ACCESS_KEY: "secret",
-};
+const production = PRODUCTION_SETTINGS;
 
 let restore = () => {};
 afterEach(() => restore());
