@@ -11,8 +11,12 @@ export async function pageAs(browser: Browser, email: string): Promise<Page> {
   return page;
 }
 
+/** The app's own address (playwright.config.ts): signed-in writes through the API must name it as their Origin. */
+const ORIGIN = `http://localhost:${process.env.E2E_PORT ?? 3100}`;
+
 export async function json(api: APIRequestContext, method: "get" | "post", url: string, data?: unknown) {
-  const response = await api[method](url, data === undefined ? {} : { data });
+  const headers = method === "get" ? {} : { origin: ORIGIN };
+  const response = await api[method](url, data === undefined ? { headers } : { data, headers });
   return { status: response.status(), body: await response.json().catch(() => null) };
 }
 
