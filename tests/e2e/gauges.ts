@@ -15,7 +15,7 @@ export async function pageAs(browser: Browser, email: string): Promise<Page> {
 const ORIGIN = `http://localhost:${process.env.E2E_PORT ?? 3100}`;
 
 export async function json(api: APIRequestContext, method: "get" | "post", url: string, data?: unknown) {
-  const headers = method === "get" ? {} : { origin: ORIGIN };
+  const headers: Record<string, string> = method === "get" ? {} : { origin: ORIGIN };
   const response = await api[method](url, data === undefined ? { headers } : { data, headers });
   return { status: response.status(), body: await response.json().catch(() => null) };
 }
