@@ -20,7 +20,7 @@ test("Memo check names the ledger head the memo was issued at, still in the veri
   await expect(page.getByRole("status", { name: "Chain check" })).toContainText(/Chain verified through entry #\d+ \(\d+ new entries checked just now\)/);
 
   await page.goto("/memo-check");
-  await page.getByLabel(/fingerprint/i).fill(fingerprint);
+  await page.getByLabel("SHA-256 fingerprint", { exact: true }).fill(fingerprint);
   await page.getByRole("button", { name: /Check the fingerprint/i }).click();
   await expect(page.getByLabel("Ledger head")).toContainText(/Issued at ledger entry #\d+, hash [0-9a-f]{12}\. Entry #\d+ is in the ledger with the same hash/);
 });
