@@ -149,3 +149,19 @@ test("the award and regret notices are in the Mailroom", async ({ page }) => {
   for (const text of await regrets.allTextContents()) expect(text).not.toMatch(/€/);
   await expect(page.getByRole("listitem", { name: new RegExp(`Mail: ${REFERENCE}: recommendation returned by Tomas Veld`) })).toHaveCount(1);
 });
+
+test("a losing vendor objects during the standstill period, and the buyer reads it on the Notices tab", async ({ browser }) => {
+  const vendor = await as(browser, ACCOUNTS.oxbow);
+  await vendor.goto(`/tenders/${tenderId}/notices`);
+  const standstill = vendor.getByRole("region", { name: "Standstill and objections" });
+  await expect(standstill).toContainText("standstill period of 10 days");
+  await standstill.getByLabel("Your objection, in writing").fill("Our lead time was scored against the wrong delivery date; please review it.");
+  await standstill.getByRole("button", { name: "Lodge the objection" }).click();
+  await expect(vendor.getByRole("status").filter({ hasText: "Objection lodged" })).toBeVisible();
+
+  const buyer = await as(browser, ACCOUNTS.buyer);
+  await buyer.goto(`/tenders/${tenderId}/notices`);
+  const seen = buyer.getByRole("region", { name: "Standstill and objections" });
+  await expect(seen).toContainText("Oxbow Wireless");
+  await expect(seen).toContainText("scored against the wrong delivery date");
+});

@@ -2,6 +2,7 @@ import { expect, test } from "@playwright/test";
 import { ACCOUNTS, nav, signIn, signOut, confirmStep } from "./helpers";
 
 // A buyer drafts a tender, invites two vendors and opens it; the invitations reach the Mailroom.
+let tenderPath = "";
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
 test("a buyer drafts a tender with two operating points, invites two vendors and opens it", async ({ page }) => {
@@ -30,6 +31,7 @@ test("a buyer drafts a tender with two operating points, invites two vendors and
   await form.getByRole("button", { name: "Create draft" }).click();
 
   await expect(page).toHaveURL(/\/tenders\/[0-9a-f-]{36}$/);
+  tenderPath = new URL(page.url()).pathname;
   await expect(page.getByRole("heading", { name: title, level: 1 })).toBeVisible();
   const reference = (await page.getByText(/^RC-\d{4}-\d{3}$/).textContent())!.trim();
   const requirements = page.getByRole("region", { name: "Requirements" });
@@ -74,6 +76,25 @@ test("a buyer drafts a tender with two operating points, invites two vendors and
   await expect(invitations.filter({ hasText: ACCOUNTS.kestrelink })).toHaveCount(1);
   await expect(invitations.filter({ hasText: ACCOUNTS.oxbow })).toHaveCount(1);
   await expect(invitations.first()).toContainText("(Europe/Berlin)");
+  await signOut(page);
+});
+
+test("the buyer publishes an addendum; an invited vendor acknowledges it before submitting", async ({ page }) => {
+  await signIn(page, ACCOUNTS.buyer);
+  await page.goto(`${tenderPath}/notices`);
+  const form = page.getByRole("form", { name: "Publish an addendum" });
+  await form.getByLabel("Title").fill("Antenna height");
+  await form.getByLabel(/Addendum \(do not name/).fill("Antennas sit 4 m above the gate; quote cables for that run.");
+  await form.getByRole("button", { name: "Publish to every invited vendor" }).click();
+  await expect(page.getByRole("status").filter({ hasText: "Addendum published" })).toBeVisible();
+  await signOut(page);
+
+  await signIn(page, ACCOUNTS.oxbow);
+  await page.goto(`${tenderPath}/notices`);
+  const addenda = page.getByRole("region", { name: "Addenda" });
+  await expect(addenda).toContainText("Addendum 1: Antenna height");
+  await addenda.getByRole("button", { name: "Acknowledge addendum 1" }).click();
+  await expect(addenda.getByText(/^Acknowledged/)).toBeVisible();
   await signOut(page);
 });
 
