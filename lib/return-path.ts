@@ -14,6 +14,7 @@ const PROBE = "http://ratecourt.invalid";
  */
 export function safeReturnPath(next: unknown): string {
   if (typeof next !== "string" || next.length === 0 || next.length > 2000) return DESK_PATH;
+  // oxlint-disable-next-line no-control-regex -- control characters are what this refuses
   if (!next.startsWith("/") || next.startsWith("//") || /[\\\u0000-\u001f\u007f]/.test(next)) return DESK_PATH;
   let url: URL;
   try {

@@ -119,5 +119,5 @@ export function queueMail(message: MailMessage, retry: Partial<RetryPolicy> = {}
 /** Waits until every queued notice was sent or given up on, including ones queued meanwhile. */
 export async function flushMail(): Promise<void> {
   const { pending } = state();
-  while (pending.size > 0) await Promise.all([...pending]);
+  while (pending.size > 0) await Promise.all(pending);
 }

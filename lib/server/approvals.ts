@@ -11,7 +11,7 @@ import { approvalRefusal, decisionProblem, isFullyApproved } from "@/lib/approva
 import { rankedCount, standingsOf } from "@/lib/approvals/score-sheet";
 import { formatMoney } from "@/lib/format";
 import type { DecisionInput } from "@/lib/validation/approvals";
-import { eligibleApprovers, ruleFor, storedRule } from "./approval-coverage";
+import { ruleFor, storedRule } from "./approval-coverage";
 import { ConflictError, ForbiddenError } from "./errors";
 import { appendLedger } from "./ledger";
 import { approvalsGiven, issueMemo, type MemoRow } from "./memos";

@@ -2,6 +2,7 @@
 // surrogates (they have no UTF-8 form). Checked once where input enters: JSON bodies, form values,
 // URL parameters.
 
+// oxlint-disable-next-line no-control-regex -- NUL is what this refuses
 const BAD = /\u0000|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
 
 export const BAD_TEXT_MESSAGE = "contains a NUL character or a broken Unicode character; remove it and send the text again.";

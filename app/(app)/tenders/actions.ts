@@ -26,7 +26,7 @@ export async function updateTenderAction(tenderId: string, values: unknown): Pro
 }
 
 export async function openTenderAction(tenderId: string): Promise<TenderFormResult> {
-  const outcome = await attemptForm(nothing, undefined, (viewer, _) => openTender(viewer, String(tenderId)));
+  const outcome = await attemptForm(nothing, undefined, (viewer) => openTender(viewer, String(tenderId)));
   if (!outcome.ok) return outcome.result;
   revalidatePath(`/tenders/${tenderId}`, "layout");
   return { ok: true, message: "Tender opened; the invited vendors have been e-mailed." };

@@ -155,7 +155,10 @@ describe("the tender's rule for confirmed impossible claims", () => {
     expect(cheap.lines.every((l) => l.normalised === null && l.contribution === null)).toBe(true);
     expect(cheap.total).toBeNull();
     expect(cheap.totalPrice).toBe(500);
-    for (const o of sheet.offers) for (const l of o.lines) if (l.normalised !== null) expect(l.normalised).toBeGreaterThanOrEqual(0), expect(l.normalised).toBeLessThanOrEqual(100);
+    for (const o of sheet.offers) for (const l of o.lines) if (l.normalised !== null) {
+      expect(l.normalised).toBeGreaterThanOrEqual(0);
+      expect(l.normalised).toBeLessThanOrEqual(100);
+    }
   });
 
   it("flags an acceptance that overrides the engine's impossible verdict", () => {

@@ -20,7 +20,7 @@ export function BandsTable({ bands, editable }: { bands: BandRow[]; editable: bo
     <div className="space-y-3">
       <table className="data-table" aria-label="Value bands">
         <thead>
-          <tr><th>Currency</th><th className="text-right">From (inclusive)</th><th className="text-right">Up to (exclusive)</th><th className="text-right">Approvals needed</th><th className="text-right">Least approver limit</th>{editable ? <th /> : null}</tr>
+          <tr><th>Currency</th><th className="text-right">From (inclusive)</th><th className="text-right">Up to (exclusive)</th><th className="text-right">Approvals needed</th><th className="text-right">Least approver limit</th>{editable ? <th><span className="sr-only">Change</span></th> : null}</tr>
         </thead>
         <tbody>
           {bands.map((b) => (

@@ -3,21 +3,27 @@ import { forbidden } from "next/navigation";
 import { asSubject } from "@/policies";
 import { Cautions } from "@/app/_components/cautions";
 import { orPage, pageViewer } from "@/lib/server/pages";
+import { getComparison } from "@/lib/server/comparison";
+import { listRecommendations } from "@/lib/server/recommendations";
 import { getTender } from "@/lib/server/tenders";
 import { ComparisonView } from "./_components/comparison-view";
 
 export const metadata: Metadata = { title: "Comparison" };
 
-/** The Comparison tab: the grid reads GET /api/v1/tenders/[id]/comparison, which authorises itself too. */
+/** The Comparison tab: read on the server through lib/server/comparison, which authorises itself too. */
 export default async function ComparisonPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const viewer = await pageViewer();
   const tender = await orPage(getTender(viewer, id));
   if (!viewer.ability.can("read", asSubject("Score", { tenderId: id }))) forbidden();
+  const [data, recommendations] = await Promise.all([
+    orPage(getComparison(viewer, tender.id)),
+    viewer.ability.can("read", "Recommendation") ? orPage(listRecommendations(viewer, tender.id)) : [],
+  ]);
   return (
     <div className="space-y-4">
       <Cautions />
-      <ComparisonView tenderId={tender.id} reference={tender.reference} />
+      <ComparisonView tenderId={tender.id} reference={tender.reference} data={data} recommendations={recommendations} />
     </div>
   );
 }

@@ -75,7 +75,7 @@ function ClaimsTable({ claims, vendor }: { claims: QueueRow[]; vendor: boolean }
       <h2>{vendor ? "Your claims and their marks" : "Claims of this tender"}</h2>
       {claims.length === 0 ? <p className="text-sm text-ink-soft">No claim to show.</p> : (
         <table className="data-table mt-2">
-          <thead><tr><th>Verdict</th>{vendor ? null : <th>Vendor</th>}<th>Operating point</th><th>Claimed</th><th>Mark</th>{vendor ? null : <th>Evidence</th>}<th /></tr></thead>
+          <thead><tr><th>Verdict</th>{vendor ? null : <th>Vendor</th>}<th>Operating point</th><th>Claimed</th><th>Mark</th>{vendor ? null : <th>Evidence</th>}<th><span className="sr-only">Open</span></th></tr></thead>
           <tbody>
             {claims.map((c) => (
               <tr key={c.id}>

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { MARKS } from "@/db/schema/evaluation";
@@ -17,11 +17,11 @@ import { FieldError, FormStatus } from "@/app/_components/form-status";
 export function MarkForm({ claimId, verdict }: { claimId: string; verdict: Verdict }) {
   const [result, setResult] = useState<FormResult>({});
   const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, watch, reset, setError, formState } = useForm<z.input<typeof markSchema>, unknown, MarkInput>({
+  const { register, handleSubmit, control, reset, setError, formState } = useForm<z.input<typeof markSchema>, unknown, MarkInput>({
     resolver: zodResolver(markSchema),
     defaultValues: { mark: undefined, comment: "", subject: "" },
   });
-  const chosen = watch("mark");
+  const chosen = useWatch({ control, name: "mark" });
   const overrides = chosen === "accepted" && verdict === "impossible";
   const submit = handleSubmit((values) =>
     startTransition(async () => {

@@ -1,41 +1,27 @@
 "use client";
 
-import { useCallback, useEffect, useState, useTransition } from "react";
+import { useRouter } from "next/navigation";
+import { useState, useTransition } from "react";
 import { useConfirm } from "@/app/_components/confirm";
 import type { Comparison } from "@/lib/server/comparison";
 import type { FormResult } from "@/lib/server/form-action";
 import { openEnvelopesAction } from "../actions";
 import { ComparisonGrid } from "./comparison-grid";
-import { RecommendationPanel } from "./recommendation-panel";
+import { RecommendationPanel, type Listed } from "./recommendation-panel";
 import { ScoreSheetPanel } from "./score-sheet-panel";
 import { WhatIfPanel } from "./what-if-panel";
 
-/** The route's JSON: dates arrive as strings. */
-type ComparisonJson = Omit<Comparison, "tender"> & {
-  tender: Omit<Comparison["tender"], "technicalSignedAt" | "envelopesOpenedAt"> & { technicalSignedAt: string | null; envelopesOpenedAt: string | null };
-};
-
-export function ComparisonView({ tenderId, reference }: { tenderId: string; reference: string }) {
-  const [data, setData] = useState<ComparisonJson | null>(null);
-  const [error, setError] = useState<string | null>(null);
+/**
+ * The Comparison tab's body. The page reads the comparison on the server (lib/server/comparison)
+ * and passes it here; after a change the page is refreshed, so the data flow is the same as on
+ * every other tab. GET /api/v1/tenders/[id]/comparison serves the same object to API clients.
+ */
+export function ComparisonView({ tenderId, reference, data, recommendations }: { tenderId: string; reference: string; data: Comparison; recommendations: Listed[] }) {
+  const router = useRouter();
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const [result, setResult] = useState<FormResult>({});
   const [pending, startTransition] = useTransition();
-
-  const load = useCallback(async () => {
-    const response = await fetch(`/api/v1/tenders/${tenderId}/comparison`, { cache: "no-store" });
-    const body = await response.json();
-    if (!response.ok) {
-      setError(body.error ?? "The comparison could not be loaded.");
-      return;
-    }
-    setError(null);
-    setData(body);
-  }, [tenderId]);
-
-  useEffect(() => {
-    void load();
-  }, [load]);
+  const reload = () => router.refresh();
 
   const confirm = useConfirm();
   const openEnvelopes = () =>
@@ -49,12 +35,9 @@ export function ComparisonView({ tenderId, reference }: { tenderId: string; refe
         startTransition(async () => {
           const outcome = await openEnvelopesAction(tenderId);
           setResult(outcome);
-          await load();
+          reload();
         }),
     );
-
-  if (error) return <p role="alert" className="panel text-sm text-verdict-impossible">{error}</p>;
-  if (!data) return <p className="text-sm text-ink-soft" role="status">Loading the comparison…</p>;
 
   const selected = data.sheet.offers.find((o) => o.offerId === selectedId) ?? null;
   return (
@@ -78,7 +61,7 @@ export function ComparisonView({ tenderId, reference }: { tenderId: string; refe
             {pending ? "Opening…" : "Open envelopes"}
           </button>
         ) : null}
-        <button type="button" className="btn-quiet" onClick={() => startTransition(load)} disabled={pending}>Recompute</button>
+        <button type="button" className="btn-quiet" onClick={() => startTransition(reload)} disabled={pending}>Recompute</button>
         {confirm.dialog}
       </section>
 
@@ -103,7 +86,8 @@ export function ComparisonView({ tenderId, reference }: { tenderId: string; refe
         input={data.input}
         sheet={data.sheet}
         canRecommend={data.can.recommend}
-        onSubmitted={load}
+        history={recommendations}
+        onSubmitted={reload}
       />
     </div>
   );

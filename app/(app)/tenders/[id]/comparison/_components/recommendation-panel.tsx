@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { DateTime } from "@/app/_components/date-time";
 import { formatMoney } from "@/lib/format";
@@ -9,30 +9,14 @@ import { valuesDiffer } from "@/lib/approvals/award-value";
 import { totalPriceAt, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
 import { recommendationSchema, type RecommendationInput } from "@/lib/validation/comparison";
 import type { FormResult } from "@/lib/server/form-action";
+import type { listRecommendations } from "@/lib/server/recommendations";
 import { submitRecommendationAction } from "../actions";
 
-interface Listed {
-  id: string;
-  vendorName: string;
-  quantity: number;
-  value: number;
-  currency: string;
-  status: string;
-  justification: string;
-  preparedAt: string;
-  returns: { comment: string; decidedAt: string }[];
-  withdrawReason: string | null;
-}
+/** The tender's recommendations, newest first, as lib/server/recommendations lists them. */
+export type Listed = Awaited<ReturnType<typeof listRecommendations>>[number];
 
 /** The recommendation: the latest one's status and, in commercial evaluation, the buyer's form. */
-export function RecommendationPanel(props: { tenderId: string; input: ScoringInput; sheet: ScoreSheet; canRecommend: boolean; onSubmitted: () => Promise<void> }) {
-  const [history, setHistory] = useState<Listed[]>([]);
-  const { tenderId, sheet } = props;
-  useEffect(() => {
-    void fetch(`/api/v1/tenders/${tenderId}/recommendation`, { cache: "no-store" })
-      .then((r) => (r.ok ? r.json() : { history: [] }))
-      .then((body) => setHistory(body.history ?? []));
-  }, [tenderId, sheet]);
+export function RecommendationPanel({ history, ...props }: { tenderId: string; input: ScoringInput; sheet: ScoreSheet; canRecommend: boolean; history: Listed[]; onSubmitted: () => void }) {
 
   return (
     <section className="panel space-y-3" aria-label="Recommendation">
@@ -42,8 +26,8 @@ export function RecommendationPanel(props: { tenderId: string; input: ScoringInp
           {history.map((r) => (
             <li key={r.id}>
               <span className="font-medium">{r.vendorName}</span>, {r.quantity.toLocaleString("en-GB")} units for {formatMoney(r.value, r.currency)}:{" "}
-              <span data-status={r.status}>{r.status}</span> (<DateTime value={new Date(r.preparedAt)} />)
-              {r.returns.map((ret) => <p key={ret.decidedAt} className="text-ink-soft">Returned: {ret.comment}</p>)}
+              <span data-status={r.status}>{r.status}</span> (<DateTime value={r.preparedAt} />)
+              {r.returns.map((ret) => <p key={ret.decidedAt.toISOString()} className="text-ink-soft">Returned: {ret.comment}</p>)}
               {r.withdrawReason ? <p className="text-ink-soft">Withdrawn: {r.withdrawReason}</p> : null}
             </li>
           ))}
@@ -56,17 +40,15 @@ export function RecommendationPanel(props: { tenderId: string; input: ScoringInp
   );
 }
 
-function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId: string; input: ScoringInput; sheet: ScoreSheet; onSubmitted: () => Promise<void> }) {
+function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId: string; input: ScoringInput; sheet: ScoreSheet; onSubmitted: () => void }) {
   const eligible = sheet.offers.filter((o) => !o.disqualified && !o.needsConversion && o.total !== null);
   const [result, setResult] = useState<FormResult>({});
   const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, formState, setValue, watch, setError } = useForm<RecommendationInput>({
+  const { register, handleSubmit, formState, setValue, control, setError } = useForm<RecommendationInput>({
     resolver: zodResolver(recommendationSchema),
     defaultValues: { offerId: eligible[0]?.offerId ?? "", quantity: sheet.quantity, value: eligible[0]?.totalPrice ?? 0, justification: "" },
   });
-  const offerId = watch("offerId");
-  const quantity = watch("quantity");
-  const value = watch("value");
+  const [offerId, quantity, value] = useWatch({ control, name: ["offerId", "quantity", "value"] });
   const envelope = input.offers.find((o) => o.id === offerId)?.envelope;
   const computed = envelope && Number.isInteger(quantity) && quantity > 0 ? totalPriceAt(envelope.unitPrice, envelope.priceBreaks, quantity) : null;
   // The award value follows the chosen offer's price at the chosen quantity; a different value needs a reason.
@@ -81,7 +63,7 @@ function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId:
       const outcome = await submitRecommendationAction(tenderId, values);
       setResult(outcome);
       for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) setError(field as keyof RecommendationInput, { message: messages[0] });
-      if (outcome.ok) await onSubmitted();
+      if (outcome.ok) onSubmitted();
     }),
   );
   const err = (name: keyof RecommendationInput) =>

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { declarationSchema, type DeclarationInput } from "@/lib/validation/review";
@@ -13,11 +13,11 @@ import { declareAction } from "../actions";
 export function DeclarationForm({ tenderId, vendors }: { tenderId: string; vendors: { id: string; name: string }[] }) {
   const [result, setResult] = useState<FormResult>({});
   const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, watch, formState } = useForm<z.input<typeof declarationSchema>, unknown, DeclarationInput>({
+  const { register, handleSubmit, control, formState } = useForm<z.input<typeof declarationSchema>, unknown, DeclarationInput>({
     resolver: zodResolver(declarationSchema),
     defaultValues: { conflict: "none", conflictedOrgIds: [], statement: "" },
   });
-  const some = watch("conflict") === "some";
+  const some = useWatch({ control, name: "conflict" }) === "some";
   const submit = handleSubmit((values) => startTransition(async () => setResult(await declareAction(tenderId, { ...values, conflictedOrgIds: some ? values.conflictedOrgIds : [] }))));
   const e = formState.errors;
   return (
