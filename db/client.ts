@@ -1,5 +1,6 @@
 import "server-only";
 import { count } from "drizzle-orm";
+import { readFile } from "node:fs/promises";
 import path from "node:path";
 import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
 import type { PGliteInterface } from "@electric-sql/pglite";
@@ -34,7 +35,8 @@ async function openPglite(): Promise<Handle> {
   const { migrate } = await import("drizzle-orm/pglite/migrator");
   let client;
   if (env().DB_MEMORY) {
-    client = new PGlite();
+    const snapshot = env().NODE_ENV === "test" ? env().TEST_DB_SNAPSHOT : undefined;
+    client = snapshot ? new PGlite({ loadDataDir: new Blob([await readFile(snapshot)]) }) : new PGlite();
   } else {
     // One process per data folder (the starter may hold it for this process); PGlite creates
     // only the last folder of its path.

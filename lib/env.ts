@@ -40,6 +40,12 @@ const envSchema = z.object({
   ENGINE_DEADLINE_MS: optional(z.coerce.number().int().min(100).max(600_000)).transform((v) => v ?? 10_000),
   /** Tests only (ignored unless NODE_ENV=test): every engine task first spins this long, like a claim that never ends. */
   ENGINE_TEST_DELAY_MS: optional(z.coerce.number().int().min(0).max(600_000)),
+  /**
+   * Tests only (ignored unless NODE_ENV=test and DB_MEMORY): a dump of an in-memory database already
+   * migrated and seeded once for the whole run (tests/support/global-setup.ts), loaded instead of
+   * migrating and seeding in every test file.
+   */
+  TEST_DB_SNAPSHOT: optional(z.string()),
   /** Set by the starter (lib/runtime/start.ts) for the server it runs: that process holds the data folder. */
   RATECOURT_DATA_LOCK_PID: optional(z.coerce.number().int().positive()),
   /**

@@ -10,6 +10,7 @@ export default defineConfig({
     include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts"],
     environment: "node",
     setupFiles: ["tests/support/setup.ts"],
+    globalSetup: ["tests/support/global-setup.ts"],
     testTimeout: 60_000,
     hookTimeout: 120_000,
     pool: "forks",

@@ -20,6 +20,8 @@ let db: Db;
 beforeAll(async () => {
   process.env.DATA_DIR = dir;
   process.env.DB_MEMORY = "0";
+  // As `npm run dev` runs: no LEDGER_KEY setting, so the key is made and kept in the data folder.
+  delete process.env.LEDGER_KEY;
   resetEnvForTests();
   db = await getDb();
 });
