@@ -219,3 +219,18 @@ export function parseCurveCsv(text: string): CurveCsvReport {
   });
   return { points, errors };
 }
+
+/** "Sensitivity -133 dBm at PER 1.0e-2, NF 4 dB, BPSK, (320, 160)": the line as the vendor stated it. */
+export function describeSensitivity(radio: Pick<RadioClaim, "sensitivityDbm" | "noiseFigureDb" | "modulation" | "n" | "k">, per: number, sci: (x: number) => string): string {
+  const parts = [`Sensitivity ${radio.sensitivityDbm} dBm at PER ${sci(per)}`];
+  parts.push(radio.noiseFigureDb !== null ? `NF ${radio.noiseFigureDb} dB` : "no NF stated");
+  if (radio.modulation) parts.push(radio.modulation.toUpperCase());
+  if (radio.n !== null && radio.k !== null) parts.push(`(${radio.n}, ${radio.k})`);
+  return parts.join(", ");
+}
+
+/** The worst point in one line: "Worst: curve point 1 (…): implied Eb/N0 -2.82 dB, limit -1.01 dB, margin −1.81 dB". */
+export function describeWorst(radio: Pick<RadioClaim, "worst" | "curve">): string {
+  const w = radio.worst;
+  return `Worst: ${worstPlace(radio)}: implied Eb/N0 ${formatDb(w.impliedEbn0Db)}, limit ${formatDb(w.limitEbn0Db)}, margin ${formatMarginDb(w.marginDb)}`;
+}
