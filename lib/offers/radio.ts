@@ -212,7 +212,7 @@ export function parseCurveCsv(text: string): CurveCsvReport {
     const x = parseDecimal(String(row[xCol] ?? ""));
     const value = parseDecimal(String(row[yCol] ?? ""));
     const why: string[] = [];
-    if (x === null) why.push(`${xCol} is not a number`);
+    if (x === null || !Number.isFinite(x)) why.push(`${xCol} is not a number`);
     if (value === null || !(value > 0 && value < 1)) why.push(`${yCol} must be a probability strictly between 0 and 1`);
     if (why.length) errors.push(`Line ${line}: ${why.join("; ")}.`);
     else points.push({ x: x!, unit: X_COLUMNS[xCol], metric: Y_COLUMNS[yCol], value: value! });
@@ -233,4 +233,10 @@ export function describeSensitivity(radio: Pick<RadioClaim, "sensitivityDbm" | "
 export function describeWorst(radio: Pick<RadioClaim, "worst" | "curve">): string {
   const w = radio.worst;
   return `Worst: ${worstPlace(radio)}: implied Eb/N0 ${formatDb(w.impliedEbn0Db)}, limit ${formatDb(w.limitEbn0Db)}, margin ${formatMarginDb(w.marginDb)}`;
+}
+
+/** What scoring reads from a sensitivity claim: the worst margin (dB) and whether the line meets the buyer's level and PER. */
+export function sensitivityScoring(radio: RadioClaim, per: number): { marginDb: number | null; meets: boolean; note: string; place: string } {
+  const { meets, note } = meetsSensitivity(radio, per);
+  return { marginDb: radio.worst.marginDb, meets, note, place: worstPlace(radio) };
 }

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { forbidden } from "next/navigation";
 import { asSubject } from "@/policies";
 import { Cautions } from "@/app/_components/cautions";
+import { SensitivityCaution } from "@/app/_components/sensitivity-summary";
 import { orPage, pageViewer } from "@/lib/server/pages";
 import { getTender } from "@/lib/server/tenders";
 import { ComparisonView } from "./_components/comparison-view";
@@ -17,6 +18,7 @@ export default async function ComparisonPage({ params }: { params: Promise<{ id:
   return (
     <div className="space-y-4">
       <Cautions />
+      {tender.operatingPoints.some((p) => p.sensitivity) ? <SensitivityCaution /> : null}
       <ComparisonView tenderId={tender.id} reference={tender.reference} />
     </div>
   );
