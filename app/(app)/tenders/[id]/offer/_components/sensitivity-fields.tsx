@@ -59,7 +59,7 @@ function CurveFields({ index }: { index: number }) {
         </table>
       ) : null}
       <div className="flex flex-wrap items-center gap-3">
-        <button type="button" className="btn-quiet" disabled={fields.length >= MAX_CURVE_POINTS} onClick={() => append({ x: Number.NaN, unit: "dBm", metric: "per", value: Number.NaN })}>Add curve point</button>
+        <button type="button" className="btn-quiet" disabled={fields.length >= MAX_CURVE_POINTS} onClick={() => append({ x: undefined as unknown as number, unit: "dBm", metric: "per", value: undefined as unknown as number })}>Add curve point</button>
         <label className="text-sm" htmlFor={`claim-${index}-curve-csv`}>Or read a CSV file:</label>
         <input
           id={`claim-${index}-curve-csv`}
