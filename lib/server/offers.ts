@@ -143,7 +143,10 @@ export async function writeOfferVersion(tx: Queryable, v: OfferVersionInput): Pr
       version,
       vendorOrgId: v.vendorOrgId,
       module: `${input.moduleName} (${input.partNumber})`,
-      verdicts: v.claims.map((c) => ({ point: c.pointLabel, metric: c.metric, verdict: c.verdict })),
+      verdicts: v.claims.map((c) => ({
+        point: c.pointLabel, metric: c.metric, verdict: c.verdict,
+        ...(c.radio ? { sensitivityDbm: c.radio.sensitivityDbm, curvePoints: c.radio.curve.length, worstMarginDb: c.radio.worst.marginDb } : {}),
+      })),
       summary: verdictSummary(v.claims.map((c) => c.verdict)),
       engineVersion: v.claims[0]?.engineVersion ?? null,
     },

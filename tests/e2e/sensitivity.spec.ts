@@ -54,7 +54,7 @@ test("Quillfield enters a sensitivity line and a curve, and sees the verdict, th
   await expect(verdicts.locator("[data-verdict=impossible]").first()).toBeVisible();
   const worst = verdicts.locator("[data-sensitivity-worst]");
   await expect(worst).toHaveAttribute("data-sensitivity-worst", "4");
-  await expect(worst).toContainText("Sensitivity -138 dBm at PER 1e-2, NF 5 dB");
+  await expect(worst).toContainText("Sensitivity -138 dBm at PER 0.01, NF 5 dB");
   await expect(worst).toContainText(/Worst: curve point 4 \(-1 dB Eb\/N0, BLER 0\.01\): implied Eb\/N0 -1\.00 dB, limit -0\.\d\d dB, margin −0\.\d\d dB/);
   await verdicts.getByText(/Curve, 4 points/).click();
   await expect(verdicts.getByRole("table", { name: "Curve points" }).locator("[data-curve-point]")).toHaveCount(4);
