@@ -177,3 +177,20 @@ describe("the memo's words for a sensitivity claim", () => {
     expect(doc.cautions).toContain(SENSITIVITY_CAUTION);
   });
 });
+
+describe("the schemas of sensitivity points and claims", () => {
+  it("accept a point in dBm on a BI-AWGN tender and refuse one out of range or on another channel, naming the field", async () => {
+    const { tenderFieldsSchema } = await import("@/lib/validation/tender");
+    const { offerClaimSchema } = await import("@/lib/validation/offer");
+    const point = { label: "Gateway", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } };
+    expect(tenderFieldsSchema.shape.operatingPoints.safeParse([point]).success).toBe(true);
+    const bad = tenderFieldsSchema.shape.operatingPoints.safeParse([{ ...point, sensitivity: { ...point.sensitivity, bitRate: -1, payloadBits: 0.5 } }]);
+    expect(bad.success).toBe(false);
+    expect(bad.error!.issues.map((i) => i.path.join("."))).toEqual(["0.sensitivity.bitRate", "0.sensitivity.payloadBits"]);
+    expect(tenderFieldsSchema.shape.assumedNoiseFigureDb.safeParse(-0.1).success).toBe(false);
+    const claim = { pointIndex: 0, metric: "ber", value: 1e-2, sensitivity: { dbm: -130 } };
+    expect(offerClaimSchema.safeParse(claim).error!.issues[0].path).toEqual(["metric"]);
+    expect(offerClaimSchema.safeParse({ ...claim, metric: "bler", sensitivity: { dbm: 30.5 } }).error!.issues[0].path).toEqual(["sensitivity", "dbm"]);
+    expect(offerClaimSchema.safeParse({ ...claim, metric: "bler", sensitivity: { dbm: -130, curve: [{ x: 60, unit: "ebn0Db", metric: "per", value: 0.1 }] } }).error!.issues[0].path).toEqual(["sensitivity", "curve", 0, "x"]);
+  });
+});
