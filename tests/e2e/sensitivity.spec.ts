@@ -62,3 +62,28 @@ test("Quillfield enters a sensitivity line and a curve, and sees the verdict, th
   await expect(page.getByRole("note", { name: "Sensitivity caution" })).toContainText("conducted or radiated");
   await signOut(page);
 });
+
+test("a buyer states an operating point as an input level, with the units and the assumed noise figure", async ({ page }) => {
+  const title = `Reservoir gateways ${Date.now().toString(36)}`;
+  await signIn(page, ACCOUNTS.buyer);
+  await page.goto("/tenders/new");
+  const form = page.getByRole("form", { name: "New tender" });
+  await form.getByLabel("Title").fill(title);
+  await form.getByLabel("Channel model").selectOption("biawgn");
+  await form.getByLabel("Point 1 name").fill("Dam wall");
+  await form.getByLabel("Point 1 stated as").selectOption("dbm");
+  await form.getByLabel("Point 1 input level (dBm)").fill("-128");
+  await form.getByLabel("Information bit rate (bit/s)").fill("2400");
+  await form.getByLabel("Payload (bits per packet)").fill("200");
+  await form.getByLabel("Packet error rate at most").fill("1e-2");
+  await expect(form.getByText(/impossibility is always judged at the vendor.s stated figure or 0 dB/)).toBeVisible();
+  await form.getByLabel("Assumed receiver noise figure (dB)").fill("5");
+  await form.getByLabel("Quantity (units)").fill("12");
+  await form.getByRole("button", { name: "Create draft" }).click();
+
+  await expect(page.getByRole("heading", { name: title, level: 1 })).toBeVisible();
+  const requirements = page.getByRole("region", { name: "Requirements" });
+  await expect(requirements).toContainText("Dam wall: input level -128 dBm at 2,400 bit/s, 200-bit payload, PER ≤ 0.01");
+  await expect(requirements).toContainText("5 dB (for plausibility where a vendor states none");
+  await signOut(page);
+});
