@@ -10,6 +10,8 @@ import { sensitivityTerms } from "@/lib/offers";
 import { POST as submitPost } from "@/app/api/v1/tenders/[id]/offers/route";
 import { POST as createPost } from "@/app/api/v1/tenders/route";
 import { PATCH as tenderPatch } from "@/app/api/v1/tenders/[id]/route";
+import { GET as comparisonGet } from "@/app/api/v1/tenders/[id]/comparison/route";
+import type { Comparison } from "@/lib/server/comparison";
 import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
 
 // The server action reads the session from next/headers: hand it the signed-in vendor's cookie.
@@ -174,5 +176,26 @@ describe("sensitivity offers (server action)", () => {
     const refused = await submitOfferAction(gateways.id, gatewayOffer({ dbm: -130, noiseFigureDb: -2 }));
     expect(refused.ok).toBeFalsy();
     expect(Object.keys(refused.fieldErrors ?? {})).toContain("claims.0.sensitivity.noiseFigureDb");
+  });
+});
+
+describe("the comparison of a sensitivity tender", () => {
+  it("scores each claim on its worst point's margin, shows the margin in dB with where it lies, and holds the line to the buyer's level", async () => {
+    // Close the gateway tender (it closes on read) so that its offers are unsealed to the buyer.
+    await db.update(tenders).set({ closesAt: new Date(Date.now() - 60_000) }).where(eq(tenders.id, gateways.id));
+    const buyer = await signInAs("buyer@tarnwell.example");
+    const response = await comparisonGet(request(`/api/v1/tenders/${gateways.id}/comparison`, { headers: buyer }), params({ id: gateways.id }));
+    expect(response.status).toBe(200);
+    const { input, sheet } = (await response.json()) as Comparison;
+    const byVendor = new Map(input.offers.map((o) => [o.vendorName, o]));
+    const kestrel = byVendor.get("Kestrelink Radio")!.claims[0];
+    expect(kestrel.sensitivity!.place).toMatch(/^curve point 1 \(-145 dBm, PER 0.1\)$/);
+    expect(kestrel.channelMargin).toBe(kestrel.sensitivity!.marginDb);
+    expect(kestrel.channelMargin!).toBeLessThan(0);
+    const points = (name: string) => sheet.offers.find((o) => o.vendorName === name)!.points[0];
+    expect(points("Oxbow Wireless")).toMatchObject({ verdict: "plausible", meetsRequirement: true });
+    expect(points("Oxbow Wireless").score).toBeGreaterThan(50);
+    expect(points("Marram Telemetry")).toMatchObject({ verdict: "needs-evidence", meetsRequirement: true });
+    expect(points("Kestrelink Radio")).toMatchObject({ verdict: "impossible", score: 0 });
   });
 });
