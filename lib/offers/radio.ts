@@ -240,3 +240,14 @@ export function sensitivityScoring(radio: RadioClaim, per: number): { marginDb: 
   const { meets, note } = meetsSensitivity(radio, per);
   return { marginDb: radio.worst.marginDb, meets, note, place: worstPlace(radio) };
 }
+
+/**
+ * The curve in the shape the bound charts overlay (`vendorCurve`): each point at the Eb/N0 it
+ * amounts to (a dBm point at the vendor's noise figure or 0 dB), with its verdict. Points the
+ * engine did not finish have no Eb/N0 and are left out.
+ */
+export function vendorCurvePoints(radio: Pick<RadioClaim, "curve">): { ebn0Db: number; value: number; metric: CurveMetric; verdict: VerdictName }[] {
+  return radio.curve
+    .filter((p): p is JudgedCurvePoint & { impliedEbn0Db: number } => p.impliedEbn0Db !== null)
+    .map((p) => ({ ebn0Db: p.impliedEbn0Db, value: p.value, metric: p.metric, verdict: p.verdict }));
+}

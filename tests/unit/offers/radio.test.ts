@@ -14,6 +14,7 @@ import {
   radioClaim,
   sensitivityClaimInput,
   worstPoint,
+  vendorCurvePoints,
   type SensitivityTerms,
 } from "@/lib/offers/radio";
 import { pointScore } from "@/lib/scoring/criteria";
@@ -91,6 +92,12 @@ describe("limit, margin and the worst point", () => {
     expect(radio.line.verdict).toBe("needs-evidence");
     expect(radio.worst).toMatchObject({ at: 0, verdict: "impossible" });
     expect(radio.worst.marginDb!).toBeLessThan(0);
+  });
+
+  it("gives the curve in the charts' shape: each point at its implied Eb/N0 with its verdict, unfinished points left out", () => {
+    const s = { dbm: -142, noiseFigureDb: 2, curve: [{ x: -145, unit: "dBm" as const, metric: "per" as const, value: 1e-1 }, { x: 3, unit: "ebn0Db" as const, metric: "ber" as const, value: 1e-5 }] };
+    const radio = radioClaim(TERMS, s, evaluateClaim(sensitivityClaimInput(TERMS, s, 1e-2)), [evaluateClaim(curvePointInput(TERMS, s, s.curve[0])), { verdict: "needs-evidence" }]);
+    expect(vendorCurvePoints(radio)).toEqual([{ ebn0Db: impliedEbn0Db(-145, 1200, 2), value: 0.1, metric: "per", verdict: radio.curve[0].verdict }]);
   });
 
   it("formats margins with their sign in dB", () => {

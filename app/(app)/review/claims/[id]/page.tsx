@@ -14,7 +14,7 @@ import { ThreadList } from "@/app/(app)/threads/_components/thread-list";
 import { ClaimNumbers, ClaimFindings } from "@/app/_components/claim-numbers";
 import { ClaimCharts } from "./_components/claim-charts";
 import { CurveTable, SensitivityCaution, SensitivityWorst } from "@/app/_components/sensitivity-summary";
-import { formatDb, formatMarginDb, type RadioClaim } from "@/lib/offers/radio";
+import { describeSensitivity, formatDb, formatMarginDb, type RadioClaim } from "@/lib/offers/radio";
 import { EvidencePanel } from "./_components/evidence-panel";
 import { MarkForm } from "./_components/mark-form";
 import { OpenThreadForm } from "./_components/open-thread-form";
@@ -30,7 +30,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
   const threads = viewer.ability.can("list", "Thread") ? await orPage(listThreads(viewer, { claimId: id })) : [];
   const current = latestMarks(detail.marks).get(claim.id);
   const radio = claim.radio as RadioClaim | null;
-  const claimed = claim.metric === "ncg" ? `net coding gain ${claim.value} dB` : `${claim.metric.toUpperCase()} ${formatSci(claim.value)}`;
+  const claimed = radio ? describeSensitivity(radio, claim.value, formatSci) : claim.metric === "ncg" ? `net coding gain ${claim.value} dB` : `${claim.metric.toUpperCase()} ${formatSci(claim.value)}`;
   return (
     <div className="space-y-5">
       <header className="space-y-1">
@@ -42,7 +42,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
           <VerdictBadge verdict={claim.verdict} />
         </div>
         <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4">
-          <div><dt className="label">Operating point</dt><dd>{claim.pointLabel}: {formatCondition(tender.channelModel, claim.channelValue)}</dd></div>
+          <div><dt className="label">Operating point</dt><dd>{claim.pointLabel}: {radio ? `${radio.requiredDbm} dBm required; the line amounts to ${formatCondition(tender.channelModel, claim.channelValue)}` : formatCondition(tender.channelModel, claim.channelValue)}</dd></div>
           <div><dt className="label">Claimed</dt><dd className="tabular-nums">{claimed}</dd></div>
           <div><dt className="label">Code</dt><dd className="tabular-nums">{offer.codeFamily}, {offer.decision} decision{offer.n ? `, n = ${offer.n}` : ""}{offer.k ? `, k = ${offer.k}` : ""}</dd></div>
           <div><dt className="label">Current mark</dt><dd data-testid="current-mark">{current ? MARK_LABELS[current.mark] : "Not marked"}{current && acceptedAgainstImpossible({ verdict: claim.verdict, mark: current.mark }) ? <span className="ml-1 font-medium text-verdict-impossible">(against the engine&apos;s verdict)</span> : null}</dd></div>
