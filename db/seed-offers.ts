@@ -76,10 +76,65 @@ export const DEMO_OFFERS: DemoOffer[] = [
   },
 ];
 
+/**
+ * Invented offers for the flood-warning gateway tender (one point stated as an input level:
+ * -130 dBm at 1,200 bit/s, 160-bit packets, PER 1e-2; assumed noise figure 6 dB). Quillfield has
+ * not answered yet (the browser journey submits its offer).
+ */
+export const DEMO_SENSITIVITY_OFFERS: (Omit<DemoOffer, "shows"> & { shows: "plausible" | "needs evidence" | "curve beyond the limit" })[] = [
+  {
+    vendor: "oxbow",
+    shows: "plausible",
+    daysBeforeClosing: 18,
+    offer: {
+      moduleName: "Oxbow OW-GW2 Gateway",
+      partNumber: "OW-GW2-320",
+      code: { family: "LDPC", decision: "soft", n: 320, k: 160, rate: null, overhead: null },
+      claims: [{ pointIndex: 0, metric: "bler", value: 1e-2, ncgOutputBer: null, sensitivity: { dbm: -133, noiseFigureDb: 4, modulation: "bpsk", n: 320, k: 160, curve: null } }],
+      envelope: { unitPrice: 212, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 36, priceBreaks: [] },
+    },
+  },
+  {
+    vendor: "marram",
+    shows: "needs evidence",
+    daysBeforeClosing: 17,
+    offer: {
+      moduleName: "Marram GR-1 Basin",
+      partNumber: "GR1-B-12",
+      code: { family: "convolutional", decision: "soft", n: null, k: null, rate: 0.5, overhead: null },
+      claims: [{ pointIndex: 0, metric: "bler", value: 1e-2, ncgOutputBer: null, sensitivity: { dbm: -141, noiseFigureDb: null, modulation: null, n: null, k: null, curve: null } }],
+      envelope: { unitPrice: 189, currency: "EUR", leadTimeWeeks: 10, warrantyMonths: 24, priceBreaks: [] },
+    },
+  },
+  {
+    vendor: "kestrelink",
+    shows: "curve beyond the limit",
+    daysBeforeClosing: 16,
+    offer: {
+      moduleName: "KR-GW Longreach",
+      partNumber: "KR-GW-LR4",
+      code: { family: "polar", decision: "soft", n: null, k: null, rate: 0.5, overhead: null },
+      claims: [{
+        pointIndex: 0, metric: "bler", value: 1e-2, ncgOutputBer: null,
+        sensitivity: {
+          dbm: -142, noiseFigureDb: null, modulation: null, n: null, k: null,
+          curve: [
+            { x: -145, unit: "dBm", metric: "per", value: 1e-1 },
+            { x: -142, unit: "dBm", metric: "per", value: 1e-2 },
+            { x: -140.5, unit: "dBm", metric: "per", value: 1e-3 },
+            { x: -139.5, unit: "dBm", metric: "per", value: 1e-4 },
+          ],
+        },
+      }],
+      envelope: { unitPrice: 164, currency: "EUR", leadTimeWeeks: 6, warrantyMonths: 24, priceBreaks: [] },
+    },
+  },
+];
+
 /** The demo offers: four vendors on the gauges tender (one claim beyond capacity, one needing evidence, two honest). */
-export async function seedDemoOffers(tx: Queryable, ctx: DemoContext): Promise<void> {
-  const [tender] = await tx.select().from(tenders).where(eq(tenders.id, ctx.tenderIds.gauges));
-  for (const demo of DEMO_OFFERS) {
+export async function seedDemoOffers(tx: Queryable, ctx: DemoContext, tenderId = ctx.tenderIds.gauges, offers: readonly Omit<DemoOffer, "shows">[] = DEMO_OFFERS): Promise<void> {
+  const [tender] = await tx.select().from(tenders).where(eq(tenders.id, tenderId));
+  for (const demo of offers) {
     const evaluation = evaluateOffer(tender, demo.offer);
     if (!evaluation.ok) throw new Error(`demo offer of ${demo.vendor} does not fit the tender: ${JSON.stringify(evaluation.fieldErrors)}`);
     await writeOfferVersion(tx, {
@@ -91,4 +146,9 @@ export async function seedDemoOffers(tx: Queryable, ctx: DemoContext): Promise<v
       at: new Date(tender.closesAt.getTime() - demo.daysBeforeClosing * DAY),
     });
   }
+}
+
+/** The demo offers on the gateway tender, one per verdict (the last through a curve point beyond the limit). */
+export function seedDemoSensitivityOffers(tx: Queryable, ctx: DemoContext): Promise<void> {
+  return seedDemoOffers(tx, ctx, ctx.tenderIds.gateways, DEMO_SENSITIVITY_OFFERS);
 }

@@ -3,7 +3,7 @@ import type { Db, Queryable } from "./client";
 import { ADVISORY_LOCKS } from "./locks";
 import { organisations, tenderInvitations, tenders, type RoleName } from "./schema";
 import { insertUser } from "@/lib/server/people-store";
-import { seedDemoOffers } from "./seed-offers";
+import { seedDemoOffers, seedDemoSensitivityOffers } from "./seed-offers";
 import { seedDemoReview } from "./seed-review";
 import { seedDemoApprovalBands } from "./seed-approvals";
 import { appendLedger } from "@/lib/server/ledger";
@@ -60,8 +60,8 @@ const DAY = 86_400_000;
 export interface DemoContext {
   orgIds: Record<OrgKey, string>;
   userIds: Record<string, string>;
-  /** gauges: in technical evaluation with four offers; weirs: open for offers; rain: a draft. */
-  tenderIds: { gauges: string; weirs: string; rain: string };
+  /** gauges: in technical evaluation with four offers; weirs: open for offers; rain: a draft; gateways: open, stated in sensitivity terms, three offers. */
+  tenderIds: { gauges: string; weirs: string; rain: string; gateways: string };
   now: number;
 }
 
@@ -171,8 +171,30 @@ async function insertDemo(tx: Queryable) {
     state: "draft",
   });
 
-  const ctx: DemoContext = { orgIds, userIds, tenderIds: { gauges, weirs, rain }, now };
+  const gateways = await insertTender(tx, buyer, vendors.map((v) => orgIds[v]), {
+    reference: "RC-2027-004",
+    title: "Flood-warning gateway receivers",
+    description:
+      "Receivers for the valley gateways that collect flood-warning packets from the gauges: 160-bit packets at 1,200 bit/s, stated as the input level each receiver needs.",
+    channelModel: "biawgn",
+    operatingPoints: [{ label: "Valley gateway", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }],
+    targetMetric: "bler",
+    targetValue: 1e-2,
+    maxFrameBits: null,
+    assumedNoiseFigureDb: 6,
+    quantity: 40,
+    currency: "EUR",
+    weights: { technical: 45, evidence: 10, price: 30, leadTime: 10, warranty: 5 },
+    impossibleRule: "disqualify",
+    openedAt: new Date(now - 3 * DAY),
+    closesAt: new Date(now + 20 * DAY),
+    closesZone: "Europe/London",
+    state: "open",
+  });
+
+  const ctx: DemoContext = { orgIds, userIds, tenderIds: { gauges, weirs, rain, gateways }, now };
   await seedDemoOffers(tx, ctx);
+  await seedDemoSensitivityOffers(tx, ctx);
   // The gauges tender closed after its offers came in.
   await appendLedger(tx, { tenderId: gauges, actor: null, action: "tender.closed", subjectType: "Tender", subjectId: gauges, data: {} });
   await seedDemoReview(tx, ctx);

@@ -29,3 +29,13 @@ export const CHANNEL_LABELS = {
 export function formatCondition(model: keyof typeof CHANNEL_LABELS, value: number): string {
   return model === "biawgn" ? `Eb/N0 ${value} dB` : `${model === "bsc" ? "p" : "e"} = ${formatSci(value)}`;
 }
+
+/** An operating point in words: its channel condition, or its input level with bit rate, payload and packet error rate. */
+export function formatPoint(
+  model: keyof typeof CHANNEL_LABELS,
+  point: { value: number; sensitivity?: { bitRate: number; payloadBits: number; targetPer: number } | null },
+): string {
+  const s = point.sensitivity;
+  if (!s) return formatCondition(model, point.value);
+  return `input level ${point.value} dBm at ${s.bitRate.toLocaleString("en-GB")} bit/s, ${s.payloadBits.toLocaleString("en-GB")}-bit payload, PER ≤ ${formatSci(s.targetPer)}`;
+}

@@ -3,6 +3,7 @@ import { doublePrecision, index, integer, jsonb, numeric, pgTable, text, timesta
 import { tenderRef, vendorRef } from "./refs";
 import { id, createdAt, oneOf } from "./columns";
 import { users } from "./people";
+import type { RadioClaim } from "@/lib/offers/radio";
 
 export const OFFER_STATUSES = ["submitted", "superseded", "withdrawn"] as const;
 export type OfferStatus = (typeof OFFER_STATUSES)[number];
@@ -76,6 +77,8 @@ export const claims = pgTable(
     ncgOutputBer: doublePrecision("ncg_output_ber"),
     verdict: text("verdict").$type<Verdict>().notNull(),
     result: jsonb("result").$type<Record<string, unknown>>().notNull(),
+    /** A sensitivity claim (and its waterfall curve, each point judged), on a point stated in dBm; null otherwise. */
+    radio: jsonb("radio").$type<RadioClaim>(),
     engineVersion: text("engine_version").notNull(),
     evaluatedAt: timestamp("evaluated_at", { withTimezone: true }).notNull().defaultNow(),
   },

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { boolean, index, integer, jsonb, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { boolean, doublePrecision, index, integer, jsonb, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import type { TenderState } from "@/policies/vocabulary";
 import { id, createdAt, oneOf, updatedAt } from "./columns";
 import { organisations, users } from "./people";
@@ -11,10 +11,24 @@ export type { TenderState };
 
 export type ChannelModel = "bsc" | "bec" | "biawgn";
 export type NoticeDisclosure = "rank" | "rank-and-scores";
-/** One channel condition the buyer cares about: p for bsc, e for bec, Eb/N0 in dB for biawgn. */
+/**
+ * A biawgn point stated as a receiver sees it: the input level (dBm, in `value`) at which the
+ * buyer needs the packet error rate `targetPer` for `payloadBits`-bit packets at `bitRate`
+ * information bits per second.
+ */
+export interface SensitivityPoint {
+  bitRate: number;
+  payloadBits: number;
+  targetPer: number;
+}
+/**
+ * One channel condition the buyer cares about: p for bsc, e for bec, Eb/N0 in dB for biawgn,
+ * or, for biawgn with `sensitivity`, an input level in dBm.
+ */
 export interface OperatingPoint {
   label: string;
   value: number;
+  sensitivity?: SensitivityPoint | null;
 }
 export interface ScoringWeights {
   technical: number;
@@ -37,6 +51,8 @@ export const tenders = pgTable(
     targetMetric: text("target_metric").$type<"bler" | "ber">().notNull(),
     targetValue: numeric("target_value", { mode: "number" }).notNull(),
     maxFrameBits: integer("max_frame_bits"),
+    /** The receiver noise figure (dB) judged for plausibility where a vendor states none (sensitivity points). */
+    assumedNoiseFigureDb: doublePrecision("assumed_noise_figure_db").notNull().default(6),
     quantity: integer("quantity").notNull(),
     currency: text("currency").notNull(),
     weights: jsonb("weights").$type<ScoringWeights>().notNull(),

@@ -1,6 +1,6 @@
 // Words the award memo prints, from plain facts; the PDF renderer only lays them out.
 import { formatInTimeZone } from "date-fns-tz";
-import { CHANNEL_LABELS, formatCondition, formatMoney, formatSci } from "@/lib/format";
+import { CHANNEL_LABELS, formatCondition, formatMoney, formatPoint, formatSci } from "@/lib/format";
 import type { MemoDocument } from "@/lib/pdf/memo";
 import { headLine, type Head } from "@/lib/ledger/head";
 import type { ChannelModel, OperatingPoint } from "@/db/schema/tenders";
@@ -8,7 +8,8 @@ import type { MarkKind } from "@/db/schema/evaluation";
 import type { ClaimMetric, Verdict } from "@/db/schema/offers";
 import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
 import { acceptedAgainstImpossible } from "@/lib/review/marks";
-import { SAFETY_CAUTION } from "@/lib/tenders/safety";
+import { SAFETY_CAUTION, SENSITIVITY_CAUTION } from "@/lib/tenders/safety";
+import { CURVE_METRIC_WORDS, describeSensitivity, formatDb, formatMarginDb, worstPlace, type RadioClaim } from "@/lib/offers/radio";
 import type { EvidenceStatus } from "@/db/schema/evaluation";
 import { deviationWords } from "./award-value";
 import { formatScore, standingsOf } from "./score-sheet";
@@ -47,6 +48,8 @@ export interface MemoFacts {
       value: number;
       ncgOutputBer: number | null;
       verdict: Verdict;
+      /** A sensitivity claim with its curve, each point judged (null or absent otherwise). */
+      radio?: RadioClaim | null;
       mark: MarkKind | null;
       markComment: string;
       /** Lab runs, each with what it counts for against the claim. */
@@ -92,6 +95,20 @@ export function codeWords(o: Pick<MemoFacts["offers"][number], "codeFamily" | "d
   return `Part ${o.partNumber}; ${o.codeFamily}${size}${rate}, ${o.decision} decision`;
 }
 
+/**
+ * A sensitivity claim's numbers for the memo: the line (implied Eb/N0, limit, margin), each curve
+ * point's margin, and the worst point that sets the verdict.
+ */
+export function sensitivityWords(radio: RadioClaim, per: number): string {
+  const j = (x: { impliedEbn0Db: number | null; limitEbn0Db: number | null; marginDb: number | null }) =>
+    `implied Eb/N0 ${formatDb(x.impliedEbn0Db)}, limit ${formatDb(x.limitEbn0Db)}, margin ${formatMarginDb(x.marginDb)}`;
+  const line = `${describeSensitivity(radio, per, formatSci)}: ${j(radio.line)}.`;
+  const curve = radio.curve.length
+    ? ` Curve of ${radio.curve.length} points: ${radio.curve.map((p, i) => `${i + 1}) ${p.x} ${p.unit === "dBm" ? "dBm" : "dB"}, ${CURVE_METRIC_WORDS[p.metric]} ${formatSci(p.value)}: margin ${formatMarginDb(p.marginDb)}`).join("; ")}.`
+    : "";
+  return `${line}${curve} Worst: ${worstPlace(radio)}, margin ${formatMarginDb(radio.worst.marginDb)}.`;
+}
+
 /** The review column: the mark, and an acceptance against the engine's impossible verdict flagged with its justification. */
 export function reviewWords(c: Pick<MemoFacts["offers"][number]["claims"][number], "verdict" | "mark" | "markComment">): string {
   if (!c.mark) return "Not marked";
@@ -130,7 +147,7 @@ export function memoDocument(f: MemoFacts): MemoDocument {
         { label: "Longest frame", value: t.maxFrameBits ? `${t.maxFrameBits.toLocaleString("en-GB")} bits` : "no limit" },
         { label: "Quantity", value: `${t.quantity.toLocaleString("en-GB")} units, prices in ${t.currency}` },
       ],
-      operatingPoints: t.operatingPoints.map((p) => `${p.label}: ${formatCondition(t.channelModel, p.value)}`),
+      operatingPoints: t.operatingPoints.map((p) => `${p.label}: ${formatPoint(t.channelModel, p)}`),
     },
     offers: f.offers.map((o) => ({
       vendorName: o.vendorName,
@@ -138,8 +155,9 @@ export function memoDocument(f: MemoFacts): MemoDocument {
       code: codeWords(o),
       claims: o.claims.map((c) => ({
         point: `${c.pointLabel} (${formatCondition(t.channelModel, c.channelValue)})`,
-        claim: claimWords(c),
+        claim: c.radio ? `Sensitivity ${c.radio.sensitivityDbm} dBm at PER ${formatSci(c.value)}` : claimWords(c),
         verdict: c.verdict,
+        sensitivity: c.radio ? sensitivityWords(c.radio, c.value) : null,
         review: reviewWords(c),
         evidence: evidenceWords(t.channelModel, c.runs),
       })),
@@ -170,6 +188,10 @@ export function memoDocument(f: MemoFacts): MemoDocument {
         conflicts: d.conflicts === 0 ? "no conflict" : `a conflict with ${d.conflicts} vendor${d.conflicts === 1 ? "" : "s"}, whose offers were hidden from them`,
       })),
     },
-    cautions: f.safetyRelevant ? `${SAFETY_CAUTION} ${f.cautions}` : f.cautions,
+    cautions: [
+      f.safetyRelevant ? SAFETY_CAUTION : null,
+      f.cautions,
+      f.tender.operatingPoints.some((p) => p.sensitivity) ? SENSITIVITY_CAUTION : null,
+    ].filter(Boolean).join(" "),
   };
 }

@@ -6,7 +6,9 @@ export interface TenderTerms {
   state: string;
   closesAt: Date;
   channelModel: ChannelModel;
-  operatingPoints: { label: string; value: number }[];
+  operatingPoints: { label: string; value: number; sensitivity?: { bitRate: number; payloadBits: number; targetPer: number } | null }[];
+  /** The receiver noise figure (dB) the tender assumes where a vendor states none (sensitivity points). */
+  assumedNoiseFigureDb?: number;
   currency: string;
 }
 
@@ -22,7 +24,7 @@ export function submissionRefusal(tender: Pick<TenderTerms, "state" | "closesAt"
 
 interface SubmittedTerms {
   code?: { decision?: "hard" | "soft" };
-  claims: { pointIndex: number; metric: ClaimMetric }[];
+  claims: { pointIndex: number; metric: ClaimMetric; sensitivity?: unknown }[];
   envelope: { currency: string };
 }
 
@@ -44,6 +46,12 @@ export function termsErrors(tender: TenderTerms, input: SubmittedTerms): Record<
   const complete = indexes.length === points && new Set(indexes).size === points && indexes.every((i) => i >= 0 && i < points);
   if (!complete) add("claims", `Give exactly one claim for each of the tender's ${points} operating point${points === 1 ? "" : "s"}.`);
   input.claims.forEach((claim, i) => {
+    const point = tender.operatingPoints[claim.pointIndex];
+    if (point?.sensitivity && !claim.sensitivity) {
+      add(`claims.${i}.sensitivity.dbm`, `The point "${point.label}" is stated as an input level: give your receiver sensitivity in dBm at ${point.sensitivity.bitRate} bit/s and a ${point.sensitivity.payloadBits}-bit payload.`);
+    } else if (point && !point.sensitivity && claim.sensitivity) {
+      add(`claims.${i}.sensitivity`, `The point "${point.label}" is stated in ${tender.channelModel === "biawgn" ? "Eb/N0" : "its channel condition"}, not as an input level: claim a BER or BLER there, without a sensitivity.`);
+    }
     if (claim.metric === "ncg" && tender.channelModel === "bec") {
       add(`claims.${i}.metric`, "A net coding gain is not stated on an erasure channel: claim a BER or BLER.");
     }

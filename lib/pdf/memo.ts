@@ -26,7 +26,7 @@ export interface MemoDocument {
     vendorName: string;
     module: string;
     code: string;
-    claims: { point: string; claim: string; verdict: Verdict; review: string; evidence: string }[];
+    claims: { point: string; claim: string; verdict: Verdict; review: string; evidence: string; sensitivity?: string | null }[];
   }[];
   technical: {
     signatures: { name: string; at: string; statement: string }[];
@@ -79,6 +79,7 @@ function verdictTable(w: PageWriter, memo: MemoDocument): void {
         { text: claim.review, x: 385, width: w.contentWidth - 385 },
       ], 8.5);
       drawVerdictShape(w.page, claim.verdict, MARGIN + 284, top - 6.3);
+      if (claim.sensitivity) w.text(claim.sensitivity, { soft: true, size: 8, indent: 12, gap: 2 });
       w.text(`Lab evidence: ${claim.evidence}`, { soft: true, size: 8, indent: 12, gap: 2 });
     }
     w.y -= 6;

@@ -41,7 +41,9 @@ export function residualInTargetMetric(claim: Pick<ScoringClaim, "metric" | "val
  */
 export function pointScore(claim: ScoringClaim | undefined, tender: Pick<ScoringTender, "targetMetric" | "targetValue">): { score: number; meets: boolean; note: string } {
   if (!claim) return { score: 0, meets: false, note: "No claim at this point." };
-  const residual = residualInTargetMetric(claim, tender.targetMetric);
+  if (claim.sensitivity && !claim.sensitivity.meets) return { score: 0, meets: false, note: claim.sensitivity.note };
+  // A sensitivity claim is held to its point's own PER (checked above), not to the tender-wide residual error.
+  const residual = claim.sensitivity ? 0 : residualInTargetMetric(claim, tender.targetMetric);
   if (residual === null) return { score: 0, meets: false, note: "The claim cannot be compared with the required residual error." };
   if (residual > tender.targetValue) return { score: 0, meets: false, note: "Worse than the required residual error." };
   if (claim.verdict === "impossible") return { score: 0, meets: true, note: "Impossible claim." };

@@ -1,4 +1,5 @@
 // One Comparison-grid row per offer, from the scoring input and its sheet (pure, used in the browser).
+import { formatMarginDb } from "@/lib/offers/radio";
 import { formatSci } from "@/lib/format";
 import { summariseEvidence } from "@/lib/review/evidence";
 import { CRITERIA, type Criterion, type ScoreSheet, type ScoringClaim, type ScoringInput } from "./types";
@@ -32,6 +33,7 @@ export interface ComparisonRow {
 }
 
 export function formatMargin(claim: ScoringClaim | undefined): string {
+  if (claim?.sensitivity) return claim.sensitivity.marginDb === null ? "–" : `${formatMarginDb(claim.sensitivity.marginDb)} (worst: ${claim.sensitivity.place})`;
   if (!claim || claim.channelMargin === null) return "–";
   if (claim.channelKind === "dB") return `${claim.channelMargin >= 0 ? "+" : ""}${claim.channelMargin.toFixed(2)} dB`;
   return `×${formatSci(claim.channelMargin, 2)}`;

@@ -19,7 +19,7 @@ export const CRITERION_LABELS: Record<Criterion, string> = {
 export interface ScoringTender {
   reference: string;
   channelModel: "bsc" | "bec" | "biawgn";
-  operatingPoints: { label: string; value: number }[];
+  operatingPoints: { label: string; value: number; sensitivity?: { bitRate: number; payloadBits: number; targetPer: number } | null }[];
   targetMetric: "bler" | "ber";
   targetValue: number;
   quantity: number;
@@ -44,6 +44,8 @@ export interface ScoringClaim {
   /** Threshold over claimed (ratio: p, e) or threshold minus claimed (dB: Eb/N0). */
   channelMargin: number | null;
   channelKind: "ratio" | "dB";
+  /** A sensitivity claim (point stated in dBm): its worst point's margin and whether it meets the required level. */
+  sensitivity?: { marginDb: number | null; meets: boolean; note: string; place: string } | null;
   /** The current (latest) mark, if any. */
   mark: MarkKind | null;
   evidence: EvidenceSummary;

@@ -1,4 +1,5 @@
 import "server-only";
+import { sensitivityScoring } from "@/lib/offers/radio";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
@@ -83,6 +84,7 @@ async function loadClaims(db: Queryable, viewer: Viewer, tender: Pick<TenderRow,
         ncgOutputBer: claims.ncgOutputBer,
         verdict: claims.verdict,
         channelValue: claims.channelValue,
+        radio: claims.radio,
         evaluatedAt: evaluatedAtText,
       })
       .from(claims)
@@ -115,6 +117,8 @@ async function loadClaims(db: Queryable, viewer: Viewer, tender: Pick<TenderRow,
         ncgOutputBer: c.ncgOutputBer,
         verdict: c.verdict,
         ...margins.get(c.id)!,
+        // A sensitivity claim is scored on its worst point's margin in dB (line or curve).
+        ...(c.radio ? { channelMargin: c.radio.worst.marginDb, channelKind: "dB" as const, rateGapFraction: null, sensitivity: sensitivityScoring(c.radio, c.value) } : {}),
         mark: mark ? (mark.mark as MarkKind) : null,
         evidence: readsRuns(c.vendorOrgId) ? summariseRuns(tender.channelModel, c.channelValue, runs.get(c.id) ?? []) : ("none" as const),
       },

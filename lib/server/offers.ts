@@ -131,7 +131,7 @@ export async function writeOfferVersion(tx: Queryable, v: OfferVersionInput): Pr
     })
     .returning();
   await tx.insert(claims).values(
-    v.claims.map((c) => ({ ...c, result: c.result as unknown as Record<string, unknown>, offerId: row.id, tenderId: v.tender.id, vendorOrgId: v.vendorOrgId, evaluatedAt: v.at })),
+    v.claims.map((c) => ({ ...c, result: c.result as unknown as Record<string, unknown>, radio: c.radio, offerId: row.id, tenderId: v.tender.id, vendorOrgId: v.vendorOrgId, evaluatedAt: v.at })),
   );
   await appendLedger(tx, {
     tenderId: v.tender.id,
@@ -143,7 +143,10 @@ export async function writeOfferVersion(tx: Queryable, v: OfferVersionInput): Pr
       version,
       vendorOrgId: v.vendorOrgId,
       module: `${input.moduleName} (${input.partNumber})`,
-      verdicts: v.claims.map((c) => ({ point: c.pointLabel, metric: c.metric, verdict: c.verdict })),
+      verdicts: v.claims.map((c) => ({
+        point: c.pointLabel, metric: c.metric, verdict: c.verdict,
+        ...(c.radio ? { sensitivityDbm: c.radio.sensitivityDbm, curvePoints: c.radio.curve.length, worstMarginDb: c.radio.worst.marginDb } : {}),
+      })),
       summary: verdictSummary(v.claims.map((c) => c.verdict)),
       engineVersion: v.claims[0]?.engineVersion ?? null,
     },
@@ -158,13 +161,16 @@ export async function writeOfferVersion(tx: Queryable, v: OfferVersionInput): Pr
 async function evaluateClaimsOf(prepared: PreparedClaim[]): Promise<EvaluatedClaim[]> {
   return Promise.all(
     prepared.map(async (item) => {
+      // A sensitivity claim's curve points go with its line, in one job.
+      const curve = item.radio?.curve ?? [];
       try {
-        const [result] = await runEngine("claims", [item.input]);
-        return evaluatedClaim(item, result);
+        const [result, ...curveResults] = await runEngine("claims", [item.input, ...curve]);
+        return evaluatedClaim(item, result, curveResults);
       } catch (error) {
         if (!isEngineDeadline(error)) throw error;
-        const what = `the claim at ${item.point.label}`;
-        return evaluatedClaim(item, { engineError: `${unfinishedMessage(error, what)} It is stored without a verdict of its own and needs evidence.` });
+        const what = `the claim at ${item.point.label}${curve.length ? ` and its ${curve.length} curve points` : ""}`;
+        const unfinished = { engineError: `${unfinishedMessage(error, what)} It is stored without a verdict of its own and needs evidence.` };
+        return evaluatedClaim(item, unfinished, curve.map(() => unfinished));
       }
     }),
   );

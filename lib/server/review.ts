@@ -72,6 +72,9 @@ async function reviewState(db: Queryable, viewer: Viewer, claimRows: { claim: Cl
 
 export interface QueueRow {
   id: string;
+  /** A sensitivity claim's level (dBm), and its worst margin in dB (line or curve); null otherwise. */
+  sensitivityDbm: number | null;
+  worstMarginDb: number | null;
   tenderId: string;
   tenderReference: string;
   channelModel: "bsc" | "bec" | "biawgn";
@@ -120,6 +123,8 @@ export async function listClaimQueue(viewer: Viewer, filters: Partial<ClaimQueue
       const mark = latest.get(claim.id);
       return {
         id: claim.id,
+        sensitivityDbm: claim.radio?.sensitivityDbm ?? null,
+        worstMarginDb: claim.radio?.worst.marginDb ?? null,
         tenderId: tender.id,
         tenderReference: tender.reference,
         channelModel: tender.channelModel,

@@ -1,5 +1,5 @@
 import type { tenders } from "@/db/schema";
-import { DEFAULT_STANDSTILL_DAYS, type TenderInput } from "@/lib/validation/tender";
+import { DEFAULT_ASSUMED_NF_DB, DEFAULT_STANDSTILL_DAYS, type TenderInput } from "@/lib/validation/tender";
 import { canonicalJson } from "@/lib/ledger/chain";
 import { closingInstant, closingLocal, DEFAULT_ZONE } from "./closing";
 
@@ -8,6 +8,7 @@ type TenderRow = typeof tenders.$inferSelect;
 export type DraftValues = Pick<
   TenderRow,
   | "title" | "description" | "channelModel" | "operatingPoints" | "targetMetric" | "targetValue" | "maxFrameBits"
+  | "assumedNoiseFigureDb"
   | "quantity" | "currency" | "weights" | "impossibleRule" | "impossiblePenalty" | "safetyRelevant" | "closesAt" | "closesZone"
   | "noticeDisclosure" | "standstillDays"
 >;
@@ -20,9 +21,10 @@ function shared(from: Shared): Shared {
     title: from.title,
     description: from.description,
     channelModel: from.channelModel,
-    operatingPoints: from.operatingPoints.map((p) => ({ label: p.label, value: p.value })),
+    operatingPoints: from.operatingPoints.map((p) => (p.sensitivity ? { label: p.label, value: p.value, sensitivity: { ...p.sensitivity } } : { label: p.label, value: p.value })),
     targetMetric: from.targetMetric,
     targetValue: from.targetValue,
+    assumedNoiseFigureDb: from.assumedNoiseFigureDb,
     quantity: from.quantity,
     currency: from.currency,
     weights: { ...from.weights },
@@ -67,6 +69,7 @@ export function blankDraftInput(now: Date): TenderInput {
     targetMetric: "bler",
     targetValue: 1e-4,
     maxFrameBits: null,
+    assumedNoiseFigureDb: DEFAULT_ASSUMED_NF_DB,
     quantity: 1,
     currency: "EUR",
     weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },

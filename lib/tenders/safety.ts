@@ -8,3 +8,7 @@ export const SAFETY_CAUTION =
 export function withSafetyCaution<N extends { text: string }>(tender: { safetyRelevant: boolean }, notices: N[]): N[] {
   return tender.safetyRelevant ? notices.map((n) => ({ ...n, text: `${n.text}\n\n${SAFETY_CAUTION}` })) : notices;
 }
+
+/** Beside every sensitivity figure and its verdict (offer, claim page, comparison, memo). */
+export const SENSITIVITY_CAUTION =
+  "Measured sensitivity depends on the test conditions (conducted or radiated, temperature, interference); the verdict judges only the physical limit the stated figures imply, not how the module was measured.";

@@ -25,9 +25,23 @@ export const DEFAULT_STANDSTILL_DAYS = 10;
 
 const num = (what: string) => z.number({ error: `Enter ${what} as a number.` });
 
+/** A biawgn point stated as an input level: the buyer's bit rate, payload and packet error rate. */
+export const sensitivityPointSchema = z.object({
+  bitRate: num("the information bit rate in bit/s").gt(0, "The information bit rate must be above 0 bit/s.").max(1e12, "At most 1e12 bit/s."),
+  payloadBits: num("the payload in bits").int("A whole number of payload bits.").min(1, "At least 1 payload bit.").max(10_000_000, "At most 10,000,000 bits."),
+  targetPer: num("the target packet error rate").gt(0, "The packet error rate must be above 0.").lt(1, "The packet error rate must be below 1."),
+});
+
+/** The input level range a sensitivity point accepts (dBm). */
+export const SENSITIVITY_RANGE = { min: -200, max: 30, words: "input level must be from -200 to +30 dBm" } as const;
+/** The receiver noise figure a buyer may assume for vendors that state none (dB). */
+export const DEFAULT_ASSUMED_NF_DB = 6;
+
 export const operatingPointSchema = z.object({
   label: z.string().trim().min(1, "Name the operating point.").max(80),
   value: num("the channel condition"),
+  /** Present on a biawgn point stated as an input level in dBm (then `value` is that level). */
+  sensitivity: sensitivityPointSchema.nullable().optional(),
 });
 
 export const WEIGHT_KEYS = ["technical", "evidence", "price", "leadTime", "warranty"] as const;
@@ -45,6 +59,8 @@ export const tenderFieldsSchema = z.object({
   targetMetric: z.enum(["bler", "ber"], { error: "Choose BLER or BER." }),
   targetValue: num("the residual error").gt(0, "Must be above 0.").lt(1, "Must be below 1."),
   maxFrameBits: z.number().int("Whole bits.").positive("Must be at least 1 bit.").max(10_000_000).nullable(),
+  /** Plausibility of sensitivity claims is judged at this noise figure where the vendor states none. */
+  assumedNoiseFigureDb: num("the assumed noise figure in dB").min(0, "A noise figure is at least 0 dB (an ideal receiver).").max(40, "At most 40 dB."),
   quantity: num("the quantity").int("A whole number of units.").positive("At least one unit.").max(100_000_000),
   currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, "Three letters (ISO 4217), e.g. EUR."),
   weights: weightsSchema,
@@ -64,6 +80,13 @@ type Fields = z.infer<typeof tenderFieldsSchema>;
 /** The checks that read several fields at once. */
 function crossChecks(value: Fields, ctx: z.RefinementCtx) {
   value.operatingPoints.forEach((point, i) => {
+    if (point.sensitivity) {
+      if (value.channelModel !== "biawgn")
+        ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "sensitivity"], message: "An input level in dBm is stated only on a BI-AWGN (soft-decision) tender." });
+      else if (!(point.value >= SENSITIVITY_RANGE.min && point.value <= SENSITIVITY_RANGE.max))
+        ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "value"], message: `Out of range: ${SENSITIVITY_RANGE.words}.` });
+      return;
+    }
     if (!conditionInRange(value.channelModel, point.value)) {
       ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "value"], message: `Out of range: ${CONDITION_RANGES[value.channelModel].words}.` });
     }
@@ -85,6 +108,7 @@ export const tenderInputSchema = tenderFieldsSchema
   .extend({
     description: tenderFieldsSchema.shape.description.default(""),
     maxFrameBits: tenderFieldsSchema.shape.maxFrameBits.default(null),
+    assumedNoiseFigureDb: tenderFieldsSchema.shape.assumedNoiseFigureDb.default(DEFAULT_ASSUMED_NF_DB),
     impossibleRule: tenderFieldsSchema.shape.impossibleRule.default("disqualify"),
     impossiblePenalty: tenderFieldsSchema.shape.impossiblePenalty.default(0),
     safetyRelevant: tenderFieldsSchema.shape.safetyRelevant.default(false),

@@ -113,6 +113,28 @@ describe("an offer whose claim the engine does not finish", () => {
   });
 });
 
+describe("a sensitivity claim with a curve that the engine does not finish", () => {
+  it("is stored needing evidence, line and curve points alike without numbers, with the reason naming the curve", async () => {
+    const [gateways] = await db.select().from(tenders).where(eq(tenders.reference, "RC-2027-004"));
+    await slowEngine();
+    const body = {
+      moduleName: "Slow gateway",
+      partNumber: "SG-1",
+      code: { family: "LDPC", decision: "soft", rate: 0.5 },
+      claims: [{ pointIndex: 0, metric: "bler", value: 1e-2, sensitivity: { dbm: -133, curve: [{ x: -135, unit: "dBm", metric: "per", value: 1e-1 }, { x: 2, unit: "ebn0Db", metric: "bler", value: 1e-3 }] } }],
+      envelope: { unitPrice: 150, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24, priceBreaks: [] },
+    };
+    const response = await submitPost(request(`/api/v1/tenders/${gateways.id}/offers`, { method: "POST", headers: as.vendor, body }), params({ id: gateways.id }));
+    expect(response.status).toBe(201);
+    const offer = await response.json();
+    const [stored] = await db.select().from(claims).where(eq(claims.offerId, offer.id));
+    expect(stored.verdict).toBe("needs-evidence");
+    expect(stored.result).toMatchObject({ engineError: expect.stringMatching(/did not finish the claim at Valley gateway and its 2 curve points/) });
+    expect(stored.radio!.curve.map((p) => [p.verdict, p.marginDb])).toEqual([["needs-evidence", null], ["needs-evidence", null]]);
+    expect(stored.radio!.worst).toMatchObject({ verdict: "needs-evidence", marginDb: null });
+  });
+});
+
 describe("a lab file the engine does not finish checking", () => {
   it("answers 422 and stores nothing", async () => {
     const [target] = await db.select().from(claims).where(eq(claims.id, fx.evidenceClaimId));

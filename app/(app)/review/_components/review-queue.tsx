@@ -1,5 +1,6 @@
 "use client";
 
+import { formatMarginDb } from "@/lib/offers/radio";
 import { useMemo, useState } from "react";
 import Link from "next/link";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
@@ -63,7 +64,15 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
       { field: "vendorName", headerName: "Vendor", flex: 1 },
       { field: "moduleName", headerName: "Module", flex: 1 },
       { headerName: "Operating point", flex: 1.2, valueGetter: (p) => p.data && `${p.data.pointLabel}: ${formatCondition(p.data.channelModel, p.data.channelValue)}` },
-      { headerName: "Claimed", width: 140, valueGetter: (p) => p.data && (p.data.metric === "ncg" ? `NCG ${p.data.value} dB` : `${p.data.metric.toUpperCase()} ${formatSci(p.data.value)}`) },
+      {
+        headerName: "Claimed",
+        width: 140,
+        valueGetter: (p) =>
+          p.data &&
+          (p.data.sensitivityDbm !== null
+            ? `${p.data.sensitivityDbm} dBm at PER ${formatSci(p.data.value)}, worst margin ${formatMarginDb(p.data.worstMarginDb)}`
+            : p.data.metric === "ncg" ? `NCG ${p.data.value} dB` : `${p.data.metric.toUpperCase()} ${formatSci(p.data.value)}`),
+      },
       { headerName: "Mark", width: 190, valueGetter: (p) => (p.data?.mark ? MARK_LABELS[p.data.mark as keyof typeof MARK_LABELS] : "Not marked") },
       { headerName: "Evidence", width: 130, valueGetter: (p) => (p.data?.evidence ? EVIDENCE_LABELS[p.data.evidence] : "") },
       { headerName: "", width: 90, sortable: false, cellRenderer: (p: ICellRendererParams<QueueRow>) => (p.data ? <Link href={`/review/claims/${p.data.id}`} aria-label={`Open claim ${p.data.vendorName} ${p.data.pointLabel}`}>Open</Link> : null) },

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { DISCLOSURE_WORDS } from "@/lib/tenders/disclosure";
 import Link from "next/link";
 import { DateTime } from "@/app/_components/date-time";
-import { CHANNEL_LABELS, formatCondition, formatSci } from "@/lib/format";
+import { CHANNEL_LABELS, formatPoint, formatSci } from "@/lib/format";
 import { orPage, pageViewer } from "@/lib/server/pages";
 import { getTenderView, tenderSubject } from "@/lib/server/tenders";
 import { openingProblems } from "@/lib/tenders/states";
@@ -37,6 +37,7 @@ export default async function TenderRequirementsPage({ params }: { params: Promi
           <div><dt className="label">Channel</dt><dd>{CHANNEL_LABELS[tender.channelModel].name}</dd></div>
           <div><dt className="label">Residual error required</dt><dd>{tender.targetMetric.toUpperCase()} ≤ {formatSci(tender.targetValue)}</dd></div>
           <div><dt className="label">Longest frame</dt><dd>{tender.maxFrameBits ? `${tender.maxFrameBits.toLocaleString("en-GB")} bits` : "no limit"}</dd></div>
+          {tender.channelModel === "biawgn" ? <div><dt className="label">Assumed receiver noise figure</dt><dd className="tabular-nums">{tender.assumedNoiseFigureDb} dB (for plausibility where a vendor states none; impossibility at the vendor&apos;s figure or 0 dB)</dd></div> : null}
           <div><dt className="label">Quantity</dt><dd className="tabular-nums">{tender.quantity.toLocaleString("en-GB")} units, priced in {tender.currency}</dd></div>
           <div><dt className="label">Closes</dt><dd><DateTime value={tender.closesAt} zone={tender.closesZone} /></dd></div>
           {tender.openedAt ? <div><dt className="label">Opened</dt><dd><DateTime value={tender.openedAt} zone={tender.closesZone} /></dd></div> : null}
@@ -49,7 +50,7 @@ export default async function TenderRequirementsPage({ params }: { params: Promi
           {tender.operatingPoints.length === 0 ? <p className="text-sm text-ink-soft">None yet.</p> : null}
           <ul className="text-sm">
             {tender.operatingPoints.map((point) => (
-              <li key={point.label}>{point.label}: {formatCondition(tender.channelModel, point.value)}</li>
+              <li key={point.label}>{point.label}: {formatPoint(tender.channelModel, point)}</li>
             ))}
           </ul>
         </div>

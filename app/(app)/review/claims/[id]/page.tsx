@@ -13,6 +13,8 @@ import { listThreads } from "@/lib/server/threads";
 import { ThreadList } from "@/app/(app)/threads/_components/thread-list";
 import { ClaimNumbers, ClaimFindings } from "@/app/_components/claim-numbers";
 import { ClaimCharts } from "./_components/claim-charts";
+import { CurveTable, SensitivityCaution, SensitivityWorst } from "@/app/_components/sensitivity-summary";
+import { describeSensitivity, formatDb, formatMarginDb, type RadioClaim } from "@/lib/offers/radio";
 import { EvidencePanel } from "./_components/evidence-panel";
 import { MarkForm } from "./_components/mark-form";
 import { OpenThreadForm } from "./_components/open-thread-form";
@@ -27,7 +29,8 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
   const runs = detail.evidenceStatus === null ? null : await orPage(listEvidence(viewer, id));
   const threads = viewer.ability.can("list", "Thread") ? await orPage(listThreads(viewer, { claimId: id })) : [];
   const current = latestMarks(detail.marks).get(claim.id);
-  const claimed = claim.metric === "ncg" ? `net coding gain ${claim.value} dB` : `${claim.metric.toUpperCase()} ${formatSci(claim.value)}`;
+  const radio = claim.radio as RadioClaim | null;
+  const claimed = radio ? describeSensitivity(radio, claim.value, formatSci) : claim.metric === "ncg" ? `net coding gain ${claim.value} dB` : `${claim.metric.toUpperCase()} ${formatSci(claim.value)}`;
   return (
     <div className="space-y-5">
       <header className="space-y-1">
@@ -39,7 +42,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
           <VerdictBadge verdict={claim.verdict} />
         </div>
         <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4">
-          <div><dt className="label">Operating point</dt><dd>{claim.pointLabel}: {formatCondition(tender.channelModel, claim.channelValue)}</dd></div>
+          <div><dt className="label">Operating point</dt><dd>{claim.pointLabel}: {radio ? `${radio.requiredDbm} dBm required; the line amounts to ${formatCondition(tender.channelModel, claim.channelValue)}` : formatCondition(tender.channelModel, claim.channelValue)}</dd></div>
           <div><dt className="label">Claimed</dt><dd className="tabular-nums">{claimed}</dd></div>
           <div><dt className="label">Code</dt><dd className="tabular-nums">{offer.codeFamily}, {offer.decision} decision{offer.n ? `, n = ${offer.n}` : ""}{offer.k ? `, k = ${offer.k}` : ""}</dd></div>
           <div><dt className="label">Current mark</dt><dd data-testid="current-mark">{current ? MARK_LABELS[current.mark] : "Not marked"}{current && acceptedAgainstImpossible({ verdict: claim.verdict, mark: current.mark }) ? <span className="ml-1 font-medium text-verdict-impossible">(against the engine&apos;s verdict)</span> : null}</dd></div>
@@ -48,6 +51,20 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
         </dl>
       </header>
 
+      {radio ? (
+        <section className="panel space-y-2" aria-label="Sensitivity">
+          <h2>Sensitivity and curve</h2>
+          <p className="text-sm">
+            Required at {claim.pointLabel}: {radio.requiredDbm} dBm at {radio.bitRate.toLocaleString("en-GB")} bit/s (information rate), {radio.payloadBits}-bit payload, PER ≤ {formatSci(radio.targetPer)}; the tender assumes a {radio.assumedNoiseFigureDb} dB noise figure where none is stated.
+          </p>
+          <SensitivityWorst radio={radio} per={claim.value} />
+          <p className="text-xs tabular-nums">
+            The line alone: implied Eb/N0 {formatDb(radio.line.impliedEbn0Db)}, limit {formatDb(radio.line.limitEbn0Db)}, margin {formatMarginDb(radio.line.marginDb)}. The claim&apos;s verdict is the worst of the line and its curve points; the findings and numbers below are the line&apos;s.
+          </p>
+          <CurveTable radio={radio} />
+          <SensitivityCaution />
+        </section>
+      ) : null}
       <ClaimFindings result={claim.result} />
       <ClaimNumbers result={claim.result} />
       <ClaimCharts result={claim.result} runs={(runs ?? []).map((r) => ({ x: r.channelValue, upper: r.upper, label: `lab: ${EVIDENCE_LABELS[r.status].toLowerCase()}` }))} />

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { forbidden } from "next/navigation";
 import { asSubject } from "@/policies";
 import { Cautions } from "@/app/_components/cautions";
+import { SensitivityCaution } from "@/app/_components/sensitivity-summary";
 import { orPage, pageViewer } from "@/lib/server/pages";
 import { getComparison } from "@/lib/server/comparison";
 import { listRecommendations } from "@/lib/server/recommendations";
@@ -23,6 +24,7 @@ export default async function ComparisonPage({ params }: { params: Promise<{ id:
   return (
     <div className="space-y-4">
       <Cautions />
+      {tender.operatingPoints.some((p) => p.sensitivity) ? <SensitivityCaution /> : null}
       <ComparisonView tenderId={tender.id} reference={tender.reference} data={data} recommendations={recommendations} />
     </div>
   );

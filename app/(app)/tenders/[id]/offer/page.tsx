@@ -29,12 +29,26 @@ function defaultsFor(tender: TenderWithInvites, current: OfferView | null): Offe
       rate: current?.rate ?? null,
       overhead: current?.overhead ?? null,
     },
-    claims: tender.operatingPoints.map((_, i) => ({
-      pointIndex: i,
-      metric: claimAt(i)?.metric ?? tender.targetMetric,
-      value: claimAt(i)?.value ?? tender.targetValue,
-      ncgOutputBer: claimAt(i)?.ncgOutputBer ?? null,
-    })),
+    claims: tender.operatingPoints.map((point, i) => {
+      if (point.sensitivity) {
+        const radio = claimAt(i)?.radio;
+        return {
+          pointIndex: i,
+          metric: "bler" as const,
+          value: claimAt(i)?.value ?? point.sensitivity.targetPer,
+          ncgOutputBer: null,
+          sensitivity: radio
+            ? { dbm: radio.sensitivityDbm, noiseFigureDb: radio.noiseFigureDb, modulation: radio.modulation, n: radio.n, k: radio.k, curve: radio.curve.map(({ x, unit, metric, value }) => ({ x, unit, metric, value })) }
+            : { dbm: point.value, noiseFigureDb: null, modulation: null, n: null, k: null, curve: [] },
+        };
+      }
+      return {
+        pointIndex: i,
+        metric: claimAt(i)?.metric ?? tender.targetMetric,
+        value: claimAt(i)?.value ?? tender.targetValue,
+        ncgOutputBer: claimAt(i)?.ncgOutputBer ?? null,
+      };
+    }),
     envelope: {
       unitPrice: current?.unitPrice as number,
       // The tender fixes the currency: the form shows it and sends it.

@@ -37,9 +37,9 @@ function columnsFor(input: ScoringInput, currency: string): (ColDef<ComparisonRo
           },
           {
             colId: `margin-${i}`,
-            headerName: `${point.label}: channel margin`,
+            headerName: point.sensitivity ? `${point.label}: worst margin (dB Eb/N0 over the limit)` : `${point.label}: channel margin`,
             valueGetter: (p) => p.data?.points[i]?.margin ?? "–",
-            width: 150,
+            width: point.sensitivity ? 260 : 150,
             type: "rightAligned",
           },
         ]),

@@ -6,6 +6,10 @@ import { formatCondition } from "@/lib/format";
 import type { ChannelModel } from "@/lib/offers";
 import type { OfferFormValues } from "@/lib/validation/offer";
 import { formDecimal, formOptionalDecimal } from "@/lib/numbers";
+import { SensitivityClaimRow } from "./sensitivity-fields";
+
+/** An operating point as the offer form needs it (a point stated in dBm carries its sensitivity terms). */
+export type OfferPoint = { label: string; value: number; sensitivity?: { bitRate: number; payloadBits: number; targetPer: number } | null };
 
 
 function ClaimRow({ index, label, condition, allowNcg }: { index: number; label: string; condition: string; allowNcg: boolean }) {
@@ -47,15 +51,19 @@ function ClaimRow({ index, label, condition, allowNcg }: { index: number; label:
 }
 
 /** One claim per operating point of the tender: the points are the buyer's, the claims the vendor's. */
-export function ClaimsFields({ model, points }: { model: ChannelModel; points: { label: string; value: number }[] }) {
+export function ClaimsFields({ model, points }: { model: ChannelModel; points: OfferPoint[] }) {
   const { formState } = useFormContext<OfferFormValues>();
   return (
     <section className="space-y-3" aria-label="Claims">
       <h3>Claims, one per operating point</h3>
       <p className="text-xs text-ink-soft">Probabilities in scientific notation are welcome (1e-5). The verdict is computed when you submit.</p>
-      {points.map((point, i) => (
-        <ClaimRow key={i} index={i} label={point.label} condition={formatCondition(model, point.value)} allowNcg={model !== "bec"} />
-      ))}
+      {points.map((point, i) =>
+        point.sensitivity ? (
+          <SensitivityClaimRow key={i} index={i} point={point} />
+        ) : (
+          <ClaimRow key={i} index={i} label={point.label} condition={formatCondition(model, point.value)} allowNcg={model !== "bec"} />
+        ),
+      )}
       <FieldError id="claims-error" message={errorAt(formState.errors, "claims")} />
     </section>
   );

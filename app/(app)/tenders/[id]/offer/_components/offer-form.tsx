@@ -8,13 +8,13 @@ import type { ChannelModel } from "@/lib/offers";
 import { offerSchema, type OfferFormValues, type OfferInput } from "@/lib/validation/offer";
 import { submitOfferAction, type OfferFormResult } from "../actions";
 import { formOptionalCount, formOptionalDecimal } from "@/lib/numbers";
-import { ClaimsFields } from "./claims-fields";
+import { ClaimsFields, type OfferPoint } from "./claims-fields";
 import { EnvelopeFields } from "./envelope-fields";
 
 interface Props {
   tenderId: string;
   model: ChannelModel;
-  points: { label: string; value: number }[];
+  points: OfferPoint[];
   defaults: OfferFormValues;
   resubmission: boolean;
 }

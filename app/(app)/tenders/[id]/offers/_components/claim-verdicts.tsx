@@ -1,4 +1,6 @@
+import { CurveTable, SensitivityCaution, SensitivityWorst } from "@/app/_components/sensitivity-summary";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
+import type { RadioClaim } from "@/lib/offers/radio";
 import { formatCondition, formatSci } from "@/lib/format";
 import type { ChannelModel } from "@/lib/offers";
 import type { OfferView } from "@/lib/server/offers";
@@ -18,7 +20,9 @@ export function describeClaim(claim: Pick<ClaimView, "metric" | "value" | "ncgOu
  */
 export function ClaimVerdicts({ claims, model, detail = false }: { claims: ClaimView[]; model: ChannelModel; detail?: boolean }) {
   if (claims.length === 0) return <p className="text-sm text-ink-soft">No claims to show.</p>;
+  const radios = claims.some((c) => c.radio);
   return (
+    <>
     <table className="data-table">
       <thead>
         <tr>
@@ -38,7 +42,10 @@ export function ClaimVerdicts({ claims, model, detail = false }: { claims: Claim
                 {claim.pointLabel}
                 <div className="text-xs text-ink-soft">{formatCondition(model, claim.channelValue)}</div>
               </td>
-              <td className="tabular-nums whitespace-nowrap">{describeClaim(claim)}</td>
+              <td className="tabular-nums">
+                {claim.radio ? <SensitivityWorst radio={claim.radio as RadioClaim} per={claim.value} /> : <span className="whitespace-nowrap">{describeClaim(claim)}</span>}
+                {claim.radio && detail ? <details className="mt-1 text-xs"><summary>Curve, {(claim.radio as RadioClaim).curve.length} points</summary><CurveTable radio={claim.radio as RadioClaim} /></details> : null}
+              </td>
               <td><VerdictBadge verdict={claim.verdict} /></td>
               <td className="text-xs">
                 <ul className="space-y-1">
@@ -56,5 +63,7 @@ export function ClaimVerdicts({ claims, model, detail = false }: { claims: Claim
         })}
       </tbody>
     </table>
+    {radios ? <SensitivityCaution /> : null}
+    </>
   );
 }
