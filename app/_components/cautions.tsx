@@ -1,8 +1,7 @@
-import { SAFETY_CAUTION } from "@/lib/tenders/safety";
+import { CAUTIONS, SAFETY_CAUTION } from "@/lib/cautions";
 
-/** The cautions every page that shows verdicts or memos carries (PRODUCT.md, "Cautions the product shows"). */
-export const CAUTIONS =
-  "Verdicts judge coding claims against mathematical limits; they do not certify a module's radio-regulatory approval, safety, or fitness for life-safety or medical use, and they do not replace qualification testing. Awards follow your organisation's purchasing policy and the procurement law that applies to it.";
+export { CAUTIONS };
+
 
 /**
  * As a quiet line in the footer of every page, or as a marked note beside verdicts and memos,

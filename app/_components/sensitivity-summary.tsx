@@ -1,7 +1,7 @@
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { formatSci } from "@/lib/format";
 import { CURVE_METRIC_WORDS, describeSensitivity, describeWorst, formatDb, formatMarginDb, type RadioClaim } from "@/lib/offers/radio";
-import { SENSITIVITY_CAUTION } from "@/lib/tenders/safety";
+import { SENSITIVITY_CAUTION } from "@/lib/cautions";
 
 /** The caution that goes wherever a sensitivity figure and its verdict are shown. */
 export function SensitivityCaution() {

@@ -8,7 +8,7 @@ import type { MarkKind } from "@/db/schema/evaluation";
 import type { ClaimMetric, Verdict } from "@/db/schema/offers";
 import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
 import { acceptedAgainstImpossible } from "@/lib/review/marks";
-import { SAFETY_CAUTION, SENSITIVITY_CAUTION } from "@/lib/tenders/safety";
+import { SAFETY_CAUTION, SENSITIVITY_CAUTION } from "@/lib/cautions";
 import { CURVE_METRIC_WORDS, describeSensitivity, formatDb, formatMarginDb, worstPlace, type RadioClaim } from "@/lib/offers/radio";
 import type { EvidenceStatus } from "@/db/schema/evaluation";
 import { deviationWords } from "./award-value";

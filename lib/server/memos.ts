@@ -3,7 +3,7 @@ import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject, defineAbilityFor } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { approvals, claims, declarations, evidenceRuns, marks, memos, offers, organisations, technicalSignoffs, tenders, users } from "@/db/schema";
-import { CAUTIONS } from "@/app/_components/cautions";
+import { CAUTIONS } from "@/lib/cautions";
 import { memoDocument } from "@/lib/approvals/memo-content";
 import { memoIdentifier } from "@/lib/approvals/routing";
 import type { Head } from "@/lib/ledger/head";

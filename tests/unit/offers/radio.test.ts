@@ -18,7 +18,7 @@ import {
   type SensitivityTerms,
 } from "@/lib/offers/radio";
 import { pointScore } from "@/lib/scoring/criteria";
-import { SENSITIVITY_CAUTION } from "@/lib/tenders/safety";
+import { SENSITIVITY_CAUTION } from "@/lib/cautions";
 
 const TERMS: SensitivityTerms = { requiredDbm: -130, bitRate: 1200, payloadBits: 160, targetPer: 1e-2, assumedNoiseFigureDb: 6 };
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { SAFETY_CAUTION, withSafetyCaution } from "@/lib/tenders/safety";
+import { SAFETY_CAUTION } from "@/lib/cautions";
+import { withSafetyCaution } from "@/lib/tenders/safety";
 
 describe("the safety caution on notices", () => {
   const notices = [{ to: ["a@example.test"], subject: "Awarded", text: "The tender is awarded." }];

@@ -1,6 +1,6 @@
 import { DateTime } from "@/app/_components/date-time";
 import type { getSignoffState } from "@/lib/server/signoff";
-import { SAFETY_CAUTION } from "@/lib/tenders/safety";
+import { SAFETY_CAUTION } from "@/lib/cautions";
 import { SignoffForm } from "./signoff-form";
 
 type SignoffState = Awaited<ReturnType<typeof getSignoffState>>;
