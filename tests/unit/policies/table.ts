@@ -36,7 +36,7 @@ const scoped = (subject: SubjectType) => {
   return {
     t1: [maker(closed), maker({ ...closed, vendorOrgId: VENDOR_B })],
     t2: [maker({ ...closed, tenderId: T2 })],
-    sealed: OFFER_PARTS.includes(subject) ? [maker({ tenderState: "open" }), maker({ tenderState: "draft" })] : [],
+    sealed: OFFER_PARTS.includes(subject) ? [maker({ tenderState: "open" }), maker({ tenderState: "draft" }), maker({ tenderState: "cancelled-sealed" })] : [],
   };
 };
 const declaredOnT1 = (actions: Action | readonly Action[], subjects: SubjectType[]): Entry[] =>

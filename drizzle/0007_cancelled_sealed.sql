@@ -1,0 +1,1 @@
+ALTER TABLE "tenders" ADD COLUMN "cancelled_sealed" boolean DEFAULT false NOT NULL;
