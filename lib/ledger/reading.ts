@@ -40,6 +40,7 @@ const GUARDS: Record<string, Guard> = {
   "approval.given": { subject: "Approval", record: (e, c) => ({ tenderId: c.tenderId, recommendationPreparedBy: "", value: numberOr(e.data.value, 0), tenderCreatedBy: c.tenderCreatedBy }) },
   "recommendation.returned": { subject: "Approval", record: (_, c) => ({ tenderId: c.tenderId, recommendationPreparedBy: "", value: 0, tenderCreatedBy: c.tenderCreatedBy }) },
   "objection.lodged": { subject: "Objection", record: (e, c) => ({ tenderId: c.tenderId, vendorOrgId: c.vendorOrgId }) },
+  "objection.answered": { subject: "Objection", record: (e, c) => ({ tenderId: c.tenderId, vendorOrgId: c.vendorOrgId }) },
   "addendum.published": { subject: "Addendum", record: (_, c) => ({ tenderId: c.tenderId, invitedOrgIds: c.invitedOrgIds }) },
   "addendum.acknowledged": { subject: "Addendum", record: (_, c) => ({ tenderId: c.tenderId, invitedOrgIds: c.invitedOrgIds }) },
 };
@@ -84,6 +85,7 @@ const SENTENCES: Record<string, string> = {
   "recommendation.returned": "%who returned the award recommendation of %ref.",
   "tender.awarded": "%ref was awarded on %who's approval.",
   "objection.lodged": "%who objected in writing to the award of %ref.",
+  "objection.answered": "%who answered a vendor's objection to the award of %ref.",
   "addendum.published": "%who published an addendum to %ref.",
   "addendum.acknowledged": "%who acknowledged an addendum to %ref.",
 };

@@ -82,7 +82,7 @@ const TABLE: Record<Role, Entry[]> = {
     ),
     [READ, "Declaration", [make.Declaration()]],
     [READ, "ApprovalLimit", [make.ApprovalLimit()]],
-    [READ, "Objection", [make.Objection(), make.Objection({ vendorOrgId: VENDOR_B })]],
+    [[...READ, "update"], "Objection", [make.Objection(), make.Objection({ vendorOrgId: VENDOR_B })]],
     [["create", ...READ], "Addendum", [make.Addendum(), make.Addendum({ tenderId: T2 })]],
     [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })],
       [make.Envelope({ opened: false }), make.Envelope({ tenderState: "open" })]],

@@ -2,9 +2,9 @@
 
 import { z } from "zod";
 import { acknowledgeAddendum, publishAddendum } from "@/lib/server/addenda";
-import { lodgeObjection } from "@/lib/server/objections";
+import { answerObjection, lodgeObjection } from "@/lib/server/objections";
 import { runForm, type FormResult } from "@/lib/server/form-action";
-import { addendumSchema, objectionSchema } from "@/lib/validation/notices";
+import { addendumSchema, objectionAnswerSchema, objectionSchema } from "@/lib/validation/notices";
 
 const page = (tenderId: string) => `/tenders/${String(tenderId)}/notices`;
 
@@ -18,4 +18,8 @@ export async function acknowledgeAddendumAction(tenderId: string, addendumId: st
 
 export async function lodgeObjectionAction(tenderId: string, values: unknown): Promise<FormResult> {
   return runForm(objectionSchema, values, (viewer, input) => lodgeObjection(viewer, String(tenderId), input), [page(tenderId)], "Objection lodged; the purchasing team has been told.");
+}
+
+export async function answerObjectionAction(tenderId: string, objectionId: string, values: unknown): Promise<FormResult> {
+  return runForm(objectionAnswerSchema, values, (viewer, input) => answerObjection(viewer, String(objectionId), input), [page(tenderId)], "Answer sent to the vendor.");
 }
