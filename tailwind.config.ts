@@ -9,7 +9,9 @@ export default {
         sans: ["var(--font-sans)", "system-ui", "sans-serif"],
       },
       colors: {
-        ink: { DEFAULT: "#1c2430", soft: "#4a5568", faint: "#8a94a6" },
+        // Text in ink, soft or muted (secondary text: 4.5:1 or more on every paper colour); faint is
+        // for borders and rules only, never for text (it reads at about 3:1).
+        ink: { DEFAULT: "#1c2430", soft: "#4a5568", muted: "#5d6878", faint: "#8a94a6" },
         paper: { DEFAULT: "#f7f8fa", raised: "#ffffff", sunk: "#eef1f5" },
         accent: { DEFAULT: "#0f5e6b", soft: "#dcefF1", strong: "#0a434c" },
         verdict: {

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import localFont from "next/font/local";
 import { DemoMarker } from "./_components/demo-marker";
+import { SkipLink } from "./_components/skip-link";
 import "./globals.css";
 
 // Inter ships inside the app from its npm package; nothing is fetched at build or run time.
@@ -20,6 +21,7 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
   return (
     <html lang="en" className={sans.variable}>
       <body className="min-h-screen font-sans">
+        <SkipLink />
         {children}
         <DemoMarker />
       </body>

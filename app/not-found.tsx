@@ -1,11 +1,12 @@
 import Link from "next/link";
+import { Main } from "./_components/main";
 
 export default function NotFound() {
   return (
-    <main className="mx-auto max-w-lg px-6 py-24 text-center">
+    <Main className="mx-auto max-w-lg px-6 py-24 text-center">
       <h1>Not found</h1>
       <p className="mt-2 text-sm text-ink-soft">There is nothing at this address, or it is no longer here.</p>
       <p className="mt-6"><Link href="/">Back to your desk</Link></p>
-    </main>
+    </Main>
   );
 }

@@ -20,3 +20,12 @@ export function navFor(ability: AppAbility, roles: readonly string[], options: {
   items.push({ href: "/memo-check", label: "Memo check" });
   return items;
 }
+
+/**
+ * The item the page at `pathname` belongs to: the one whose path is the page's or its longest
+ * prefix ("/tenders/abc/review" belongs to "/tenders"), or null.
+ */
+export function currentNavHref(items: readonly NavItem[], pathname: string): string | null {
+  const within = items.filter((i) => pathname === i.href || pathname.startsWith(`${i.href}/`));
+  return within.sort((a, b) => b.href.length - a.href.length)[0]?.href ?? null;
+}

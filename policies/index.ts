@@ -12,6 +12,9 @@ export type { AppAbility, TaggedSubject } from "./types";
 export {
   ACTIONS,
   CANCELLABLE_STATES,
+  cancelKeepsSeal,
+  offersSealed,
+  recordTenderState,
   ENVELOPE_FIELDS,
   ROLES,
   SEALED_STATES,
@@ -19,7 +22,9 @@ export {
   TENDER_STATES,
   type Action,
   type EnvelopeField,
+  type RecordTenderState,
   type Role,
+  type SealFacts,
   type SubjectType,
   type TenderState,
 } from "./vocabulary";

@@ -1,4 +1,4 @@
-import type { EnvelopeField, SubjectType, TenderState } from "./vocabulary";
+import type { EnvelopeField, RecordTenderState, SubjectType, TenderState } from "./vocabulary";
 
 /**
  * The fields each subject's conditions read. lib/server passes records with at least these
@@ -25,7 +25,7 @@ export interface OfferRecord extends EnvelopeValues {
   tenderId: string;
   vendorOrgId: string;
   /** The state of the offer's tender: vendors write only while it is "open". */
-  tenderState: TenderState;
+  tenderState: RecordTenderState;
   /** Whether the buyer has opened this tender's envelopes. */
   envelopeOpened: boolean;
 }
@@ -35,14 +35,14 @@ export interface EnvelopeRecord extends EnvelopeValues {
   tenderId: string;
   vendorOrgId: string;
   opened: boolean;
-  tenderState?: TenderState;
+  tenderState?: RecordTenderState;
 }
 
 /**
  * The records of a vendor's offer other than the Offer itself carry their tender's state where it
  * is known: the buying side reads none of them while the tender is draft or open (sealed).
  */
-export interface ClaimRecord { id: string; offerId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
+export interface ClaimRecord { id: string; offerId: string; tenderId: string; vendorOrgId: string; tenderState?: RecordTenderState }
 
 export interface DocumentRecord {
   id: string;
@@ -50,13 +50,13 @@ export interface DocumentRecord {
   tenderId: string;
   vendorOrgId: string;
   /** Needed to upload (create): vendors upload only while the tender is "open". */
-  tenderState?: TenderState;
+  tenderState?: RecordTenderState;
 }
 
-export interface MarkRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
+export interface MarkRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: RecordTenderState }
 /** A clarification thread between engineers and one vendor; its messages share its access. */
-export interface ThreadRecord { id: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
-export interface EvidenceRunRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: TenderState }
+export interface ThreadRecord { id: string; tenderId: string; vendorOrgId: string; tenderState?: RecordTenderState }
+export interface EvidenceRunRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: RecordTenderState }
 export interface DeclarationRecord { tenderId: string; userId: string }
 export interface TechnicalSignoffRecord { tenderId: string }
 export interface ScoreRecord { tenderId: string }

@@ -74,8 +74,36 @@ export const TENDER_STATES = [
 ] as const;
 export type TenderState = (typeof TENDER_STATES)[number];
 
-/** States in which offers are sealed to the whole buying side: nothing of them is read before closing. */
-export const SEALED_STATES = ["draft", "open"] as const;
+/**
+ * The tender state that the records of its offers carry (policies/records.ts): the tender's own
+ * state, except that a tender cancelled before its closing time reads as "cancelled-sealed", since
+ * its offers were never unsealed.
+ */
+export const RECORD_TENDER_STATES = [...TENDER_STATES, "cancelled-sealed"] as const;
+export type RecordTenderState = (typeof RECORD_TENDER_STATES)[number];
+
+/** States in which offers are sealed to the whole buying side: nothing of them is read before closing, nor ever if cancelled before it. */
+export const SEALED_STATES = ["draft", "open", "cancelled-sealed"] as const;
+
+/** What a tender tells the rules about its offers' seal. */
+export interface SealFacts {
+  state: TenderState;
+  /** Set when a tender is cancelled before its closing time. */
+  cancelledSealed: boolean;
+}
+
+/** The state the records of this tender's offers carry. */
+export function recordTenderState(tender: SealFacts): RecordTenderState {
+  return tender.state === "cancelled" && tender.cancelledSealed ? "cancelled-sealed" : tender.state;
+}
+
+/** Whether this tender's offers are sealed to the buying side. */
+export function offersSealed(tender: SealFacts): boolean {
+  return (SEALED_STATES as readonly string[]).includes(recordTenderState(tender));
+}
+
+/** Whether a tender cancelled now, from this state, keeps its offers sealed for good. */
+export const cancelKeepsSeal = (state: TenderState): boolean => (SEALED_STATES as readonly string[]).includes(state);
 
 /** States from which a tender may still be cancelled (anything before the award). */
 export const CANCELLABLE_STATES = ["draft", "open", "technical", "commercial", "approval"] as const;

@@ -1,6 +1,7 @@
-import Link from "next/link";
 import { Cautions } from "@/app/_components/cautions";
 import { Logo } from "@/app/_components/logo";
+import { Main } from "@/app/_components/main";
+import { MainNav } from "@/app/_components/main-nav";
 import { navFor } from "@/lib/nav";
 import { mailroomEnabled } from "@/lib/server/services";
 import { pageViewer } from "@/lib/server/pages";
@@ -14,13 +15,7 @@ export default async function SignedInLayout({ children }: { children: React.Rea
       <header className="border-b border-ink-faint/20 bg-paper-raised">
         <div className="mx-auto flex max-w-7xl items-center gap-6 px-6 py-2.5">
           <Logo />
-          <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1 text-sm">
-            {items.map((item) => (
-              <Link key={item.href} href={item.href} className="rounded-md px-2.5 py-1 text-ink-soft no-underline hover:bg-paper-sunk hover:text-ink hover:no-underline">
-                {item.label}
-              </Link>
-            ))}
-          </nav>
+          <MainNav items={items} />
           <div className="text-right text-xs leading-tight" data-testid="who">
             <div className="font-medium text-ink">{viewer.name}</div>
             <div className="text-ink-soft">
@@ -32,7 +27,7 @@ export default async function SignedInLayout({ children }: { children: React.Rea
           </form>
         </div>
       </header>
-      <main className="mx-auto w-full max-w-7xl flex-1 px-6 py-6">{children}</main>
+      <Main className="mx-auto w-full max-w-7xl flex-1 px-6 py-6">{children}</Main>
       <footer className="border-t border-ink-faint/20 bg-paper-raised">
         <div className="mx-auto max-w-7xl px-6 py-4">
           <Cautions placement="footer" />

@@ -1,5 +1,6 @@
 import { Cautions } from "@/app/_components/cautions";
 import { Logo } from "@/app/_components/logo";
+import { Main } from "@/app/_components/main";
 
 export default function SignedOutLayout({ children }: { children: React.ReactNode }) {
   return (
@@ -7,7 +8,7 @@ export default function SignedOutLayout({ children }: { children: React.ReactNod
       <header className="border-b border-ink-faint/20 bg-paper-raised px-6 py-3">
         <Logo />
       </header>
-      <main className="flex flex-1 items-start justify-center px-4 py-16">{children}</main>
+      <Main className="flex flex-1 items-start justify-center px-4 py-16">{children}</Main>
       <footer className="border-t border-ink-faint/20 px-6 py-4">
         <Cautions placement="footer" />
       </footer>

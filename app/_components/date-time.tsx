@@ -5,7 +5,7 @@ export function DateTime({ value, zone = "UTC" }: { value: Date | string; zone?:
   const date = new Date(value);
   return (
     <time dateTime={date.toISOString()} className="tabular-nums">
-      {formatInTimeZone(date, zone, "d MMM yyyy, HH:mm")} <span className="text-ink-faint">{zone}</span>
+      {formatInTimeZone(date, zone, "d MMM yyyy, HH:mm")} <span className="text-ink-muted">{zone}</span>
     </time>
   );
 }

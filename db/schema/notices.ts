@@ -1,4 +1,4 @@
-import { index, primaryKey, text, pgTable } from "drizzle-orm/pg-core";
+import { index, primaryKey, text, pgTable, timestamp } from "drizzle-orm/pg-core";
 import { tenderRef, vendorRef } from "./refs";
 import { id, createdAt } from "./columns";
 import { users } from "./people";
@@ -16,6 +16,10 @@ export const objections = pgTable(
       .notNull()
       .references(() => users.id),
     lodgedAt: createdAt(),
+    /** The buying team's written answer, sent to the vendor; until then the objection waits on the buyer's Desk. */
+    answer: text("answer"),
+    answeredBy: text("answered_by").references(() => users.id),
+    answeredAt: timestamp("answered_at", { withTimezone: true }),
   },
   (t) => [index("objections_tender_idx").on(t.tenderId)],
 );

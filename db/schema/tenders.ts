@@ -71,6 +71,8 @@ export const tenders = pgTable(
     envelopesOpenedAt: timestamp("envelopes_opened_at", { withTimezone: true }),
     awardedAt: timestamp("awarded_at", { withTimezone: true }),
     cancelReason: text("cancel_reason"),
+    /** Cancelled before it reached its closing time: its offers were never unsealed and stay sealed to the buying side. */
+    cancelledSealed: boolean("cancelled_sealed").notNull().default(false),
     createdBy: text("created_by")
       .notNull()
       .references(() => users.id),

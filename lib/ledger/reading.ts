@@ -1,6 +1,6 @@
 // How a ledger entry reads on the Ledger tab: which of its details the viewer may read (the rest is
 // masked by the same policies as the records themselves), and a sentence for it. Pure.
-import type { SubjectRecords, SubjectType, TenderState } from "@/policies";
+import type { RecordTenderState, SubjectRecords, SubjectType } from "@/policies";
 import type { LedgerRow } from "./chain";
 
 /** A stored entry, as the chain keeps it. */
@@ -9,7 +9,7 @@ export type LedgerEntryIn = Pick<LedgerRow, "seq" | "at" | "actorId" | "actorLab
 /** What a guard needs to know about the entry's tender and vendor to build the policy record. */
 export interface EntryContext {
   tenderId: string;
-  tenderState: TenderState;
+  tenderState: RecordTenderState;
   tenderCreatedBy: string;
   envelopeOpened: boolean;
   invitedOrgIds: string[];
@@ -40,6 +40,7 @@ const GUARDS: Record<string, Guard> = {
   "approval.given": { subject: "Approval", record: (e, c) => ({ tenderId: c.tenderId, recommendationPreparedBy: "", value: numberOr(e.data.value, 0), tenderCreatedBy: c.tenderCreatedBy }) },
   "recommendation.returned": { subject: "Approval", record: (_, c) => ({ tenderId: c.tenderId, recommendationPreparedBy: "", value: 0, tenderCreatedBy: c.tenderCreatedBy }) },
   "objection.lodged": { subject: "Objection", record: (e, c) => ({ tenderId: c.tenderId, vendorOrgId: c.vendorOrgId }) },
+  "objection.answered": { subject: "Objection", record: (e, c) => ({ tenderId: c.tenderId, vendorOrgId: c.vendorOrgId }) },
   "addendum.published": { subject: "Addendum", record: (_, c) => ({ tenderId: c.tenderId, invitedOrgIds: c.invitedOrgIds }) },
   "addendum.acknowledged": { subject: "Addendum", record: (_, c) => ({ tenderId: c.tenderId, invitedOrgIds: c.invitedOrgIds }) },
 };
@@ -84,13 +85,22 @@ const SENTENCES: Record<string, string> = {
   "recommendation.returned": "%who returned the award recommendation of %ref.",
   "tender.awarded": "%ref was awarded on %who's approval.",
   "objection.lodged": "%who objected in writing to the award of %ref.",
+  "objection.answered": "%who answered a vendor's objection to the award of %ref.",
   "addendum.published": "%who published an addendum to %ref.",
   "addendum.acknowledged": "%who acknowledged an addendum to %ref.",
 };
 
+/** What a cancellation did to the offers' seal (entries written before it was recorded say nothing). */
+function cancelledSentence(data: Record<string, unknown>): string {
+  if (data.offersSealed === true) return "%who cancelled %ref before its closing time; its offers stay sealed to the buying side.";
+  if (data.offersSealed === false) return "%who cancelled %ref after its closing time; its offers stay as unsealed at closing.";
+  return SENTENCES["tender.cancelled"];
+}
+
 /** "Ines Calloway opened RC-2027-001 for offers.": who did what to which tender. */
-export function ledgerSentence(entry: Pick<LedgerEntryIn, "actorLabel" | "action">, reference: string): string {
+export function ledgerSentence(entry: Pick<LedgerEntryIn, "actorLabel" | "action"> & { data?: Record<string, unknown> }, reference: string): string {
   const who = entry.actorLabel === "system" ? "Ratecourt" : entry.actorLabel;
-  const template = SENTENCES[entry.action] ?? `%who recorded "${entry.action}" on %ref.`;
+  const template =
+    entry.action === "tender.cancelled" ? cancelledSentence(entry.data ?? {}) : (SENTENCES[entry.action] ?? `%who recorded "${entry.action}" on %ref.`);
   return template.replace("%who", who).replace("%ref", reference);
 }

@@ -1,8 +1,7 @@
 // The policy records of an offer and its documents (policies/records.ts), built from stored rows.
-import type { DocumentRecord, OfferRecord, TenderState } from "@/policies";
+import { recordTenderState, type DocumentRecord, type OfferRecord, type RecordTenderState, type SealFacts } from "@/policies";
 
-export interface OfferTenderState {
-  state: TenderState;
+export interface OfferTenderState extends SealFacts {
   envelopesOpenedAt: Date | null;
 }
 
@@ -11,12 +10,12 @@ export function offerRecord<R extends { id: string; tenderId: string; vendorOrgI
   row: R,
   tender: OfferTenderState,
 ): R & OfferRecord {
-  return { ...row, tenderState: tender.state, envelopeOpened: tender.envelopesOpenedAt !== null };
+  return { ...row, tenderState: recordTenderState(tender), envelopeOpened: tender.envelopesOpenedAt !== null };
 }
 
 export function documentRecord(
   row: { id: string; offerId: string | null; tenderId: string; vendorOrgId: string },
-  tenderState?: TenderState,
+  tenderState?: RecordTenderState,
 ): DocumentRecord {
   return { id: row.id, offerId: row.offerId ?? "", tenderId: row.tenderId, vendorOrgId: row.vendorOrgId, ...(tenderState ? { tenderState } : {}) };
 }

@@ -17,7 +17,7 @@ import {
 } from "@/lib/validation/review";
 import { ledgerStepSchema } from "@/lib/validation/ledger";
 import { cancelTenderSchema, tenderInputSchema, tenderPatchSchema } from "@/lib/validation/tender";
-import { addendumSchema, ledgerPageSchema, objectionSchema } from "@/lib/validation/notices";
+import { addendumSchema, ledgerPageSchema, objectionAnswerSchema, objectionSchema } from "@/lib/validation/notices";
 
 export type Method = "get" | "post" | "put" | "patch" | "delete";
 
@@ -62,6 +62,7 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "post", path: "/tenders/{id}/cancel", tag: "Tenders", summary: "Cancel a tender before its award, with a reason", body: cancelTenderSchema },
   { method: "get", path: "/tenders/{id}/objections", tag: "Notices", summary: "The standstill period and the objections the viewer may read" },
   { method: "post", path: "/tenders/{id}/objections", tag: "Notices", summary: "Object in writing to an award during the standstill period (vendor)", body: objectionSchema, created: true },
+  { method: "post", path: "/objections/{id}/answer", tag: "Notices", summary: "Answer a vendor's objection in writing, once (buyer)", body: objectionAnswerSchema },
   { method: "get", path: "/tenders/{id}/addenda", tag: "Notices", summary: "Addenda of a tender, with who acknowledged them" },
   { method: "post", path: "/tenders/{id}/addenda", tag: "Notices", summary: "Publish an addendum to every invited vendor, without the asker's name (buyer, declared engineer)", body: addendumSchema, created: true },
   { method: "get", path: "/tenders/{id}/ledger", tag: "Ledger", summary: "A page of the tender's ledger as sentences, details the viewer may not read masked", query: ledgerPageSchema },

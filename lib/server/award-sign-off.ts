@@ -1,6 +1,6 @@
 import "server-only";
 import { asc, desc, eq } from "drizzle-orm";
-import { asSubject } from "@/policies";
+import { asSubject, recordTenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { approvals, memos, offers, organisations, recommendations, users } from "@/db/schema";
 import { deviationWords, governingValue } from "@/lib/approvals/award-value";
@@ -38,7 +38,7 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
     .innerJoin(users, eq(users.id, rec.preparedBy))
     .where(eq(offers.id, rec.offerId));
   const offerList = (await currentOffersWithClaims(db, tender)).filter((o) =>
-    viewer.ability.can("read", asSubject("Offer", { id: o.id, tenderId, vendorOrgId: o.vendorOrgId, tenderState: tender.state, envelopeOpened: tender.envelopesOpenedAt !== null })),
+    viewer.ability.can("read", asSubject("Offer", { id: o.id, tenderId, vendorOrgId: o.vendorOrgId, tenderState: recordTenderState(tender), envelopeOpened: tender.envelopesOpenedAt !== null })),
   );
   const readsMark = (c: { id: string; vendorOrgId: string }) => viewer.ability.can("read", asSubject("Mark", { claimId: c.id, tenderId, vendorOrgId: c.vendorOrgId }));
   const { decisions, earlier } = await decisionsByRecommendation(db, tenderId, rec.id);

@@ -1,7 +1,7 @@
 import "server-only";
 import { sensitivityScoring } from "@/lib/offers/radio";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
-import { asSubject } from "@/policies";
+import { asSubject, recordTenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, evidenceRuns, ledgerEntries, marks, offers, organisations, tenders } from "@/db/schema";
 import type { MarkKind } from "@/db/schema/evaluation";
@@ -140,7 +140,7 @@ export async function loadScoringInput(db: Queryable, viewer: Viewer, tender: Te
     .orderBy(asc(organisations.name));
   const envelopeOpened = tender.envelopesOpenedAt !== null;
   const readable = rows.filter(({ offer }) =>
-    viewer.ability.can("read", asSubject("Offer", { id: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId, tenderState: tender.state, envelopeOpened })),
+    viewer.ability.can("read", asSubject("Offer", { id: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId, tenderState: recordTenderState(tender), envelopeOpened })),
   );
   const claimRows = await loadClaims(db, viewer, tender, new Set(readable.map((r) => r.offer.id)));
   const scoringOffers = readable.map(({ offer, vendorName }): ScoringOffer => {

@@ -1,6 +1,7 @@
 import "server-only";
 import { getDb } from "@/db/client";
 import { stuckRecommendations } from "./approval-coverage";
+import { waitingObjections } from "./objections";
 import type { Viewer } from "./session";
 import { listTenders, type TenderWithInvites } from "./tenders";
 
@@ -9,7 +10,7 @@ export interface DeskSection {
   empty: string;
   tenders: TenderWithInvites[];
   /** The tab of the tender page where the work waits ("" for Requirements). */
-  tab: "" | "offer" | "review" | "comparison" | "sign-off";
+  tab: "" | "offer" | "review" | "comparison" | "sign-off" | "notices";
   /** A line under a tender saying what blocks it, by tender id. */
   notes?: Record<string, string>;
 }
@@ -27,6 +28,19 @@ async function stuckSection(visible: TenderWithInvites[], tab: DeskSection["tab"
   };
 }
 
+/** Vendors' objections lodged during the standstill period and not yet answered, on the tenders given. */
+async function objectionsSection(tenders: TenderWithInvites[]): Promise<DeskSection> {
+  const waiting = await waitingObjections(tenders.map((t) => t.id));
+  const plural = (n: number) => (n === 1 ? "1 objection waits" : `${n} objections wait`);
+  return {
+    title: "Objections to answer",
+    empty: "No objection waits for an answer.",
+    tenders: tenders.filter((t) => waiting.has(t.id)),
+    tab: "notices",
+    notes: Object.fromEntries([...waiting].map(([id, n]) => [id, `${plural(n)} for a written answer before the standstill period ends.`])),
+  };
+}
+
 /** What waits for the signed-in person, one section per role they hold. */
 export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
   const roles = viewer.actor.roles;
@@ -35,6 +49,9 @@ export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
   const sections: DeskSection[] = [];
   if (roles.includes("buyer")) sections.push(await stuckSection(visible, "sign-off"));
   else if (roles.includes("admin")) sections.push(await stuckSection(visible, ""));
+  // The buyer of the tender (its author) answers; an admin sees every one that waits.
+  if (roles.includes("admin")) sections.push(await objectionsSection(visible));
+  else if (roles.includes("buyer")) sections.push(await objectionsSection(visible.filter((t) => t.createdBy === viewer.actor.id)));
   if (roles.includes("buyer")) {
     sections.push({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id), tab: "" });
     sections.push({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open"), tab: "" });

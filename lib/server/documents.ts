@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
-import { asSubject } from "@/policies";
+import { asSubject, recordTenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { documents, offers, tenders } from "@/db/schema";
 import { documentRecord, offerRecord, submissionRefusal } from "@/lib/offers";
@@ -78,7 +78,7 @@ export async function uploadDocument(viewer: Viewer, offerId: string, request: R
   const refusal = submissionRefusal(tender, now);
   if (refusal) throw new ConflictError(refusal);
   if (offer.status !== "submitted") throw new ConflictError("Documents go to the current version of your offer; this one was superseded or withdrawn.");
-  const record = documentRecord({ id: "new", offerId: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId }, tender.state);
+  const record = documentRecord({ id: "new", offerId: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId }, recordTenderState(tender));
   authorize(viewer, "create", asSubject("Document", record));
 
   const upload = await readPdfUpload(request);
@@ -113,10 +113,10 @@ export async function uploadDocument(viewer: Viewer, offerId: string, request: R
 /** A document's bytes for download, after the policy check. */
 export async function getDocumentFile(viewer: Viewer, documentId: string) {
   const db = await getDb();
-  const [found] = await db.select({ row: documents, tenderState: tenders.state }).from(documents).innerJoin(tenders, eq(tenders.id, documents.tenderId)).where(eq(documents.id, documentId));
+  const [found] = await db.select({ row: documents, tender: { state: tenders.state, cancelledSealed: tenders.cancelledSealed } }).from(documents).innerJoin(tenders, eq(tenders.id, documents.tenderId)).where(eq(documents.id, documentId));
   if (!found) throw new NotFoundError("No such document.");
   const { row } = found;
-  authorize(viewer, "read", asSubject("Document", documentRecord(row, found.tenderState)), "This document is not yours to read.");
+  authorize(viewer, "read", asSubject("Document", documentRecord(row, recordTenderState(found.tender))), "This document is not yours to read.");
   await ensureLocalServices();
   try {
     return { fileName: row.fileName, contentType: row.contentType, sha256: row.sha256, bytes: await getObject(row.storageKey) };

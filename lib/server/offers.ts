@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
-import { asSubject, pickPermitted, SEALED_STATES } from "@/policies";
+import { asSubject, offersSealed, pickPermitted, recordTenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, offers, organisations } from "@/db/schema";
 import type { ClaimResult } from "@/lib/bounds";
@@ -34,10 +34,10 @@ function viewOf(viewer: Viewer, tender: TenderWithInvites, row: OfferRow, vendor
     status: row.status,
     vendorName,
     claims: claimRows
-      .filter((c) => c.offerId === row.id && can("read", asSubject("Claim", { ...c, tenderState: tender.state })))
+      .filter((c) => c.offerId === row.id && can("read", asSubject("Claim", { ...c, tenderState: recordTenderState(tender) })))
       .sort((a, b) => a.pointIndex - b.pointIndex)
       .map((c) => ({ ...c, keyFinding: keyFinding(c.result as unknown as ClaimResult) })),
-    documents: docs.filter((d) => own(d) && can("read", asSubject("Document", documentRecord(d, tender.state)))).map(documentView),
+    documents: docs.filter((d) => own(d) && can("read", asSubject("Document", documentRecord(d, recordTenderState(tender))))).map(documentView),
   };
 }
 export type OfferView = ReturnType<typeof viewOf>;
@@ -77,7 +77,7 @@ async function loadOffer(viewer: Viewer, offerId: string) {
   if (!row) throw new NotFoundError("No such offer.");
   const tender = await getTender(viewer, row.tenderId);
   // A sealed offer says so (the policy's reason); anything else is simply not the viewer's.
-  const sealed = viewer.actor.organisationKind === "buyer" && (SEALED_STATES as readonly string[]).includes(tender.state);
+  const sealed = viewer.actor.organisationKind === "buyer" && offersSealed(tender);
   authorize(viewer, "read", offerSubject(row, tender), sealed ? undefined : "This offer is not yours to read.");
   return { row, tender };
 }
@@ -183,7 +183,7 @@ export async function submitOffer(viewer: Viewer, tenderId: string, input: Offer
   const refusal = submissionRefusal(tender, now);
   if (refusal) throw new ConflictError(refusal);
   const vendorOrgId = viewer.actor.organisationId;
-  const draft = { id: "new", tenderId, vendorOrgId, tenderState: tender.state, envelopeOpened: false };
+  const draft = { id: "new", tenderId, vendorOrgId, tenderState: recordTenderState(tender), envelopeOpened: false };
   authorize(viewer, "submit", asSubject("Offer", draft), "Your organisation may not submit to this tender.");
   const prepared = prepareOffer(tender, input);
   if (!prepared.ok) throw new InputError("The offer does not fit this tender: check the highlighted fields.", prepared.fieldErrors);

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
-import { asSubject, pickPermitted, tenderAccess, type ClaimRecord, type TenderState } from "@/policies";
+import { asSubject, pickPermitted, recordTenderState, tenderAccess, type ClaimRecord, type RecordTenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, documents, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
 import type { ChannelModel } from "@/db/schema/tenders";
@@ -13,7 +13,7 @@ import type { Viewer } from "./session";
 import { getTender, listTenders } from "./tenders";
 
 /** A claim as the Claim subject; with its tender's state, so that a sealed tender's claims stay unread. */
-export const claimSubject = (c: ClaimRecord, tenderState?: TenderState) =>
+export const claimSubject = (c: ClaimRecord, tenderState?: RecordTenderState) =>
   asSubject("Claim", { id: c.id, offerId: c.offerId, tenderId: c.tenderId, vendorOrgId: c.vendorOrgId, tenderState });
 
 const isDeclared = (viewer: Viewer, tenderId: string) => tenderAccess(viewer.actor.declarations).declared.includes(tenderId);
@@ -45,13 +45,13 @@ export async function loadClaim(viewer: Viewer, claimId: string) {
   const db = await getDb();
   const [row] = await claimJoin(db).where(eq(claims.id, claimId));
   if (!row) throw new NotFoundError("No such claim.");
-  if (!viewer.ability.can("read", claimSubject(row.claim, row.tender.state))) throw refusal(viewer, row.claim.tenderId, row.claim.vendorOrgId);
+  if (!viewer.ability.can("read", claimSubject(row.claim, recordTenderState(row.tender)))) throw refusal(viewer, row.claim.tenderId, row.claim.vendorOrgId);
   return row;
 }
 
 /** The offer as this viewer may read it: envelope fields stripped unless the policies allow them. */
 export function offerFor(viewer: Viewer, offer: typeof offers.$inferSelect, tender: typeof tenders.$inferSelect) {
-  const record = { ...offer, tenderState: tender.state, envelopeOpened: tender.envelopesOpenedAt !== null };
+  const record = { ...offer, tenderState: recordTenderState(tender), envelopeOpened: tender.envelopesOpenedAt !== null };
   const { tenderState: _s, envelopeOpened: _o, ...visible } = pickPermitted(viewer.ability, "read", "Offer", record);
   return visible;
 }
@@ -112,7 +112,7 @@ export async function listClaimQueue(viewer: Viewer, filters: Partial<ClaimQueue
       ),
     )
     .orderBy(asc(tenders.reference), asc(organisations.name), asc(claims.pointIndex));
-  const visible = rows.filter((r) => viewer.ability.can("list", claimSubject(r.claim, r.tender.state)));
+  const visible = rows.filter((r) => viewer.ability.can("list", claimSubject(r.claim, recordTenderState(r.tender))));
   if (filters.tenderId && rows.length > 0 && visible.length === 0 && !isDeclared(viewer, filters.tenderId)) {
     throw refusal(viewer, filters.tenderId, "");
   }
@@ -172,7 +172,7 @@ export async function getClaimDetail(viewer: Viewer, claimId: string) {
   const { evidence } = await reviewState(db, viewer, [row]);
   const can = (action: "mark" | "record" | "create", type: "Claim" | "EvidenceRun" | "Thread") =>
     type === "Claim"
-      ? viewer.ability.can(action, claimSubject(claim, tender.state))
+      ? viewer.ability.can(action, claimSubject(claim, recordTenderState(tender)))
       : type === "EvidenceRun"
         ? viewer.ability.can(action, asSubject("EvidenceRun", ref))
         : viewer.ability.can(action, asSubject("Thread", { id: "", tenderId: claim.tenderId, vendorOrgId: claim.vendorOrgId }));

@@ -1,6 +1,6 @@
 import "server-only";
 import { count, desc, eq } from "drizzle-orm";
-import { asSubject } from "@/policies";
+import { asSubject, recordTenderState } from "@/policies";
 import { getDb } from "@/db/client";
 import { claims, documents, ledgerEntries, offers, threads } from "@/db/schema";
 import { ledgerSentence, readableDetails, type MayRead } from "@/lib/ledger/reading";
@@ -42,7 +42,7 @@ export async function readTenderLedger(viewer: Viewer, tenderId: string, page = 
   const mayRead: MayRead = (subject, record) => viewer.ability.can("read", asSubject(subject, record));
   const base = {
     tenderId,
-    tenderState: tender.state,
+    tenderState: recordTenderState(tender),
     tenderCreatedBy: tender.createdBy,
     envelopeOpened: tender.envelopesOpenedAt !== null,
     invitedOrgIds: tender.invitedOrgIds,

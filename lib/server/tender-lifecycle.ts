@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, inArray, like, sql } from "drizzle-orm";
-import { asSubject } from "@/policies";
+import { asSubject, cancelKeepsSeal } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { ADVISORY_LOCKS } from "@/db/locks";
 import { organisations, tenderInvitations, tenders } from "@/db/schema";
@@ -159,10 +159,12 @@ export async function cancelTender(viewer: Viewer, id: string, input: CancelTend
   const tender = await tenderFor(viewer, id, "cancel", (t) => moveProblem(t.state, "cancelled"));
 
   const db = await getDb();
+  // Closing on read has already run: a tender still open here never reached its closing time.
+  const offersStaySealed = cancelKeepsSeal(tender.state);
   const cancelled = await db.transaction(async (tx) => {
     const [row] = await tx
       .update(tenders)
-      .set({ state: "cancelled", cancelReason: input.reason })
+      .set({ state: "cancelled", cancelReason: input.reason, cancelledSealed: offersStaySealed })
       .where(and(eq(tenders.id, id), eq(tenders.state, tender.state)))
       .returning();
     if (!row) throw new ConflictError("The tender changed state meanwhile: try again.");
@@ -172,7 +174,7 @@ export async function cancelTender(viewer: Viewer, id: string, input: CancelTend
       action: "tender.cancelled",
       subjectType: "Tender",
       subjectId: id,
-      data: { reference: row.reference, from: tender.state, reason: input.reason },
+      data: { reference: row.reference, from: tender.state, reason: input.reason, offersSealed: offersStaySealed },
     });
     return row;
   });

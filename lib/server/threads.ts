@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
-import { asSubject } from "@/policies";
+import { asSubject, recordTenderState, type RecordTenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, tenders, threadMessages, threads } from "@/db/schema";
 import { publishProblem } from "@/lib/tenders/addenda";
@@ -16,7 +16,7 @@ type ThreadRow = typeof threads.$inferSelect;
 type ClaimRow = typeof claims.$inferSelect;
 type TenderRow = typeof tenders.$inferSelect;
 
-const threadSubject = (t: Pick<ThreadRow, "id" | "tenderId" | "vendorOrgId"> & { tenderState?: TenderRow["state"] }) =>
+const threadSubject = (t: Pick<ThreadRow, "id" | "tenderId" | "vendorOrgId"> & { tenderState?: RecordTenderState }) =>
   asSubject("Thread", { id: t.id, tenderId: t.tenderId, vendorOrgId: t.vendorOrgId, tenderState: t.tenderState });
 /** Evaluators sign with their name; the vendor sees who asked. */
 const authorLabel = (viewer: Viewer) => `${viewer.name}, ${viewer.organisationName}`;
@@ -52,7 +52,7 @@ export async function insertThread(tx: Queryable, viewer: Viewer, claim: ClaimRo
 export async function threadNotice(db: Queryable, tender: TenderRow, thread: ThreadRow, viewer: Viewer, body: string, audience: "vendor" | "engineers"): Promise<Notice> {
   const toVendor = audience === "vendor";
   const link = toVendor || !thread.claimId ? `/tenders/${tender.id}/review` : `/review/claims/${thread.claimId}`;
-  const subject = threadSubject({ ...thread, tenderState: tender.state });
+  const subject = threadSubject({ ...thread, tenderState: recordTenderState(tender) });
   return {
     to: toVendor ? await addressesOf(db, [thread.vendorOrgId]) : await readersWithRole(db, "engineer", (ability) => ability.can("read", subject)),
     subject: `${tender.reference}: ${toVendor ? "question from the evaluators" : "vendor answer"}: ${thread.subject}`,

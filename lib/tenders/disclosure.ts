@@ -25,6 +25,13 @@ interface AwardState {
 export const awardIsFinal = (t: AwardState, now: Date) =>
   t.state === "awarded" && t.awardedAt !== null && now >= standstillEnd(t.awardedAt, t.standstillDays);
 
+/**
+ * Whether an objection still waits for the buying team: not answered, and the standstill period
+ * of the award it objects to has not ended.
+ */
+export const objectionWaits = (o: { answeredAt: Date | null }, t: AwardState, now: Date): boolean =>
+  o.answeredAt === null && t.state === "awarded" && t.awardedAt !== null && now < standstillEnd(t.awardedAt, t.standstillDays);
+
 /** Why an objection cannot be lodged now, in words, or null. */
 export function objectionProblem(t: AwardState, now: Date): string | null {
   if (t.state !== "awarded" || t.awardedAt === null) return "Objections are lodged against an award: this tender has not been awarded.";

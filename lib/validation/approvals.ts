@@ -1,10 +1,13 @@
 import { z } from "zod";
+import { typedCount, typedDecimal } from "./numbers";
 
-const money = (what: string) =>
+const amount = (what: string) =>
   z
     .number({ error: (iss) => (iss.input === undefined || iss.input === null ? `Enter ${what}.` : `${what[0].toUpperCase()}${what.slice(1)} must be a number.`) })
     .nonnegative("Must be zero or more.")
     .max(1e13, "Too large.");
+/** An amount as typed ("1 250,5" too). */
+const money = (what: string) => typedDecimal(amount(what));
 
 /** One value band: [minValue, maxValue) in a currency, with its approval rule. */
 export const approvalBandSchema = z
@@ -15,12 +18,14 @@ export const approvalBandSchema = z
       .toUpperCase()
       .regex(/^[A-Z]{3}$/, "A three-letter currency code, e.g. EUR."),
     minValue: money("the lower value"),
-    maxValue: money("the upper value").nullable(),
-    approvalsNeeded: z
-      .number({ error: () => "Enter how many approvals the band needs." })
-      .int("A whole number.")
-      .min(1, "At least one approval.")
-      .max(5, "At most five approvals."),
+    maxValue: typedDecimal(amount("the upper value").nullable()),
+    approvalsNeeded: typedCount(
+      z
+        .number({ error: () => "Enter how many approvals the band needs." })
+        .int("A whole number.")
+        .min(1, "At least one approval.")
+        .max(5, "At most five approvals."),
+    ),
     minApproverLimit: money("the least approval limit"),
   })
   .refine((b) => b.maxValue === null || b.maxValue > b.minValue, {

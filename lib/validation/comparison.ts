@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { typedCount, typedDecimal } from "./numbers";
 import { weightsSchema } from "./tender";
 
 export const JUSTIFICATION_MIN = 20;
@@ -13,16 +14,20 @@ const reason = z
 /** The buyer's recommendation of an award, as the form and POST /api/v1/tenders/[id]/recommendation send it. */
 export const recommendationSchema = z.object({
   offerId: z.string({ error: "Choose the offer to award." }).trim().min(1, "Choose the offer to award."),
-  quantity: z
-    .number({ error: "Enter the quantity as a number." })
-    .int("A whole number of units.")
-    .positive("At least one unit.")
-    .max(100_000_000, "At most 100,000,000 units."),
-  value: z
-    .number({ error: "Enter the award value as a number." })
-    .positive("The award value must be above zero.")
-    .max(1e13, "The award value is too large.")
-    .refine((v) => Math.abs(Math.round(v * 100) - v * 100) < 1e-6, "At most two decimals (whole cents)."),
+  quantity: typedCount(
+    z
+      .number({ error: "Enter the quantity as a number." })
+      .int("A whole number of units.")
+      .positive("At least one unit.")
+      .max(100_000_000, "At most 100,000,000 units."),
+  ),
+  value: typedDecimal(
+    z
+      .number({ error: "Enter the award value as a number." })
+      .positive("The award value must be above zero.")
+      .max(1e13, "The award value is too large.")
+      .refine((v) => Math.abs(Math.round(v * 100) - v * 100) < 1e-6, "At most two decimals (whole cents)."),
+  ),
   justification: z
     .string({ error: "Write the justification." })
     .trim()

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { parseCount, parseDecimal } from "@/lib/numbers";
 
 export const EXPLORER_DEFAULTS = {
   bsc: { x: 5e-3, n: 2048, k: 1640 },
@@ -6,17 +7,22 @@ export const EXPLORER_DEFAULTS = {
   biawgn: { x: 2, n: 1944, k: 972 },
 } as const;
 
-/** A number from the address; an empty or non-numeric text gets the sentence given, not a validator's message. */
-const numberIn = (what: string) =>
-  z.preprocess((v) => (v === undefined || v === "" ? undefined : Number(v)), z.number({ error: `${what} must be a number` }).optional());
+/**
+ * A number from the address, read as typed ("0,00001" is a decimal comma; in a count every comma
+ * groups thousands); an empty or non-numeric text gets the sentence given, not a validator's message.
+ */
+const readIn = (parse: (raw: string) => number | null) => (what: string) =>
+  z.preprocess((v) => (v === undefined ? undefined : (parse(String(v)) ?? undefined)), z.number({ error: `${what} must be a number` }).optional());
+const numberIn = readIn(parseDecimal);
+const countIn = readIn(parseCount);
 
 /** The Bound explorer's view, as it lives in the URL's search parameters. */
 export const explorerSchema = z
   .object({
     model: z.enum(["bsc", "bec", "biawgn"], { error: "the channel must be hard decision, erasures or soft decision" }).default("bsc"),
     x: numberIn("the channel value"),
-    n: numberIn("the block length n"),
-    k: numberIn("the information bits k"),
+    n: countIn("the block length n"),
+    k: countIn("the information bits k"),
     target: numberIn("the target BLER"),
   })
   .transform((v) => {
@@ -41,7 +47,7 @@ export const sensitivitySchema = z
     ebn0: numberIn("Eb/N0"),
     rb: numberIn("the bit rate"),
     nf: numberIn("the noise figure"),
-    payload: numberIn("the payload"),
+    payload: countIn("the payload"),
     per: numberIn("the target PER"),
   })
   .transform((v) => ({ level: v.level ?? (v.ebn0 === undefined ? -120 : undefined), ebn0: v.ebn0, rb: v.rb ?? 1200, nf: v.nf ?? 0, payload: v.payload ?? 160, per: v.per ?? 1e-2 }))

@@ -7,6 +7,10 @@ const words = (what: string, min: number, max: number) =>
 export const objectionSchema = z.object({ body: words("the objection", 20, 8000) });
 export type ObjectionInput = z.infer<typeof objectionSchema>;
 
+/** The buying team's written answer to an objection, sent to the vendor who lodged it. */
+export const objectionAnswerSchema = z.object({ answer: words("the answer", 10, 8000) });
+export type ObjectionAnswerInput = z.infer<typeof objectionAnswerSchema>;
+
 /** An addendum to every invited vendor; threadId names the clarification it answers (never shown to vendors). */
 export const addendumSchema = z.object({
   title: words("a title", 3, 160),

@@ -1,5 +1,9 @@
 import { z } from "zod";
 import { ROLES as ROLE_NAMES } from "@/policies/vocabulary";
+import { typedDecimal } from "./numbers";
+
+/** An approval limit in the buying currency; empty (null) is no limit. */
+const approvalLimit = typedDecimal(z.number({ error: "Enter the approval limit as a number, or leave it empty." }).nonnegative("Must be zero or more.").max(1e12).nullable());
 
 
 export const roleListSchema = z
@@ -13,20 +17,20 @@ export const createUserSchema = z.object({
   password: z.string().min(8, "At least 8 characters.").max(200),
   organisationId: z.string().min(1, "Choose an organisation."),
   roles: roleListSchema,
-  approvalLimit: z.number().nonnegative("Must be zero or more.").max(1e12).nullable().optional(),
+  approvalLimit: approvalLimit.optional(),
 });
 export type CreateUserInput = z.infer<typeof createUserSchema>;
 
 export const setRolesSchema = z.object({ roles: roleListSchema });
 export const setActiveSchema = z.object({ active: z.boolean() });
 export const setApprovalLimitSchema = z.object({
-  approvalLimit: z.number().nonnegative("Must be zero or more.").max(1e12).nullable(),
+  approvalLimit: approvalLimit,
 });
 export const updateUserSchema = z
   .object({
     roles: roleListSchema.optional(),
     active: z.boolean().optional(),
-    approvalLimit: z.number().nonnegative("Must be zero or more.").max(1e12).nullable().optional(),
+    approvalLimit: approvalLimit.optional(),
   })
   .refine((v) => Object.keys(v).length > 0, "Send roles, active or approvalLimit.");
 export type UpdateUserInput = z.infer<typeof updateUserSchema>;

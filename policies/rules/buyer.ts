@@ -23,6 +23,8 @@ export function buyerRules(builder: RuleBuilder, actor: Actor): void {
     ],
   );
   can("create", "Addendum");
+  // Answering a vendor's objection to an award.
+  can("update", "Objection");
   can([...READ], "Envelope", { opened: true });
   sealedUntilOpened(builder);
   can("export", ["Score", "Memo"]);

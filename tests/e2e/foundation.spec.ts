@@ -84,3 +84,37 @@ test("an admin creates an account, gives it a role, and it signs in", async ({ p
   await signIn(page, "nell@tarnwell.example", "nell-first-pass");
   await expect(nav(page).getByRole("link", { name: "Review bench" })).toBeVisible();
 });
+
+test("every page starts with a skip link to its one main landmark, and the navigation marks where you are", async ({ page }) => {
+  const skipsToMain = async () => {
+    await page.keyboard.press("Tab");
+    await expect(page.getByRole("link", { name: "Skip to the main content" })).toBeFocused();
+    await page.keyboard.press("Enter");
+    await expect(page.getByRole("main")).toBeFocused();
+  };
+  await page.goto("/sign-in");
+  await expect(page.getByRole("main")).toHaveCount(1);
+  await skipsToMain();
+
+  await signIn(page, ACCOUNTS.buyer);
+  await expect(nav(page).getByRole("link", { name: "Desk", exact: true })).toHaveAttribute("aria-current", "page");
+  await page.goto("/tenders");
+  await expect(page.getByRole("main")).toHaveCount(1);
+  await skipsToMain();
+  await expect(nav(page).getByRole("link", { name: "Tenders", exact: true })).toHaveAttribute("aria-current", "page");
+  await expect(nav(page).getByRole("link", { name: "Desk", exact: true })).not.toHaveAttribute("aria-current", "page");
+  // Each state pill carries its dial as well as its colour.
+  await expect(page.locator('[data-state="open"] svg').first()).toBeVisible();
+
+  await page.locator('[data-state="open"]').first().locator("xpath=ancestor::tr").getByRole("link").first().click();
+  await expect(page).toHaveURL(/\/tenders\/[^/]+$/);
+  await expect(nav(page).getByRole("link", { name: "Tenders", exact: true })).toHaveAttribute("aria-current", "page");
+  await expect(page.getByRole("main")).toHaveCount(1);
+
+  for (const address of ["/memo-check", "/no-such-page"]) {
+    await page.goto(address);
+    await expect(page.getByRole("main"), address).toHaveCount(1);
+  }
+  await page.goto("/desk");
+  await signOut(page);
+});

@@ -4,12 +4,14 @@ import type { Db } from "@/db/client";
 import { approvalBands, approvals, ledgerEntries, memos, recommendations, tenders } from "@/db/schema";
 import { GET as bandsGet, POST as bandsPost } from "@/app/api/v1/approval-bands/route";
 import { DELETE as bandDelete, PUT as bandPut } from "@/app/api/v1/approval-bands/[id]/route";
+import { GET as memoGet } from "@/app/api/v1/tenders/[id]/memo/route";
 import { GET as signOffGet, POST as decidePost } from "@/app/api/v1/tenders/[id]/approvals/route";
 import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
 import { createApprovalFixture, ensureDemoBands, FIXTURE_OFFERS, idsByEmail, insertRecommendation, type ApprovalFixture } from "../support/approval-fixtures";
 import { flushMail, listCapturedMail } from "@/lib/mail";
 import { formatMoney } from "@/lib/format";
+import { pdfText } from "../unit/pdf/pdf-text";
 
 let db: Db;
 let as: Record<"admin" | "buyer" | "engineer" | "approver" | "director", Headers>;
@@ -209,6 +211,18 @@ describe("from recommendation to award", () => {
     expect(view.earlier).toHaveLength(1);
     expect(view.earlier[0]).toMatchObject({ status: "returned" });
     expect(said(view.earlier[0].decisions)).toEqual(["Helen Strand approved", "Tomas Veld returned"]);
+
+    // The ledger groups them the same way: each decision names its recommendation, the award the last one.
+    const decisions = ledger.filter((e) => ["approval.given", "recommendation.returned"].includes(e.action)).map((e) => e.data.recommendationId);
+    expect(decisions[0]).toBe(decisions[1]);
+    expect(decisions[2]).toBe(decisions[3]);
+    expect(decisions[0]).not.toBe(decisions[2]);
+    expect(ledger.at(-1)!.data.recommendationId).toBe(decisions[2]);
+    // And so does the memo: the award's two approvals, not the one given to the returned recommendation.
+    const file = await memoGet(request(`/api/v1/tenders/${f.tenderId}/memo`, { headers: as.buyer }), params({ id: f.tenderId }));
+    const text = await pdfText(new Uint8Array(await file.arrayBuffer()));
+    expect(text.match(/Approved by Helen Strand/g)).toHaveLength(1);
+    expect(text.match(/Approved by Tomas Veld/g)).toHaveLength(1);
     awarded = f;
   });
 

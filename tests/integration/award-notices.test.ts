@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { ledgerEntries, objections, tenders } from "@/db/schema";
-import { POST as decidePost } from "@/app/api/v1/tenders/[id]/approvals/route";
+import { GET as signOffGet, POST as decidePost } from "@/app/api/v1/tenders/[id]/approvals/route";
+import { SAFETY_CAUTION } from "@/lib/cautions";
 import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { GET as objectionsGet, POST as objectionsPost } from "@/app/api/v1/tenders/[id]/objections/route";
 import { clearCapturedMail, type CapturedMail } from "@/lib/mail";
@@ -17,8 +18,9 @@ beforeAll(async () => {
 afterAll(closeDb);
 
 /** A fixture tender awarded to Kestrelink by one approval (120,000 EUR needs one), with its mail. */
-async function award(disclosure?: "rank-and-scores"): Promise<{ f: ApprovalFixture; mail: CapturedMail[] }> {
+async function award(disclosure?: "rank-and-scores", safetyRelevant = false): Promise<{ f: ApprovalFixture; mail: CapturedMail[] }> {
   const f = await createApprovalFixture(db, { value: 120_000 });
+  if (safetyRelevant) await db.update(tenders).set({ safetyRelevant }).where(eq(tenders.id, f.tenderId));
   if (disclosure) await db.update(tenders).set({ noticeDisclosure: disclosure, standstillDays: 14 }).where(eq(tenders.id, f.tenderId));
   const approver = await signInAs("approver@tarnwell.example");
   const body = { conflict: "none", conflictedOrgIds: [], statement: "No ties to any vendor of this tender." };
@@ -56,6 +58,15 @@ describe("award notices", () => {
     expect(oxbow).toContain("The winning offer's total score is 82.4 out of 100.");
     expect(oxbow).toContain("standstill period of 14 days");
     expect(oxbow).not.toMatch(/€|Marram|Quillfield/);
+  });
+
+  it("of a safety-relevant tender carry the stronger caution, and so does its Sign-off tab", async () => {
+    const { f, mail } = await award(undefined, true);
+    for (const m of mail) expect(m.text, m.subject).toContain(SAFETY_CAUTION);
+    const view = await (await signOffGet(request(`/api/v1/tenders/${f.tenderId}/approvals`, { headers: await signInAs("buyer@tarnwell.example") }), params({ id: f.tenderId }))).json();
+    expect(view.tender.safetyRelevant).toBe(true);
+    const plain = await award();
+    for (const m of plain.mail) expect(m.text).not.toContain(SAFETY_CAUTION);
   });
 });
 

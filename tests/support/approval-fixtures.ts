@@ -1,8 +1,5 @@
 // A tender in approval, built by inserting rows directly: four vendors' offers with claims judged
 // by the real engine, opened envelopes, a signed technical evaluation and a pending recommendation.
-import { mkdtempSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { count, eq, inArray } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { approvalBands, claims, offers, organisations, recommendations, technicalSignoffs, tenderInvitations, tenders, users } from "@/db/schema";
@@ -10,9 +7,6 @@ import { seedDemoApprovalBands } from "@/db/seed-approvals";
 import { evaluateClaim } from "@/lib/bounds";
 import { formatMoney } from "@/lib/format";
 import type { OfferScore, ScoreSheet } from "@/lib/scoring/types";
-
-// Memo files and captured mail of this test process go to a folder of its own.
-process.env.DATA_DIR ??= mkdtempSync(path.join(tmpdir(), "ratecourt-approvals-"));
 
 const WEIGHTS = { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 };
 const POINTS = [

@@ -1,10 +1,4 @@
-import { mkdtempSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { flushMail, listCapturedMail, type CapturedMail } from "@/lib/mail";
-
-// The captured mail of this test process goes to a folder of its own, unseen by other test files.
-process.env.DATA_DIR ??= mkdtempSync(path.join(tmpdir(), "ratecourt-mail-"));
 
 /**
  * The captured mail whose subject names `reference`, once at least `atLeast` of them have arrived

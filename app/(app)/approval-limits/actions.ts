@@ -13,9 +13,9 @@ export async function createBandAction(values: unknown): Promise<FormResult> {
 }
 
 export async function updateBandAction(id: string, values: unknown): Promise<FormResult> {
-  return runForm(approvalBandSchema, values, (viewer, input) => updateApprovalBand(viewer, String(id), input), PATHS, "Band saved.");
+  return runForm(approvalBandSchema, values, (viewer, input) => updateApprovalBand(viewer, String(id), input), PATHS, "Band saved.", { id });
 }
 
 export async function removeBandAction(id: string): Promise<FormResult> {
-  return runForm(idSchema, { id }, (viewer, input) => removeApprovalBand(viewer, input.id), PATHS, "Band removed.");
+  return runForm(idSchema, { id }, (viewer, input) => removeApprovalBand(viewer, input.id), PATHS, "Band removed.", { id });
 }

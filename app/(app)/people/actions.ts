@@ -11,7 +11,7 @@ export async function createUserAction(values: unknown): Promise<FormResult> {
 }
 
 export async function updateUserAction(userId: string, values: unknown): Promise<FormResult> {
-  return runForm(updateUserSchema, values, (viewer, input) => updateUser(viewer, String(userId), input), ["/people"], "Saved.");
+  return runForm(updateUserSchema, values, (viewer, input) => updateUser(viewer, String(userId), input), ["/people"], "Saved.", { userId });
 }
 
 export async function createOrganisationAction(values: unknown): Promise<FormResult> {

@@ -19,21 +19,21 @@ export async function createTenderAction(values: unknown): Promise<TenderFormRes
 }
 
 export async function updateTenderAction(tenderId: string, values: unknown): Promise<TenderFormResult> {
-  const outcome = await attemptForm(tenderInputSchema, values, (viewer, input) => updateTender(viewer, String(tenderId), input));
+  const outcome = await attemptForm(tenderInputSchema, values, (viewer, input) => updateTender(viewer, String(tenderId), input), { tenderId });
   if (!outcome.ok) return outcome.result;
   revalidatePath(`/tenders/${tenderId}`, "layout");
   redirect(`/tenders/${tenderId}`);
 }
 
 export async function openTenderAction(tenderId: string): Promise<TenderFormResult> {
-  const outcome = await attemptForm(nothing, undefined, (viewer) => openTender(viewer, String(tenderId)));
+  const outcome = await attemptForm(nothing, undefined, (viewer) => openTender(viewer, String(tenderId)), { tenderId });
   if (!outcome.ok) return outcome.result;
   revalidatePath(`/tenders/${tenderId}`, "layout");
   return { ok: true, message: "Tender opened; the invited vendors have been e-mailed." };
 }
 
 export async function cancelTenderAction(tenderId: string, values: unknown): Promise<TenderFormResult> {
-  const outcome = await attemptForm(cancelTenderSchema, values, (viewer, input) => cancelTender(viewer, String(tenderId), input));
+  const outcome = await attemptForm(cancelTenderSchema, values, (viewer, input) => cancelTender(viewer, String(tenderId), input), { tenderId });
   if (!outcome.ok) return outcome.result;
   revalidatePath(`/tenders/${tenderId}`, "layout");
   return { ok: true, message: "Tender cancelled." };

@@ -41,4 +41,12 @@ describe("ledger sentences", () => {
     expect(ledgerSentence(entry("tender.closed", {}, "system"), "RC-2027-001")).toBe("RC-2027-001 closed for offers at its closing time.");
     expect(ledgerSentence(entry("something.new", {}), "RC-2027-001")).toBe('Ravi Okonjo recorded "something.new" on RC-2027-001.');
   });
+
+  it("says whether a cancelled tender's offers stay sealed", () => {
+    expect(ledgerSentence(entry("tender.cancelled", { offersSealed: true }, "Ines Calloway"), "RC-2027-003")).toBe(
+      "Ines Calloway cancelled RC-2027-003 before its closing time; its offers stay sealed to the buying side.",
+    );
+    expect(ledgerSentence(entry("tender.cancelled", { offersSealed: false }, "Ines Calloway"), "RC-2027-001")).toMatch(/after its closing time; its offers stay as unsealed at closing/);
+    expect(ledgerSentence(entry("tender.cancelled", {}, "Ines Calloway"), "RC-2027-001")).toBe("Ines Calloway cancelled RC-2027-001.");
+  });
 });

@@ -36,7 +36,7 @@ const scoped = (subject: SubjectType) => {
   return {
     t1: [maker(closed), maker({ ...closed, vendorOrgId: VENDOR_B })],
     t2: [maker({ ...closed, tenderId: T2 })],
-    sealed: OFFER_PARTS.includes(subject) ? [maker({ tenderState: "open" }), maker({ tenderState: "draft" })] : [],
+    sealed: OFFER_PARTS.includes(subject) ? [maker({ tenderState: "open" }), maker({ tenderState: "draft" }), maker({ tenderState: "cancelled-sealed" })] : [],
   };
 };
 const declaredOnT1 = (actions: Action | readonly Action[], subjects: SubjectType[]): Entry[] =>
@@ -82,7 +82,7 @@ const TABLE: Record<Role, Entry[]> = {
     ),
     [READ, "Declaration", [make.Declaration()]],
     [READ, "ApprovalLimit", [make.ApprovalLimit()]],
-    [READ, "Objection", [make.Objection(), make.Objection({ vendorOrgId: VENDOR_B })]],
+    [[...READ, "update"], "Objection", [make.Objection(), make.Objection({ vendorOrgId: VENDOR_B })]],
     [["create", ...READ], "Addendum", [make.Addendum(), make.Addendum({ tenderId: T2 })]],
     [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })],
       [make.Envelope({ opened: false }), make.Envelope({ tenderState: "open" })]],

@@ -5,11 +5,11 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import type { FormResult } from "@/lib/server/form-action";
+import { formCount, formDecimal, formOptionalDecimal } from "@/lib/numbers";
 import { FieldError, FormStatus } from "@/app/_components/form-status";
 import { approvalBandSchema, type ApprovalBandInput } from "@/lib/validation/approvals";
 import { createBandAction, updateBandAction } from "../actions";
 
-const asNumber = (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v));
 
 /** Adds a band, or changes one when `band` is given. Overlaps are refused by the server with the bands named. */
 export function BandForm({ band, onDone }: { band?: ApprovalBandInput & { id: string }; onDone?: () => void }) {
@@ -33,7 +33,7 @@ export function BandForm({ band, onDone }: { band?: ApprovalBandInput & { id: st
   const field = (name: keyof ApprovalBandInput, label: string, numeric = true) => (
     <div>
       <label className="label" htmlFor={`${prefix}-${name}`}>{label}</label>
-      <input id={`${prefix}-${name}`} className="field" inputMode={numeric ? "decimal" : undefined} {...register(name, numeric ? { setValueAs: name === "maxValue" ? asNumber : (v) => (v === "" ? undefined : Number(v)) } : {})} />
+      <input id={`${prefix}-${name}`} className="field" inputMode={numeric ? "decimal" : undefined} {...register(name, numeric ? { setValueAs: name === "maxValue" ? formOptionalDecimal : name === "approvalsNeeded" ? formCount : formDecimal } : {})} />
       <FieldError message={e[name]?.message} />
     </div>
   );

@@ -3,6 +3,8 @@
 import { useState, useTransition } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
+import { formOptionalDecimal } from "@/lib/numbers";
 import { createUserSchema, type CreateUserInput } from "@/lib/validation/people";
 import { ROLES as ROLE_NAMES } from "@/policies/vocabulary";
 import { createUserAction, type FormResult } from "../actions";
@@ -12,7 +14,7 @@ interface Org { id: string; name: string; kind: "buyer" | "vendor" }
 export function CreateUserForm({ organisations }: { organisations: Org[] }) {
   const [result, setResult] = useState<FormResult>({});
   const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, formState, reset, setError } = useForm<CreateUserInput>({
+  const { register, handleSubmit, formState, reset, setError } = useForm<z.input<typeof createUserSchema>, unknown, CreateUserInput>({
     resolver: zodResolver(createUserSchema),
     defaultValues: { name: "", email: "", password: "", organisationId: "", roles: [], approvalLimit: null },
   });
@@ -58,7 +60,7 @@ export function CreateUserForm({ organisations }: { organisations: Org[] }) {
       </fieldset>
       <div>
         <label className="label" htmlFor="nu-limit">Approval limit (approvers)</label>
-        <input id="nu-limit" type="number" min={0} step="1000" className="field" {...register("approvalLimit", { setValueAs: (v) => (v === "" || v === null ? null : Number(v)) })} />
+        <input id="nu-limit" inputMode="decimal" className="field" {...register("approvalLimit", { setValueAs: formOptionalDecimal })} />
         {err("approvalLimit")}
       </div>
       <button type="submit" className="btn" disabled={pending}>{pending ? "Creating…" : "Create account"}</button>

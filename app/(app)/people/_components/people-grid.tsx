@@ -3,6 +3,7 @@
 import { useMemo, useState, useTransition } from "react";
 import type { ColDef } from "ag-grid-community";
 import { DataGrid } from "@/app/_components/data-grid";
+import { formOptionalDecimal } from "@/lib/numbers";
 import { ROLES } from "@/policies/vocabulary";
 import { updateUserAction, type FormResult } from "../actions";
 
@@ -73,9 +74,9 @@ function PersonEditor({ person, isSelf }: { person: PersonRow; isSelf: boolean }
       <div className="flex items-end gap-2 text-sm">
         <div>
           <label className="label" htmlFor="limit">Approval limit</label>
-          <input id="limit" className="field w-40" type="number" min={0} value={limit} onChange={(e) => setLimit(e.target.value)} />
+          <input id="limit" className="field w-40" inputMode="decimal" value={limit} onChange={(e) => setLimit(e.target.value)} />
         </div>
-        <button type="button" className="btn-quiet" disabled={pending} onClick={() => save({ approvalLimit: limit === "" ? null : Number(limit) })}>Save limit</button>
+        <button type="button" className="btn-quiet" disabled={pending} onClick={() => save({ approvalLimit: formOptionalDecimal(limit) })}>Save limit</button>
       </div>
       {!isSelf ? (
         <button type="button" className="btn-quiet" disabled={pending} onClick={() => save({ active: !person.active })}>

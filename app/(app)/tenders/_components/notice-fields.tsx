@@ -31,7 +31,7 @@ export function NoticeFields() {
           aria-describedby="t-standstillDays-error"
           {...register("standstillDays", { valueAsNumber: true })}
         />
-        <p className="mt-1 text-xs text-ink-faint">Vendors may object in writing during these days; the award is final when they end.</p>
+        <p className="mt-1 text-xs text-ink-muted">Vendors may object in writing during these days; the award is final when they end.</p>
         <FieldError id="t-standstillDays-error" message={errorAt(formState.errors, "standstillDays")} />
       </div>
     </fieldset>

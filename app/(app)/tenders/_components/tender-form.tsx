@@ -46,7 +46,7 @@ export function TenderForm({ tenderId, defaults, vendors, zones }: Props) {
     <div>
       <label className="label" htmlFor={`t-${name}`}>{label}</label>
       {input}
-      {hint ? <p className="mt-1 text-xs text-ink-faint">{hint}</p> : null}
+      {hint ? <p className="mt-1 text-xs text-ink-muted">{hint}</p> : null}
       <FieldError id={`t-${name}-error`} message={errorAt(formState.errors, name)} />
     </div>
   );
@@ -92,7 +92,7 @@ export function TenderForm({ tenderId, defaults, vendors, zones }: Props) {
         <fieldset className="space-y-1">
           <legend className="label">Safety</legend>
           <label className="inline-flex items-center gap-2 text-sm"><input type="checkbox" {...register("safetyRelevant")} /> Safety-relevant: these radios serve a safety use</label>
-          <p className="text-xs text-ink-faint">Then every accepted claim needs a lab run that verifies it, two engineers sign the technical evaluation, and the memo and notices carry the stronger caution.</p>
+          <p className="text-xs text-ink-muted">Then every accepted claim needs a lab run that verifies it, two engineers sign the technical evaluation, and the memo and notices carry the stronger caution.</p>
         </fieldset>
         <div className="grid gap-4 md:grid-cols-2">
           {field("closesLocal", "Closing date and time", <input className="field tabular-nums" type="datetime-local" {...invalid("closesLocal")} {...register("closesLocal")} />, "Local time in the zone beside it.")}

@@ -30,7 +30,7 @@ export function WeightsFields() {
             <div key={key}>
               <label className="text-xs text-ink-soft" htmlFor={`w-${key}`}>{NAMES[key]} weight</label>
               <input id={`w-${key}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(message)} {...register(`weights.${key}`, { setValueAs: formDecimal })} />
-              <span className="text-xs text-ink-faint tabular-nums">{share} %</span>
+              <span className="text-xs text-ink-muted tabular-nums">{share} %</span>
               <FieldError id={`w-${key}-error`} message={message} />
             </div>
           );

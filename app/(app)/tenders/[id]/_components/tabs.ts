@@ -1,5 +1,5 @@
 import "server-only";
-import { asSubject } from "@/policies";
+import { asSubject, recordTenderState } from "@/policies";
 import type { TenderWithInvites } from "@/lib/server/tenders";
 import type { Viewer } from "@/lib/server/session";
 
@@ -29,7 +29,7 @@ export function tenderTabs(viewer: Viewer, tender: TenderWithInvites): TenderTab
       id: "",
       tenderId,
       vendorOrgId: internal ? "" : actor.organisationId,
-      tenderState: tender.state,
+      tenderState: recordTenderState(tender),
       envelopeOpened: tender.envelopesOpenedAt !== null,
     }),
   );

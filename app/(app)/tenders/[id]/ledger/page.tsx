@@ -28,7 +28,7 @@ export default async function TenderLedgerPage({ params, searchParams }: { param
           <li key={e.seq} className="border-t border-ink-faint/20 pt-1">
             <details>
               <summary className="cursor-pointer text-sm">
-                <span className="mr-2 tabular-nums text-ink-faint">#{e.seq}</span>
+                <span className="mr-2 tabular-nums text-ink-muted">#{e.seq}</span>
                 {e.sentence} <span className="text-xs text-ink-soft"><DateTime value={e.at} /></span>
               </summary>
               <dl className="ml-6 mt-1 grid grid-cols-[max-content_1fr] gap-x-3 text-xs">

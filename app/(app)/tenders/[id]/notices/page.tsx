@@ -4,7 +4,7 @@ import { ForbiddenError } from "@/lib/server/errors";
 import { listAddenda } from "@/lib/server/addenda";
 import { listObjections } from "@/lib/server/objections";
 import { orPage, pageViewer } from "@/lib/server/pages";
-import { AcknowledgeButton, AddendumForm, ObjectionForm } from "./_components/notice-forms";
+import { AcknowledgeButton, AddendumForm, ObjectionAnswerForm, ObjectionForm } from "./_components/notice-forms";
 
 export const metadata: Metadata = { title: "Notices" };
 
@@ -60,6 +60,14 @@ export default async function NoticesPage({ params, searchParams }: { params: Pr
             <article key={o.id} className="border-t border-ink-faint/20 pt-2">
               <p className="text-xs text-ink-soft">{vendor ? "Your objection" : o.vendorName}, <DateTime value={o.lodgedAt} /></p>
               <p className="whitespace-pre-wrap text-sm">{o.body}</p>
+              {o.answer && o.answeredAt ? (
+                <div className="mt-2 border-l-2 border-ink-faint/40 pl-3">
+                  <p className="text-xs text-ink-soft">Answer of the purchasing team, <DateTime value={o.answeredAt} /></p>
+                  <p className="whitespace-pre-wrap text-sm">{o.answer}</p>
+                </div>
+              ) : o.mayAnswer ? (
+                <ObjectionAnswerForm tenderId={id} objectionId={o.id} />
+              ) : null}
             </article>
           ))}
           {objections.mayLodge ? <ObjectionForm tenderId={id} /> : null}

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { Cautions } from "@/app/_components/cautions";
-import { SEALED_STATES } from "@/policies";
+import { offersSealed } from "@/policies";
 import { submissionRefusal } from "@/lib/offers";
 import { ForbiddenError } from "@/lib/server/errors";
 import { listOffers } from "@/lib/server/offers";
@@ -25,7 +25,7 @@ export default async function OffersPage({ params }: { params: Promise<{ id: str
   );
   const open = submissionRefusal(tender, new Date()) === null;
   const envelopesSealed = !vendor && tender.envelopesOpenedAt === null;
-  const offersSealed = !vendor && (SEALED_STATES as readonly string[]).includes(tender.state);
+  const sealed = !vendor && offersSealed(tender);
 
   return (
     <div className="space-y-4">
@@ -38,7 +38,7 @@ export default async function OffersPage({ params }: { params: Promise<{ id: str
       {envelopesSealed ? (
         <p className="text-sm text-ink-soft">Commercial envelopes stay sealed until the buyer opens them after the technical sign-off.</p>
       ) : null}
-      {offersSealed ? (
+      {sealed ? (
         <p className="panel text-sm">Offers stay sealed to the buying side until the tender closes; nothing of them can be read before then.</p>
       ) : offers === null ? (
         <p className="panel text-sm">Declare any conflict of interest on this tender (Review tab) before you read its offers.</p>

@@ -10,7 +10,7 @@ export async function decideAction(tenderId: string, values: unknown): Promise<F
   const id = String(tenderId);
   const decision = (values as { decision?: unknown } | null)?.decision;
   const message = decision === "return" ? "Returned to the buyer for revision." : "Approval recorded.";
-  return runForm(decisionSchema, values, (viewer, input) => decideRecommendation(viewer, id, input), [`/tenders/${id}/sign-off`, `/tenders/${id}`, "/desk"], message);
+  return runForm(decisionSchema, values, (viewer, input) => decideRecommendation(viewer, id, input), [`/tenders/${id}/sign-off`, `/tenders/${id}`, "/desk"], message, { tenderId });
 }
 
 export async function withdrawAction(tenderId: string, values: unknown): Promise<FormResult> {
@@ -21,5 +21,6 @@ export async function withdrawAction(tenderId: string, values: unknown): Promise
     (viewer, input) => withdrawRecommendation(viewer, id, input),
     [`/tenders/${id}/sign-off`, `/tenders/${id}`, `/tenders/${id}/comparison`, "/desk"],
     "Recommendation withdrawn: the tender is back in commercial evaluation.",
+    { tenderId },
   );
 }

@@ -3,8 +3,10 @@
 import { useEffect, useState, useTransition } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
 import { DateTime } from "@/app/_components/date-time";
 import { formatMoney } from "@/lib/format";
+import { formCount, formDecimal } from "@/lib/numbers";
 import { valuesDiffer } from "@/lib/approvals/award-value";
 import { totalPriceAt, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
 import { recommendationSchema, type RecommendationInput } from "@/lib/validation/comparison";
@@ -44,11 +46,14 @@ function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId:
   const eligible = sheet.offers.filter((o) => !o.disqualified && !o.needsConversion && o.total !== null);
   const [result, setResult] = useState<FormResult>({});
   const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, formState, setValue, control, setError } = useForm<RecommendationInput>({
+  const { register, handleSubmit, formState, setValue, control, setError } = useForm<z.input<typeof recommendationSchema>, unknown, RecommendationInput>({
     resolver: zodResolver(recommendationSchema),
     defaultValues: { offerId: eligible[0]?.offerId ?? "", quantity: sheet.quantity, value: eligible[0]?.totalPrice ?? 0, justification: "" },
   });
-  const [offerId, quantity, value] = useWatch({ control, name: ["offerId", "quantity", "value"] });
+  const [offerId, typedQuantity, typedValue] = useWatch({ control, name: ["offerId", "quantity", "value"] });
+  // The fields hold what setValueAs read from the text: a number, or nothing yet.
+  const quantity = Number(typedQuantity);
+  const value = Number(typedValue);
   const envelope = input.offers.find((o) => o.id === offerId)?.envelope;
   const computed = envelope && Number.isInteger(quantity) && quantity > 0 ? totalPriceAt(envelope.unitPrice, envelope.priceBreaks, quantity) : null;
   // The award value follows the chosen offer's price at the chosen quantity; a different value needs a reason.
@@ -84,12 +89,12 @@ function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId:
         </div>
         <div>
           <label className="label" htmlFor="rec-quantity">Quantity (units)</label>
-          <input id="rec-quantity" type="number" min={1} step={1} className="field tabular-nums" {...register("quantity", { valueAsNumber: true })} />
+          <input id="rec-quantity" inputMode="numeric" className="field tabular-nums" {...register("quantity", { setValueAs: formCount })} />
           {err("quantity")}
         </div>
         <div>
           <label className="label" htmlFor="rec-value">Award value ({sheet.currency})</label>
-          <input id="rec-value" type="number" min={0} step="0.01" className="field tabular-nums" {...register("value", { valueAsNumber: true })} />
+          <input id="rec-value" inputMode="decimal" className="field tabular-nums" {...register("value", { setValueAs: formDecimal })} />
           {computed !== null ? <p className="mt-1 text-xs text-ink-soft">The offer&apos;s prices give {formatMoney(computed, sheet.currency)} for this quantity.</p> : null}
           {err("value")}
         </div>

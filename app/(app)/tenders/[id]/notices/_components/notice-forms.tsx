@@ -1,7 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import { acknowledgeAddendumAction, lodgeObjectionAction, publishAddendumAction } from "../actions";
+import { acknowledgeAddendumAction, answerObjectionAction, lodgeObjectionAction, publishAddendumAction } from "../actions";
 import { TextForm } from "./text-form";
 
 /** threadId: the clarification it answers, kept for the buying side only (vendors never see who asked). */
@@ -24,6 +24,17 @@ export function ObjectionForm({ tenderId }: { tenderId: string }) {
       submit="Lodge the objection"
       fields={[{ name: "body", label: "Your objection, in writing", rows: 6 }]}
       send={(values) => lodgeObjectionAction(tenderId, values)}
+    />
+  );
+}
+
+export function ObjectionAnswerForm({ tenderId, objectionId }: { tenderId: string; objectionId: string }) {
+  return (
+    <TextForm
+      label="Answer the objection"
+      submit="Send the answer to the vendor"
+      fields={[{ name: "answer", label: "Your answer, in writing", rows: 4 }]}
+      send={(values) => answerObjectionAction(tenderId, objectionId, values)}
     />
   );
 }

@@ -52,11 +52,11 @@ export function ClaimVerdicts({ claims, model, detail = false }: { claims: Claim
                   {shown.map((f) => (
                     <li key={f.code}>
                       {f.message}
-                      {detail ? <span className="block text-ink-faint">{f.source}</span> : null}
+                      {detail ? <span className="block text-ink-muted">{f.source}</span> : null}
                     </li>
                   ))}
                 </ul>
-                <span className="text-ink-faint">Engine {claim.engineVersion}</span>
+                <span className="text-ink-muted">Engine {claim.engineVersion}</span>
               </td>
             </tr>
           );

@@ -28,7 +28,7 @@ export function DocumentList({ documents }: { documents: OfferView["documents"] 
         <li key={d.id} className="flex flex-wrap gap-x-3">
           <a href={`/api/v1/documents/${d.id}`}>{d.fileName}</a>
           <span className="text-ink-soft">{KIND_LABELS[d.kind]}, {(d.size / 1024).toFixed(0)} KB</span>
-          <span className="font-mono text-xs text-ink-faint" title="SHA-256">{d.sha256.slice(0, 16)}…</span>
+          <span className="font-mono text-xs text-ink-muted" title="SHA-256">{d.sha256.slice(0, 16)}…</span>
         </li>
       ))}
     </ul>
