@@ -102,7 +102,7 @@ export function OperatingPointsFields() {
         <div className="max-w-md">
           <label className="label" htmlFor="t-assumedNoiseFigureDb">Assumed receiver noise figure (dB)</label>
           <input id="t-assumedNoiseFigureDb" className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(nfError)} aria-describedby="t-assumedNoiseFigureDb-error" {...register("assumedNoiseFigureDb", { setValueAs: formDecimal })} />
-          <p className="mt-1 text-xs text-ink-faint">
+          <p className="mt-1 text-xs text-ink-muted">
             Used to judge plausibility where a vendor states no noise figure (e.g. {DEFAULT_ASSUMED_NF_DB} dB); impossibility is always judged at the vendor&apos;s stated figure or 0 dB, an ideal receiver.
           </p>
           <FieldError id="t-assumedNoiseFigureDb-error" message={nfError} />

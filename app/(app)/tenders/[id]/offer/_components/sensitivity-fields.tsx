@@ -72,7 +72,7 @@ function CurveFields({ index }: { index: number }) {
           }}
         />
       </div>
-      <p className="text-xs text-ink-faint">{CURVE_CSV_HELP}</p>
+      <p className="text-xs text-ink-muted">{CURVE_CSV_HELP}</p>
       {preview ? (
         <div className="rounded-md border border-rule p-2 text-sm" role="region" aria-label="Curve file preview">
           <p>{preview.points.length} point{preview.points.length === 1 ? "" : "s"} read{preview.errors.length ? `, ${preview.errors.length} problem${preview.errors.length === 1 ? "" : "s"}` : ""}.</p>
@@ -135,7 +135,7 @@ export function SensitivityClaimRow({ index, point }: { index: number; point: Po
       </div>
       {input("sensitivity.n", "Code n (bits, optional)", formOptionalCount)}
       {input("sensitivity.k", "Code k (bits, optional)", formOptionalCount, String(s.payloadBits))}
-      <p className="col-span-2 self-end text-xs text-ink-faint">
+      <p className="col-span-2 self-end text-xs text-ink-muted">
         With n and k the 1959 sphere-packing bound applies too; without them, the least energy to send the {s.payloadBits}-bit payload.
       </p>
       <CurveFields index={index} />
