@@ -1,4 +1,3 @@
-import { Cautions } from "@/app/_components/cautions";
 import { Logo } from "@/app/_components/logo";
 import { Main } from "@/app/_components/main";
 import { MainNav } from "@/app/_components/main-nav";
@@ -28,11 +27,6 @@ export default async function SignedInLayout({ children }: { children: React.Rea
         </div>
       </header>
       <Main className="mx-auto w-full max-w-7xl flex-1 px-6 py-6">{children}</Main>
-      <footer className="border-t border-ink-faint/20 bg-paper-raised">
-        <div className="mx-auto max-w-7xl px-6 py-4">
-          <Cautions placement="footer" />
-        </div>
-      </footer>
     </div>
   );
 }

@@ -33,7 +33,9 @@ test("a buyer opens the envelopes, sorts, exports, tries other weights and recom
   await page.getByRole("row", { name: new RegExp(REFERENCE) }).getByRole("link").first().click();
   await page.getByRole("link", { name: "Comparison", exact: true }).click();
   await expect(page.getByRole("region", { name: "Comparison grid" })).toBeVisible();
-  await expect(page.getByRole("note", { name: "Cautions" }).first()).toContainText("do not replace qualification testing");
+  // The caution sits beside the verdicts, once (the signed-in pages have no footer copy of it).
+  await expect(page.getByRole("note", { name: "Cautions" })).toHaveCount(1);
+  await expect(page.getByRole("note", { name: "Cautions" })).toContainText("do not replace qualification testing");
 
   // Sealed: no prices, no totals, no ranks.
   await expect(page.getByText(/Envelopes sealed/)).toBeVisible();
