@@ -27,12 +27,9 @@ export const optionalFilter = (max = 200) =>
     .optional()
     .transform((v) => (v ? v : undefined));
 
-/** An enumerated filter that may also be blank. */
+/** An enumerated filter that may also be blank (no filter). */
 export const optionalChoice = <const T extends readonly [string, ...string[]]>(values: T, what: string) =>
-  z
-    .enum(values, { error: () => `The ${what} must be one of: ${values.join(", ")}.` })
-    .optional()
-    .or(z.literal("").transform(() => undefined));
+  z.preprocess((v) => (v === "" ? undefined : v), z.enum(values, { error: () => `The ${what} must be one of: ${values.join(", ")}.` }).optional());
 
 /** What a paged answer says about its place: sent with every list beside its rows. */
 export interface PageInfo {
