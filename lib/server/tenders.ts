@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, count, desc, eq, ilike, inArray, lte, or, sql, type SQL } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { offers, organisations, tenderInvitations, tenders } from "@/db/schema";
+import { ledgerEntries, offers, organisations, tenderInvitations, tenders } from "@/db/schema";
 import { appendLedger } from "./ledger";
 import { authorize, type Viewer } from "./session";
 import { NotFoundError } from "./errors";
@@ -103,12 +103,33 @@ export async function listTenderPage(viewer: Viewer, query: PagingInput & Tender
 
 /** One tender; 404 when it does not exist, 403 when this viewer may not see it. */
 export async function getTender(viewer: Viewer, id: string): Promise<TenderWithInvites> {
+  return (await getTenderWithHead(viewer, id)).tender;
+}
+
+/** Whether any open tender's closing time has come: closeDueTenders' first test, as a column. */
+const anyDue = (now: Date) =>
+  sql<boolean>`exists (select 1 from ${tenders} as due where due.state = 'open' and due.closes_at <= ${now.toISOString()}::timestamptz)`;
+/** The sequence number of a tender's newest ledger entry (0 before any), read from the (tender_id, seq) index. */
+const ledgerHeadOf = sql<number>`(select coalesce(max(${ledgerEntries.seq}), 0) from ${ledgerEntries} where ${ledgerEntries.tenderId} = ${tenders.id})`;
+
+/**
+ * getTender, with the seq of the tender's newest ledger entry (what caches of its derived views
+ * key on). One round trip in the usual case: the tender, its invitations, its ledger head and
+ * whether any tender is due to close; only when one is does it close them and read again.
+ */
+export async function getTenderWithHead(viewer: Viewer, id: string): Promise<{ tender: TenderWithInvites; head: number }> {
   const db = await getDb();
-  await closeDueTenders(db);
-  const [tender] = await tendersWhere(db, eq(tenders.id, id));
-  if (!tender) throw new NotFoundError("No such tender.");
+  const now = new Date();
+  const read = () => db.select({ tender: tenders, invitedOrgIds, head: ledgerHeadOf, due: anyDue(now) }).from(tenders).where(eq(tenders.id, id));
+  let [row] = await read();
+  if (row?.due) {
+    await closeDueTenders(db, now);
+    [row] = await read();
+  }
+  if (!row) throw new NotFoundError("No such tender.");
+  const tender = { ...row.tender, invitedOrgIds: row.invitedOrgIds };
   authorize(viewer, "read", tenderSubject(tender), "You are not invited to this tender.");
-  return tender;
+  return { tender, head: Number(row.head) };
 }
 
 /** Strips the invitations down to the organisations this viewer may read: a vendor sees only its own. */

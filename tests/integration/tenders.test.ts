@@ -282,6 +282,18 @@ describe("closing on time", () => {
   });
 });
 
+describe("closing on read of one tender", () => {
+  it("closes a tender whose time has come when it alone is read, once, and then reads it closed", async () => {
+    const id = await createDraft();
+    await open(as.buyer, id);
+    await db.update(tenders).set({ closesAt: new Date(Date.now() - 1000) }).where(eq(tenders.id, id));
+    const [first, second] = await Promise.all([get(as.engineer, id), get(as.buyer, id)]);
+    expect((await first.json()).state).toBe("technical");
+    expect((await second.json()).state).toBe("technical");
+    expect(await entries(id, "tender.closed")).toHaveLength(1);
+  });
+});
+
 describe("the ledger", () => {
   it("still verifies as one chain after all of the above", async () => {
     const report = await verifyLedger(db);
