@@ -1,5 +1,8 @@
 import { STATE_LOOK, type StateLook } from "./state-look";
 
+/** The words for each tender state, shared by the tag and the state filters. */
+export const STATE_LABELS: Record<string, string> = Object.fromEntries(Object.entries(STATE_LOOK).map(([state, look]) => [state, look.label]));
+
 /** The dial: a ring filled by the share of the way the tender has come, or struck through when cancelled. */
 function Dial({ look }: { look: StateLook }) {
   const { fill, struck, outline, ink } = look;

@@ -1,4 +1,4 @@
-import { bigint, index, integer, jsonb, numeric, pgTable, text, uniqueIndex } from "drizzle-orm/pg-core";
+import { bigint, customType, index, timestamp, integer, jsonb, numeric, pgTable, text, uniqueIndex } from "drizzle-orm/pg-core";
 import { tenderRef } from "./refs";
 import { id, createdAt, oneOf, updatedAt } from "./columns";
 import { users } from "./people";
@@ -87,4 +87,25 @@ export const memos = pgTable("memos", {
   ledgerSeq: bigint("ledger_seq", { mode: "number" }),
   ledgerHash: text("ledger_hash"),
   createdAt: createdAt(),
+});
+
+/** Raw bytes (PGlite hands back a Uint8Array, node-postgres a Buffer: both leave as a Uint8Array). */
+const bytes = customType<{ data: Uint8Array; driverData: Uint8Array }>({
+  dataType: () => "bytea",
+  fromDriver: (value) => new Uint8Array(value),
+});
+
+/**
+ * The rendered preview of a recommendation's memo, kept for the inputs it was rendered from: the
+ * Sign-off tab shows it again until anything the memo prints changes (lib/server/memo-preview.ts).
+ * One row per recommendation, replaced when its inputs change; never the issued memo.
+ */
+export const memoPreviews = pgTable("memo_previews", {
+  recommendationId: text("recommendation_id")
+    .primaryKey()
+    .references(() => recommendations.id),
+  /** SHA-256 of everything the memo prints except its date. */
+  inputsHash: text("inputs_hash").notNull(),
+  pdf: bytes("pdf").notNull(),
+  renderedAt: timestamp("rendered_at", { withTimezone: true }).notNull().defaultNow(),
 });

@@ -18,7 +18,8 @@ export const ledgerEntries = pgTable(
     prevHash: text("prev_hash").notNull(),
     hash: text("hash").notNull().unique(),
   },
-  (t) => [index("ledger_tender_idx").on(t.tenderId)],
+  // A tender's entries newest first (the Ledger tab's pages) and its head (the comparison's cache key).
+  (t) => [index("ledger_tender_idx").on(t.tenderId), index("ledger_tender_seq_idx").on(t.tenderId, t.seq)],
 );
 
 /**

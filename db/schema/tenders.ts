@@ -79,7 +79,12 @@ export const tenders = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [index("tenders_state_idx").on(t.state), oneOf("tenders_state_check", t.state, TENDER_STATES)],
+  (t) => [
+    index("tenders_state_idx").on(t.state),
+    // The Tenders list's order (newest first), so that a page is read from the index.
+    index("tenders_list_order_idx").on(t.createdAt.desc().nullsFirst(), t.reference),
+    oneOf("tenders_state_check", t.state, TENDER_STATES),
+  ],
 );
 
 export const tenderInvitations = pgTable(
@@ -93,7 +98,8 @@ export const tenderInvitations = pgTable(
       .references(() => organisations.id),
     invitedAt: createdAt(),
   },
-  (t) => [primaryKey({ columns: [t.tenderId, t.organisationId] })],
+  // By organisation too: a vendor's list asks which tenders invite its organisation.
+  (t) => [primaryKey({ columns: [t.tenderId, t.organisationId] }), index("tender_invitations_org_idx").on(t.organisationId, t.tenderId)],
 );
 
 /** Conflict-of-interest declarations: one per person and tender, listing the vendors they are conflicted with. */

@@ -1,6 +1,7 @@
 import { mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { localEndpoints } from "../runtime/local-endpoints";
+import { pageInfo, pageWindow, type PageInfo, type PagingInput } from "../validation/paging";
 
 // Mail the local fake SMTP server received; the Mailroom page (development only) lists it.
 export type CapturedMail = {
@@ -76,4 +77,15 @@ export function clearCapturedMail(): void {
   const file = captureFile();
   if (file) rmSync(file, { force: true });
   memoryStore().messages = [];
+}
+
+/** One page of the captured mail, newest first, to a recipient containing `to` and with `subject` in its subject. */
+export function findCapturedMail(query: { to?: string; subject?: string } & PagingInput): { mail: CapturedMail[] } & PageInfo {
+  const to = query.to?.toLowerCase();
+  const subject = query.subject?.toLowerCase();
+  const matching = listCapturedMail().filter(
+    (m) => (!to || m.to.some((address) => address.toLowerCase().includes(to))) && (!subject || m.subject.toLowerCase().includes(subject)),
+  );
+  const window = pageWindow(matching.length, query);
+  return { mail: matching.slice(window.offset, window.offset + window.pageSize), ...pageInfo(window) };
 }

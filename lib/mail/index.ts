@@ -12,6 +12,7 @@ export {
 } from "./send";
 export {
   clearCapturedMail,
+  findCapturedMail,
   getCapturedMail,
   listCapturedMail,
   MAX_CAPTURED_MAIL,

@@ -3,7 +3,7 @@ import { claimResultSchema, claimSchema } from "@/lib/bounds/schema";
 import { approvalBandSchema, decisionSchema, fingerprintSchema } from "@/lib/validation/approvals";
 import { recommendationSchema, withdrawalSchema } from "@/lib/validation/comparison";
 import { offerSchema } from "@/lib/validation/offer";
-import { createOrganisationSchema, createUserSchema, updateUserSchema } from "@/lib/validation/people";
+import { createOrganisationSchema, createUserSchema, peopleQuerySchema, updateUserSchema } from "@/lib/validation/people";
 import {
   claimQueueSchema,
   declarationSchema,
@@ -16,7 +16,7 @@ import {
   threadSchema,
 } from "@/lib/validation/review";
 import { ledgerStepSchema } from "@/lib/validation/ledger";
-import { cancelTenderSchema, tenderInputSchema, tenderPatchSchema } from "@/lib/validation/tender";
+import { cancelTenderSchema, tenderInputSchema, tenderListQuerySchema, tenderPatchSchema } from "@/lib/validation/tender";
 import { addendumSchema, ledgerPageSchema, objectionAnswerSchema, objectionSchema } from "@/lib/validation/notices";
 
 export type Method = "get" | "post" | "put" | "patch" | "delete";
@@ -46,7 +46,7 @@ const threadsQuery = z.object({ tenderId: z.string().optional() });
 /** Every route of the REST API. A test checks this list against the route files, both ways. */
 export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/me", tag: "People", summary: "The signed-in person, roles and packed abilities" },
-  { method: "get", path: "/users", tag: "People", summary: "List people (admin)" },
+  { method: "get", path: "/users", tag: "People", summary: "One page of people (admin), filtered by name or e-mail, organisation, role and status", query: peopleQuerySchema },
   { method: "post", path: "/users", tag: "People", summary: "Create an account (admin)", body: createUserSchema, created: true },
   { method: "patch", path: "/users/{id}", tag: "People", summary: "Change roles, active flag or approval limit (admin)", body: updateUserSchema },
   { method: "get", path: "/organisations", tag: "People", summary: "Organisations the viewer may read" },
@@ -54,7 +54,7 @@ export const API_ROUTES: ApiRoute[] = [
 
   { method: "post", path: "/evaluate", tag: "Bounds", summary: "Judge one claim, or up to 1,000, against the bounds", body: evaluateBody, response: evaluateResponse },
 
-  { method: "get", path: "/tenders", tag: "Tenders", summary: "Tenders the viewer may read" },
+  { method: "get", path: "/tenders", tag: "Tenders", summary: "One page of the tenders the viewer may read, newest first, filtered by state and by text in the reference or title", query: tenderListQuerySchema },
   { method: "post", path: "/tenders", tag: "Tenders", summary: "Create a draft tender (buyer)", body: tenderInputSchema, created: true },
   { method: "get", path: "/tenders/{id}", tag: "Tenders", summary: "One tender" },
   { method: "patch", path: "/tenders/{id}", tag: "Tenders", summary: "Edit a draft tender (buyer)", body: tenderPatchSchema },
@@ -77,7 +77,7 @@ export const API_ROUTES: ApiRoute[] = [
 
   { method: "get", path: "/tenders/{id}/declaration", tag: "Review", summary: "The viewer's conflict-of-interest declaration on a tender" },
   { method: "post", path: "/tenders/{id}/declaration", tag: "Review", summary: "Declare no conflict, or conflicts with named vendors", body: declarationSchema, created: true },
-  { method: "get", path: "/claims", tag: "Review", summary: "The Review bench queue", query: claimQueueSchema },
+  { method: "get", path: "/claims", tag: "Review", summary: "One page of the Review bench queue, with the vendors it holds for the vendor filter", query: claimQueueSchema },
   { method: "get", path: "/claims/{id}", tag: "Review", summary: "One claim with findings, marks and documents" },
   { method: "get", path: "/claims/{id}/marks", tag: "Review", summary: "Marks of a claim" },
   { method: "post", path: "/claims/{id}/marks", tag: "Review", summary: "Mark a claim (engineer)", body: markSchema, created: true },

@@ -3,7 +3,7 @@ import { sensitivityScoring } from "@/lib/offers/radio";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
 import { asSubject, recordTenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { claims, evidenceRuns, ledgerEntries, marks, offers, organisations, tenders } from "@/db/schema";
+import { claims, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
 import type { MarkKind } from "@/db/schema/evaluation";
 import { summariseRuns } from "@/lib/review/evidence";
 import {
@@ -20,7 +20,7 @@ import { ConflictError, ForbiddenError } from "./errors";
 import { appendLedger } from "./ledger";
 import { offerFor } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
-import { getTender, tenderSubject, type TenderRow, type TenderWithInvites } from "./tenders";
+import { getTender, getTenderWithHead, tenderSubject, type TenderRow, type TenderWithInvites } from "./tenders";
 
 type Margins = ReturnType<typeof scoringMargins> & { k: number | null };
 
@@ -189,18 +189,19 @@ export interface Comparison {
  */
 interface Cached {
   comparison: Comparison;
-  json?: string;
+  /** The answer's bytes, encoded once per version. */
+  body?: Uint8Array;
 }
 const cache = new Map<string, Promise<Cached>>();
 const CACHE_LIMIT = 500;
 
 async function cachedComparison(viewer: Viewer, tenderId: string): Promise<Cached> {
-  const tender = await getTender(viewer, tenderId);
+  // The tender and its ledger head in one read: the head names the state of every scoring input.
+  const { tender, head } = await getTenderWithHead(viewer, tenderId);
   authorize(viewer, "read", asSubject("Score", { tenderId }), "Only the buying team and approvers declared on this tender read the comparison.");
   const problem = comparisonProblem(tender.state);
   if (problem) throw new ConflictError(problem);
   const db = await getDb();
-  const [{ head }] = await db.select({ head: sql<number>`coalesce(max(${ledgerEntries.seq}), 0)` }).from(ledgerEntries).where(eq(ledgerEntries.tenderId, tenderId));
   const { id, roles, declarations } = viewer.actor;
   const key = JSON.stringify([tenderId, head, tender.state, tender.envelopesOpenedAt, id, roles, declarations]);
   let entry = cache.get(key);
@@ -239,10 +240,10 @@ export async function getComparison(viewer: Viewer, tenderId: string): Promise<C
   return (await cachedComparison(viewer, tenderId)).comparison;
 }
 
-/** The same, serialised once per version: what the route sends. */
-export async function getComparisonJson(viewer: Viewer, tenderId: string): Promise<string> {
+/** The same, serialised and encoded once per version: what the route sends. */
+export async function getComparisonBody(viewer: Viewer, tenderId: string): Promise<Uint8Array> {
   const entry = await cachedComparison(viewer, tenderId);
-  return (entry.json ??= JSON.stringify(entry.comparison));
+  return (entry.body ??= new TextEncoder().encode(JSON.stringify(entry.comparison)));
 }
 
 /**

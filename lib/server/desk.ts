@@ -1,5 +1,7 @@
 import "server-only";
 import { getDb } from "@/db/client";
+import { ne } from "drizzle-orm";
+import { tenders } from "@/db/schema";
 import { stuckRecommendations } from "./approval-coverage";
 import { waitingObjections } from "./objections";
 import type { Viewer } from "./session";
@@ -44,7 +46,7 @@ async function objectionsSection(tenders: TenderWithInvites[]): Promise<DeskSect
 /** What waits for the signed-in person, one section per role they hold. */
 export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
   const roles = viewer.actor.roles;
-  const visible = viewer.ability.can("read", "Tender") ? await listTenders(viewer) : [];
+  const visible = viewer.ability.can("read", "Tender") ? await listTenders(viewer, ne(tenders.state, "cancelled")) : [];
   const inState = (...states: string[]) => visible.filter((t) => states.includes(t.state));
   const sections: DeskSection[] = [];
   if (roles.includes("buyer")) sections.push(await stuckSection(visible, "sign-off"));

@@ -51,6 +51,13 @@ export async function readJson<T>(request: Request, schema: ZodType<T>, maxBytes
 }
 
 /** Reads a multipart form with the same cap while reading; only the upload routes call it. */
+/** The query string parsed by a zod schema; a bad value is a 400 that names the parameter and says what it takes. */
+export function readQuery<T>(request: Request, schema: ZodType<T>): T {
+  const parsed = schema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  if (!parsed.success) throw new InputError(describeZodError(parsed.error), fieldErrorsOf(parsed.error));
+  return parsed.data;
+}
+
 export async function readForm(request: Request, maxBytes: number, tooLargeError = tooLarge(maxBytes)): Promise<FormData> {
   const bytes = await readBodyBytes(request, maxBytes, tooLargeError);
   try {

@@ -2,9 +2,9 @@ import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject, defineAbilityFor } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
-import { approvals, claims, declarations, evidenceRuns, marks, memos, offers, organisations, technicalSignoffs, tenders, users } from "@/db/schema";
+import { approvals, claims, declarations, evidenceRuns, marks, memoPreviews, memos, offers, organisations, technicalSignoffs, tenders, users } from "@/db/schema";
 import { CAUTIONS } from "@/lib/cautions";
-import { memoDocument } from "@/lib/approvals/memo-content";
+import { memoDocument, type MemoFacts } from "@/lib/approvals/memo-content";
 import { memoIdentifier } from "@/lib/approvals/routing";
 import type { Head } from "@/lib/ledger/head";
 import { renderMemo } from "@/lib/pdf/memo";
@@ -87,8 +87,8 @@ interface RenderOptions {
   ledgerHead?: Head | null;
 }
 
-/** Renders the memo of a recommendation from the database as it stands. */
-export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: RecommendationRow, options: RenderOptions): Promise<Uint8Array> {
+/** What the memo of a recommendation prints, read from the database as it stands. */
+async function memoFactsFor(db: Queryable, tender: TenderRow, rec: RecommendationRow, options: RenderOptions): Promise<MemoFacts> {
   const [buyer] = await db
     .select({ name: organisations.name })
     .from(users)
@@ -101,7 +101,7 @@ export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: Recom
     .from(offers)
     .innerJoin(organisations, eq(organisations.id, offers.vendorOrgId))
     .where(eq(offers.id, rec.offerId));
-  const document = memoDocument({
+  return {
     identifier: options.identifier,
     draft: options.draft,
     issuedAt: options.issuedAt,
@@ -117,8 +117,12 @@ export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: Recom
     technical: await technicalRecord(db, tender.id),
     cautions: CAUTIONS,
     ledgerHead: options.ledgerHead,
-  });
-  return renderMemo(document);
+  };
+}
+
+/** Renders the memo of a recommendation from the database as it stands. */
+export async function renderMemoFor(db: Queryable, tender: TenderRow, rec: RecommendationRow, options: RenderOptions): Promise<Uint8Array> {
+  return renderMemo(memoDocument(await memoFactsFor(db, tender, rec, options)));
 }
 
 /**
@@ -152,7 +156,25 @@ export async function issueMemo(tx: Queryable, tender: TenderRow, rec: Recommend
 
 const memoSubject = (tenderId: string) => asSubject("Memo", { tenderId });
 
-/** A preview of the memo as it would read now, approvals so far included; never stored. */
+/**
+ * Preview renders in this process (the seam the tests count through): rendering is the slow part
+ * of a Sign-off visit, so a test can tell a reused preview from a fresh one without timing it.
+ */
+let previewRenders = 0;
+export const memoPreviewRenders = () => previewRenders;
+
+/** Renders in flight, so that visits arriving together render once. */
+const rendering = new Map<string, Promise<Uint8Array>>();
+const EPOCH = new Date(0);
+
+/**
+ * A preview of the memo as it would read now, approvals so far included. Rendered once per
+ * recommendation and version of what it prints, then reused: its inputs (everything the memo
+ * prints except its date) are read and hashed on each visit, and only a change to them (a mark,
+ * a lab run, a decision, a signature, a declaration...) renders it again. The preview carries the
+ * date it was rendered. Kept in `memo_previews` so that every app instance shares it; never the
+ * issued memo, which is rendered once more on the final approval.
+ */
 export async function previewMemo(viewer: Viewer, tenderId: string, now = new Date()) {
   const tender = await getTender(viewer, tenderId);
   authorize(viewer, "read", memoSubject(tenderId), "Only the buying team and approvers declared on this tender read its memo.");
@@ -161,7 +183,27 @@ export async function previewMemo(viewer: Viewer, tenderId: string, now = new Da
   if (!rec) throw new ConflictError("There is no recommendation to preview yet.");
   const given = await approvalsGiven(db, rec.id);
   const identifier = `${tender.reference}-PREVIEW`;
-  return { fileName: `${identifier}.pdf`, bytes: await renderMemoFor(db, tender, rec, { identifier, draft: true, issuedAt: now, approvals: given }) };
+  const fileName = `${identifier}.pdf`;
+  const facts = await memoFactsFor(db, tender, rec, { identifier, draft: true, issuedAt: now, approvals: given });
+  const inputsHash = sha256Hex(JSON.stringify(memoDocument({ ...facts, issuedAt: EPOCH })));
+  const [stored] = await db.select().from(memoPreviews).where(eq(memoPreviews.recommendationId, rec.id));
+  if (stored?.inputsHash === inputsHash) return { fileName, bytes: stored.pdf, renderedAt: stored.renderedAt, reused: true };
+
+  const key = `${rec.id}:${inputsHash}`;
+  let job = rendering.get(key);
+  if (!job) {
+    job = (async () => {
+      previewRenders++;
+      const bytes = await renderMemo(memoDocument(facts));
+      await db
+        .insert(memoPreviews)
+        .values({ recommendationId: rec.id, inputsHash, pdf: bytes, renderedAt: now })
+        .onConflictDoUpdate({ target: memoPreviews.recommendationId, set: { inputsHash, pdf: bytes, renderedAt: now } });
+      return bytes;
+    })().finally(() => rendering.delete(key));
+    rendering.set(key, job);
+  }
+  return { fileName, bytes: await job, renderedAt: now, reused: false };
 }
 
 /** The memo record of an awarded tender, or null before the award. */

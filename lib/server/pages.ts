@@ -1,7 +1,9 @@
 import "server-only";
 import { headers } from "next/headers";
 import { forbidden, notFound, redirect } from "next/navigation";
+import type { ZodType } from "zod";
 import { PAGE_PATH_HEADER, signInPath } from "@/lib/return-path";
+import { describeZodError } from "@/lib/validation/messages";
 import { ForbiddenError, NotFoundError, UnauthorizedError } from "./errors";
 import { getViewer, type Viewer } from "./session";
 
@@ -27,4 +29,15 @@ export async function orPage<T>(work: Promise<T>): Promise<T> {
     if (error instanceof UnauthorizedError) await toSignIn();
     throw error;
   }
+}
+
+/**
+ * For list pages: the URL's filters and page, parsed by the same schema as the API. A bad value
+ * does not fail the page: the list shows with the defaults, and `problem` says what was wrong.
+ */
+export function pageQuery<T>(searchParams: Record<string, string | string[] | undefined>, schema: ZodType<T>): { query: T; problem: string | null } {
+  const flat = Object.fromEntries(Object.entries(searchParams).flatMap(([k, v]) => (typeof v === "string" ? [[k, v]] : Array.isArray(v) && v.length ? [[k, v[0]]] : [])));
+  const parsed = schema.safeParse(flat);
+  if (parsed.success) return { query: parsed.data, problem: null };
+  return { query: schema.parse({}), problem: `${describeZodError(parsed.error)} Showing the first page without filters instead.` };
 }

@@ -1,35 +1,54 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
+import { and, asc, count, eq, ilike, or, sql } from "drizzle-orm";
 import { asSubject } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { organisations, sessions, userRoles, users, type RoleName } from "@/db/schema";
-import type { CreateUserInput, UpdateUserInput } from "@/lib/validation/people";
+import type { CreateUserInput, PeopleFilters, UpdateUserInput } from "@/lib/validation/people";
+import { pageInfo, pageWindow, type PagingInput } from "@/lib/validation/paging";
+import { containing } from "./access-sql";
 import { appendLedger } from "./ledger";
 import { insertUser, loadUser, rolesByUser } from "./people-store";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { strandProblem } from "./approval-coverage";
 import { ConflictError, InputError, NotFoundError } from "./errors";
 
-/** People and their organisations, for the People page. Never includes password material. */
-export async function listPeople(viewer: Viewer) {
+/**
+ * One page of people and their organisations, for the People page and GET /api/v1/users, filtered
+ * by text in the name or e-mail, organisation, role and status. Never includes password material.
+ */
+export async function listPeople(viewer: Viewer, query: PeopleFilters & PagingInput) {
   authorize(viewer, "manage", "User");
   const db = await getDb();
-  const rows = await db
-    .select({
-      id: users.id,
-      name: users.name,
-      email: users.email,
-      active: users.active,
-      approvalLimit: users.approvalLimit,
-      organisationId: users.organisationId,
-      organisationName: organisations.name,
-      organisationKind: organisations.kind,
-    })
-    .from(users)
-    .innerJoin(organisations, eq(organisations.id, users.organisationId))
-    .orderBy(asc(organisations.name), asc(users.name));
+  const where = and(
+    query.q ? or(ilike(users.name, containing(query.q)), ilike(users.email, containing(query.q))) : undefined,
+    query.organisationId ? eq(users.organisationId, query.organisationId) : undefined,
+    query.role ? sql`exists (select 1 from ${userRoles} where ${userRoles.userId} = ${users.id} and ${userRoles.role} = ${query.role})` : undefined,
+    query.status ? eq(users.active, query.status === "active") : undefined,
+  );
+  const [{ n }] = await db.select({ n: count() }).from(users).where(where);
+  const window = pageWindow(n, query);
+  const rows =
+    n === 0
+      ? []
+      : await db
+          .select({
+            id: users.id,
+            name: users.name,
+            email: users.email,
+            active: users.active,
+            approvalLimit: users.approvalLimit,
+            organisationId: users.organisationId,
+            organisationName: organisations.name,
+            organisationKind: organisations.kind,
+          })
+          .from(users)
+          .innerJoin(organisations, eq(organisations.id, users.organisationId))
+          .where(where)
+          .orderBy(asc(organisations.name), asc(users.name), asc(users.id))
+          .limit(window.pageSize)
+          .offset(window.offset);
   const roles = await rolesByUser(db, rows.map((r) => r.id));
-  return rows.map((r) => ({ ...r, roles: roles.get(r.id) ?? [] }));
+  return { users: rows.map((r) => ({ ...r, roles: roles.get(r.id) ?? [] })), ...pageInfo(window) };
 }
 
 export async function listOrganisations(viewer: Viewer) {

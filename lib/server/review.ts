@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray } from "drizzle-orm";
+import { and, asc, count, eq, ilike, inArray, or, sql } from "drizzle-orm";
 import { asSubject, pickPermitted, recordTenderState, tenderAccess, type ClaimRecord, type RecordTenderState } from "@/policies";
 import { getDb, type Queryable } from "@/db/client";
 import { claims, documents, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
@@ -8,6 +8,8 @@ import { latestMarks } from "@/lib/review/marks";
 import { summariseRuns } from "@/lib/review/evidence";
 import type { EvidenceSummary } from "@/lib/review/labels";
 import type { ClaimQueueFilters } from "@/lib/validation/review";
+import { pageInfo, pageWindow, type PageInfo, type PagingInput } from "@/lib/validation/paging";
+import { accessibleWhere, computedField, containing, recordTenderStateSql, type FieldMap } from "./access-sql";
 import { ForbiddenError, NotFoundError } from "./errors";
 import type { Viewer } from "./session";
 import { getTender, listTenders } from "./tenders";
@@ -57,9 +59,14 @@ export function offerFor(viewer: Viewer, offer: typeof offers.$inferSelect, tend
 }
 
 /** Current mark and evidence status per claim (only runs that count); the evidence only where the viewer reads lab runs. */
-async function reviewState(db: Queryable, viewer: Viewer, claimRows: { claim: ClaimRecord & { channelValue: number }; tender: { channelModel: ChannelModel } }[]) {
+async function reviewState(
+  db: Queryable,
+  viewer: Viewer,
+  claimRows: { claim: ClaimRecord & { channelValue: number }; tender: { channelModel: ChannelModel } }[],
+  read = { marks: true },
+) {
   const ids = claimRows.map((r) => r.claim.id);
-  const markRows = ids.length ? await db.select().from(marks).where(inArray(marks.claimId, ids)) : [];
+  const markRows = ids.length && read.marks ? await db.select().from(marks).where(inArray(marks.claimId, ids)) : [];
   const runRows = ids.length ? await db.select().from(evidenceRuns).where(inArray(evidenceRuns.claimId, ids)) : [];
   const latest = latestMarks(markRows);
   const evidence = new Map<string, EvidenceSummary | null>();
@@ -91,68 +98,113 @@ export interface QueueRow {
   evidence: EvidenceSummary | null;
 }
 
+/** The Claim policy fields in SQL (over claimJoin). */
+const CLAIM_FIELDS: FieldMap = {
+  id: claims.id,
+  offerId: claims.offerId,
+  tenderId: claims.tenderId,
+  vendorOrgId: claims.vendorOrgId,
+  tenderState: computedField(recordTenderStateSql),
+};
+
+/** A claim's current mark is its latest (ties: the later id), picked by the database so that it can filter and page. */
+const currentMark = sql<string | null>`(select ${marks.mark} from ${marks} where ${marks.claimId} = ${claims.id} order by ${marks.markedAt} desc, ${marks.id} desc limit 1)`;
+const currentMarkAt = sql<string | null>`(select ${marks.markedAt}::text from ${marks} where ${marks.claimId} = ${claims.id} order by ${marks.markedAt} desc, ${marks.id} desc limit 1)`;
+
+export interface ClaimQueuePage extends PageInfo {
+  claims: QueueRow[];
+  /** The vendors with claims in this queue (before the vendor, verdict and mark filters), for the vendor filter. */
+  vendors: { id: string; name: string }[];
+}
+
 /**
- * The Review bench queue: claims of current offers the viewer may read, in tenders under technical
- * evaluation (or in the one tender asked for), with their current mark and evidence status.
+ * One page of the Review bench queue: claims of current offers the viewer may read, in tenders
+ * under technical evaluation (or in the one tender asked for), with their current mark and
+ * evidence status. The policies, filters, order and paging all run in the database.
  */
-export async function listClaimQueue(viewer: Viewer, filters: Partial<ClaimQueueFilters>): Promise<QueueRow[]> {
-  if (filters.tenderId) await getTender(viewer, filters.tenderId);
+export async function listClaimQueue(viewer: Viewer, query: Partial<ClaimQueueFilters> & PagingInput): Promise<ClaimQueuePage> {
+  const empty = (): ClaimQueuePage => ({ claims: [], vendors: [], ...pageInfo(pageWindow(0, query)) });
+  if (query.tenderId) await getTender(viewer, query.tenderId);
   if (!viewer.ability.can("list", "Claim")) {
     // Engineers and approvers reach claims only through declarations: until then their queue is empty.
     if (!declaresFirst(viewer)) throw new ForbiddenError("Claims are read by the evaluation team and by the vendor who made them.");
-    if (filters.tenderId) throw refusal(viewer, filters.tenderId, "");
-    return [];
+    if (query.tenderId) throw refusal(viewer, query.tenderId, "");
+    return empty();
   }
   const db = await getDb();
-  const rows = await claimJoin(db)
-    .where(
-      and(
-        eq(offers.status, "submitted"),
-        filters.tenderId ? eq(claims.tenderId, filters.tenderId) : eq(tenders.state, "technical"),
-      ),
-    )
-    .orderBy(asc(tenders.reference), asc(organisations.name), asc(claims.pointIndex));
-  const visible = rows.filter((r) => viewer.ability.can("list", claimSubject(r.claim, recordTenderState(r.tender))));
-  if (filters.tenderId && rows.length > 0 && visible.length === 0 && !isDeclared(viewer, filters.tenderId)) {
-    throw refusal(viewer, filters.tenderId, "");
+  const scope = and(eq(offers.status, "submitted"), query.tenderId ? eq(claims.tenderId, query.tenderId) : eq(tenders.state, "technical"));
+  const base = and(scope, accessibleWhere(viewer.ability, "list", "Claim", CLAIM_FIELDS));
+  const vendor = query.vendor;
+  const where = and(
+    base,
+    vendor ? or(eq(claims.vendorOrgId, vendor), ilike(organisations.name, containing(vendor))) : undefined,
+    query.verdict ? eq(claims.verdict, query.verdict) : undefined,
+    query.mark === "unmarked" ? sql`${currentMark} is null` : query.mark ? sql`${currentMark} = ${query.mark}` : undefined,
+  );
+  const joins = { offer: eq(offers.id, claims.offerId), vendor: eq(organisations.id, claims.vendorOrgId), tender: eq(tenders.id, claims.tenderId) };
+  const [[{ n }], vendors] = await Promise.all([
+    db.select({ n: count() }).from(claims).innerJoin(offers, joins.offer).innerJoin(organisations, joins.vendor).innerJoin(tenders, joins.tender).where(where),
+    db
+      .select({ id: claims.vendorOrgId, name: organisations.name })
+      .from(claims)
+      .innerJoin(offers, joins.offer)
+      .innerJoin(organisations, joins.vendor)
+      .innerJoin(tenders, joins.tender)
+      .where(base)
+      .groupBy(claims.vendorOrgId, organisations.name)
+      .orderBy(asc(organisations.name)),
+  ]);
+  if (query.tenderId && vendors.length === 0 && !isDeclared(viewer, query.tenderId)) {
+    const [any] = await db.select({ id: claims.id }).from(claims).innerJoin(offers, joins.offer).innerJoin(tenders, joins.tender).where(scope).limit(1);
+    if (any) throw refusal(viewer, query.tenderId, "");
   }
-  const { latest, evidence } = await reviewState(db, viewer, visible);
-  const vendor = filters.vendor?.toLowerCase();
-  return visible
-    .map(({ claim, offer, vendorName, tender }): QueueRow => {
-      const mark = latest.get(claim.id);
-      return {
-        id: claim.id,
-        sensitivityDbm: claim.radio?.sensitivityDbm ?? null,
-        worstMarginDb: claim.radio?.worst.marginDb ?? null,
-        tenderId: tender.id,
-        tenderReference: tender.reference,
-        channelModel: tender.channelModel,
-        vendorOrgId: claim.vendorOrgId,
-        vendorName,
-        moduleName: offer.moduleName,
-        pointLabel: claim.pointLabel,
-        channelValue: claim.channelValue,
-        metric: claim.metric,
-        value: claim.value,
-        verdict: claim.verdict,
-        mark: mark?.mark ?? null,
-        markedAt: mark ? mark.markedAt.toISOString() : null,
-        evidence: evidence.get(claim.id) ?? null,
-      };
-    })
-    .filter((r) => !vendor || r.vendorOrgId === filters.vendor || r.vendorName.toLowerCase().includes(vendor))
-    .filter((r) => !filters.verdict || r.verdict === filters.verdict)
-    .filter((r) => !filters.mark || (filters.mark === "unmarked" ? r.mark === null : r.mark === filters.mark));
+  const window = pageWindow(n, query);
+  const rows =
+    n === 0
+      ? []
+      : await db
+          .select({ ...claimColumns, mark: currentMark, markedAt: currentMarkAt })
+          .from(claims)
+          .innerJoin(offers, joins.offer)
+          .innerJoin(organisations, joins.vendor)
+          .innerJoin(tenders, joins.tender)
+          .where(where)
+          .orderBy(asc(tenders.reference), asc(organisations.name), asc(claims.pointIndex), asc(claims.id))
+          .limit(window.pageSize)
+          .offset(window.offset);
+  // CASL checks each row again: a gap in the SQL form of the rules could only hide a claim, never show one.
+  const visible = rows.filter((r) => viewer.ability.can("list", claimSubject(r.claim, recordTenderState(r.tender))));
+  const { evidence } = await reviewState(db, viewer, visible, { marks: false });
+  return {
+    claims: visible.map(({ claim, offer, vendorName, tender, mark, markedAt }): QueueRow => ({
+      id: claim.id,
+      sensitivityDbm: claim.radio?.sensitivityDbm ?? null,
+      worstMarginDb: claim.radio?.worst.marginDb ?? null,
+      tenderId: tender.id,
+      tenderReference: tender.reference,
+      channelModel: tender.channelModel,
+      vendorOrgId: claim.vendorOrgId,
+      vendorName,
+      moduleName: offer.moduleName,
+      pointLabel: claim.pointLabel,
+      channelValue: claim.channelValue,
+      metric: claim.metric,
+      value: claim.value,
+      verdict: claim.verdict,
+      mark,
+      markedAt: markedAt ? new Date(markedAt).toISOString() : null,
+      evidence: evidence.get(claim.id) ?? null,
+    })),
+    vendors,
+    ...pageInfo(window),
+  };
 }
 
 /** Tenders in technical evaluation, and whether this viewer has declared on each. */
 export async function listTendersForReview(viewer: Viewer) {
-  const visible = viewer.ability.can("read", "Tender") ? await listTenders(viewer) : [];
+  const visible = viewer.ability.can("read", "Tender") ? await listTenders(viewer, eq(tenders.state, "technical")) : [];
   const access = tenderAccess(viewer.actor.declarations);
-  return visible
-    .filter((t) => t.state === "technical")
-    .map((t) => ({
+  return visible.map((t) => ({
       id: t.id,
       reference: t.reference,
       title: t.title,

@@ -1,5 +1,5 @@
 import "server-only";
-import { count, desc, eq } from "drizzle-orm";
+import { and, count, desc, eq, inArray } from "drizzle-orm";
 import { asSubject, recordTenderState } from "@/policies";
 import { getDb } from "@/db/client";
 import { claims, documents, ledgerEntries, offers, threads } from "@/db/schema";
@@ -10,11 +10,14 @@ import { getTender } from "./tenders";
 
 export const LEDGER_PAGE_SIZE = 50;
 
-/** The vendor organisation behind each record id of the tender that a ledger entry may name. */
-async function vendorsOfRecords(tenderId: string): Promise<Map<string, string>> {
+/** The vendor organisation behind each of these record ids of the tender (the ones a page of entries names). */
+async function vendorsOfRecords(tenderId: string, ids: string[]): Promise<Map<string, string>> {
+  if (ids.length === 0) return new Map();
   const db = await getDb();
   const lists = await Promise.all(
-    [offers, claims, documents, threads].map((table) => db.select({ id: table.id, vendorOrgId: table.vendorOrgId }).from(table).where(eq(table.tenderId, tenderId))),
+    [offers, claims, documents, threads].map((table) =>
+      db.select({ id: table.id, vendorOrgId: table.vendorOrgId }).from(table).where(and(eq(table.tenderId, tenderId), inArray(table.id, ids))),
+    ),
   );
   return new Map(lists.flat().map((r) => [r.id, r.vendorOrgId]));
 }
@@ -38,7 +41,8 @@ export async function readTenderLedger(viewer: Viewer, tenderId: string, page = 
     .orderBy(desc(ledgerEntries.seq))
     .limit(LEDGER_PAGE_SIZE)
     .offset((current - 1) * LEDGER_PAGE_SIZE);
-  const vendors = await vendorsOfRecords(tenderId);
+  const named = (row: (typeof rows)[number]) => [row.subjectId, row.data.claimId, row.data.offerId].filter((id): id is string => typeof id === "string");
+  const vendors = await vendorsOfRecords(tenderId, [...new Set(rows.flatMap(named))]);
   const mayRead: MayRead = (subject, record) => viewer.ability.can("read", asSubject(subject, record));
   const base = {
     tenderId,
@@ -48,8 +52,8 @@ export async function readTenderLedger(viewer: Viewer, tenderId: string, page = 
     invitedOrgIds: tender.invitedOrgIds,
   };
   const entries = rows.map((row) => {
-    const named = [row.subjectId, row.data.claimId, row.data.offerId].find((id): id is string => typeof id === "string" && vendors.has(id));
-    const vendorOrgId = typeof row.data.vendorOrgId === "string" ? row.data.vendorOrgId : named ? vendors.get(named)! : "";
+    const record = named(row).find((id) => vendors.has(id));
+    const vendorOrgId = typeof row.data.vendorOrgId === "string" ? row.data.vendorOrgId : record ? vendors.get(record)! : "";
     const { data, masked } = readableDetails(row, { ...base, vendorOrgId }, mayRead);
     return {
       seq: row.seq,

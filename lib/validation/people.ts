@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { ROLES as ROLE_NAMES } from "@/policies/vocabulary";
+import { optionalChoice, optionalFilter, pagingSchema } from "./paging";
 import { typedDecimal } from "./numbers";
 
 /** An approval limit in the buying currency; empty (null) is no limit. */
@@ -40,3 +41,14 @@ export const createOrganisationSchema = z.object({
   country: z.string().trim().length(2, "Two-letter country code.").toUpperCase().optional(),
 });
 
+
+/** The People list's filters, as they appear in the URL. */
+export const peopleFiltersSchema = z.object({
+  q: optionalFilter(),
+  organisationId: optionalFilter(),
+  role: optionalChoice(ROLE_NAMES, "role"),
+  status: optionalChoice(["active", "deactivated"], "status"),
+});
+export type PeopleFilters = z.infer<typeof peopleFiltersSchema>;
+/** GET /api/v1/users: the filters and a page. */
+export const peopleQuerySchema = peopleFiltersSchema.extend(pagingSchema.shape);

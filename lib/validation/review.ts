@@ -2,6 +2,7 @@ import { z } from "zod";
 import { MARKS } from "@/db/schema/evaluation";
 import { VERDICTS } from "@/db/schema/offers";
 import { commentRequired } from "@/lib/review/marks";
+import { optionalChoice, optionalFilter, pagingSchema } from "./paging";
 
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters.`);
 
@@ -73,12 +74,13 @@ export const signoffSchema = z.object({
 });
 export type SignoffInput = z.infer<typeof signoffSchema>;
 
-const optionalText = z.string().trim().max(200).optional().transform((v) => (v ? v : undefined));
 /** The queue's filters, as they appear in the URL. */
-export const claimQueueSchema = z.object({
-  tenderId: optionalText,
-  vendor: optionalText,
-  verdict: z.enum(VERDICTS).optional().or(z.literal("").transform(() => undefined)),
-  mark: z.enum([...MARKS, "unmarked"]).optional().or(z.literal("").transform(() => undefined)),
+export const claimQueueFiltersSchema = z.object({
+  tenderId: optionalFilter(),
+  vendor: optionalFilter(),
+  verdict: optionalChoice(VERDICTS, "verdict"),
+  mark: optionalChoice([...MARKS, "unmarked"], "mark"),
 });
-export type ClaimQueueFilters = z.infer<typeof claimQueueSchema>;
+export type ClaimQueueFilters = z.infer<typeof claimQueueFiltersSchema>;
+/** GET /api/v1/claims: the filters and a page (?page=&size=). */
+export const claimQueueSchema = claimQueueFiltersSchema.extend(pagingSchema.shape);

@@ -1,5 +1,7 @@
 import { z } from "zod";
 import { isValidZone, LOCAL_DATE_TIME, localTimeExists } from "@/lib/tenders/closing";
+import { TENDER_STATES } from "@/policies/vocabulary";
+import { optionalChoice, optionalFilter, pagingSchema } from "./paging";
 
 export const CHANNEL_MODELS = ["bsc", "bec", "biawgn"] as const;
 export type ChannelModelName = (typeof CHANNEL_MODELS)[number];
@@ -131,3 +133,12 @@ export const cancelTenderSchema = z.object({
   reason: z.string().trim().min(10, "Say why, in at least 10 characters.").max(2000),
 });
 export type CancelTenderInput = z.infer<typeof cancelTenderSchema>;
+
+/** The Tenders list's filters, as they appear in the URL: a state, and text in the reference or title. */
+export const tenderListFiltersSchema = z.object({
+  state: optionalChoice(TENDER_STATES, "state"),
+  q: optionalFilter(),
+});
+export type TenderListFilters = z.infer<typeof tenderListFiltersSchema>;
+/** GET /api/v1/tenders: filters and a page. */
+export const tenderListQuerySchema = tenderListFiltersSchema.extend(pagingSchema.shape);

@@ -142,7 +142,8 @@ test("anyone confirms the memo on Memo check, and a changed copy fails", async (
 
 test("the award and regret notices are in the Mailroom", async ({ page }) => {
   await signIn(page, ACCOUNTS.admin);
-  await page.goto("/mailroom");
+  // The Mailroom is paged, newest first: the tender's reference in the subject finds every one of its messages.
+  await page.goto(`/mailroom?subject=${encodeURIComponent(REFERENCE)}&size=100`);
   await expect(page.getByRole("listitem", { name: `Mail: Award notice: ${REFERENCE} River-level gauge radios` })).toHaveCount(1);
   const regrets = page.getByRole("listitem", { name: `Mail: Outcome of tender ${REFERENCE} River-level gauge radios` });
   await expect(regrets).toHaveCount(3);

@@ -21,8 +21,8 @@ export async function json(api: APIRequestContext, method: "get" | "post", url: 
 }
 
 export async function gaugesTenderId(api: APIRequestContext): Promise<string> {
-  const list = (await json(api, "get", "/api/v1/tenders")).body;
-  return (Array.isArray(list) ? list : list.tenders).find((t: { reference: string }) => t.reference === REFERENCE).id;
+  const list = (await json(api, "get", `/api/v1/tenders?q=${REFERENCE}`)).body;
+  return list.tenders.find((t: { reference: string }) => t.reference === REFERENCE).id;
 }
 
 export async function tenderState(api: APIRequestContext, tenderId: string): Promise<string> {

@@ -9,8 +9,8 @@ const REFERENCE = "RC-2027-001";
 
 test("Memo check names the ledger head the memo was issued at, still in the verified chain", async ({ page, request }) => {
   await signIn(page, ACCOUNTS.buyer);
-  const list = await (await page.request.get("/api/v1/tenders")).json();
-  const tender = (list.tenders ?? list).find((t: { reference: string }) => t.reference === REFERENCE);
+  const list = await (await page.request.get(`/api/v1/tenders?q=${REFERENCE}`)).json();
+  const tender = list.tenders.find((t: { reference: string }) => t.reference === REFERENCE);
   const memo = await page.request.get(`/api/v1/tenders/${tender.id}/memo`);
   const fingerprint = memo.headers()["x-memo-sha256"];
   const check = await request.post("/api/v1/memo-check", { data: { sha256: fingerprint } });

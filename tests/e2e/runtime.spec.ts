@@ -22,7 +22,7 @@ test("the engine's worker threads start in the production build: the API judges 
 test("documents go through the local object store, signed with the data folder's key pair", async ({ page }) => {
   await signIn(page, ACCOUNTS.oxbow);
   const headers = { origin: new URL(page.url()).origin };
-  const tenders = (await (await page.request.get("/api/v1/tenders")).json()) as { id: string; reference: string }[];
+  const { tenders } = (await (await page.request.get("/api/v1/tenders?q=RC-2027-003")).json()) as { tenders: { id: string; reference: string }[] };
   const weirs = tenders.find((t) => t.reference === "RC-2027-003")!;
   const offer = {
     moduleName: "Oxbow OW-Weir",

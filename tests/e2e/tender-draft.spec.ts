@@ -65,7 +65,7 @@ test("a buyer drafts a tender with two operating points, invites two vendors and
 
   await signIn(page, ACCOUNTS.admin);
   await expect(nav(page).getByRole("link", { name: "Mailroom" })).toBeVisible();
-  await page.goto("/mailroom");
+  await page.goto(`/mailroom?subject=${encodeURIComponent(`Invitation to tender ${reference}`)}`);
   await expect(page.getByRole("heading", { name: "Mailroom", level: 1 })).toBeVisible();
   const invitations = page.getByRole("listitem", { name: `Mail: Invitation to tender ${reference}: ${title}` });
   // Mail leaves in the background after the opening commits: look again until it has arrived.

@@ -208,8 +208,8 @@ describe("who sees a tender", () => {
     const id = await createDraft();
     await open(as.buyer, id);
     expect((await get(as.oxbow, id)).status).toBe(403);
-    const oxbowList = await (await listGet(request("/api/v1/tenders", { headers: as.oxbow }), undefined)).json();
-    expect(oxbowList.map((t: { id: string }) => t.id)).not.toContain(id);
+    const oxbowList = await (await listGet(request("/api/v1/tenders?size=100", { headers: as.oxbow }), undefined)).json();
+    expect(oxbowList.tenders.map((t: { id: string }) => t.id)).not.toContain(id);
 
     const seen = await (await get(as.kestrelink, id)).json();
     expect(seen.invitedOrgIds).toEqual([org["Kestrelink Radio"]]);
@@ -276,8 +276,20 @@ describe("closing on time", () => {
     const id = await createDraft();
     await open(as.buyer, id);
     await db.update(tenders).set({ closesAt: new Date(Date.now() - 1000) }).where(eq(tenders.id, id));
-    const list = await (await listGet(request("/api/v1/tenders", { headers: as.engineer }), undefined)).json();
-    expect(list.find((t: { id: string }) => t.id === id)?.state).toBe("technical");
+    const list = await (await listGet(request("/api/v1/tenders?size=100", { headers: as.engineer }), undefined)).json();
+    expect(list.tenders.find((t: { id: string }) => t.id === id)?.state).toBe("technical");
+    expect(await entries(id, "tender.closed")).toHaveLength(1);
+  });
+});
+
+describe("closing on read of one tender", () => {
+  it("closes a tender whose time has come when it alone is read, once, and then reads it closed", async () => {
+    const id = await createDraft();
+    await open(as.buyer, id);
+    await db.update(tenders).set({ closesAt: new Date(Date.now() - 1000) }).where(eq(tenders.id, id));
+    const [first, second] = await Promise.all([get(as.engineer, id), get(as.buyer, id)]);
+    expect((await first.json()).state).toBe("technical");
+    expect((await second.json()).state).toBe("technical");
     expect(await entries(id, "tender.closed")).toHaveLength(1);
   });
 });

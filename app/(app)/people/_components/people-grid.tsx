@@ -23,9 +23,9 @@ export function PeopleGrid({ people, selfId }: { people: PersonRow[]; selfId: st
   const selected = people.find((p) => p.id === selectedId) ?? null;
   const columns = useMemo<ColDef<PersonRow>[]>(
     () => [
-      { field: "name", headerName: "Name", filter: true, flex: 1.2 },
-      { field: "email", headerName: "E-mail", filter: true, flex: 1.5 },
-      { field: "organisationName", headerName: "Organisation", filter: true, flex: 1.2 },
+      { field: "name", headerName: "Name", flex: 1.2 },
+      { field: "email", headerName: "E-mail", flex: 1.5 },
+      { field: "organisationName", headerName: "Organisation", flex: 1.2 },
       { headerName: "Roles", valueGetter: (p) => p.data?.roles.join(", "), flex: 1 },
       { headerName: "Status", valueGetter: (p) => (p.data?.active ? "active" : "deactivated"), width: 120 },
       { field: "approvalLimit", headerName: "Approval limit", type: "rightAligned", width: 150, valueFormatter: (p) => (p.value == null ? "" : Number(p.value).toLocaleString("en-GB")) },
@@ -39,6 +39,8 @@ export function PeopleGrid({ people, selfId }: { people: PersonRow[]; selfId: st
         rowData={people}
         columnDefs={columns}
         getRowId={(p) => p.data.id}
+        // One page from the server, in the server's order: filters and paging are above and below the grid.
+        defaultColDef={{ sortable: false }}
         rowSelection={{ mode: "singleRow", checkboxes: false, enableClickSelection: true }}
         onSelectionChanged={(e) => setSelectedId(e.api.getSelectedRows()[0]?.id ?? null)}
         height={360}

@@ -7,19 +7,22 @@ import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { QueryClient, QueryClientProvider, useQuery } from "@tanstack/react-query";
 import type { ColDef, ICellRendererParams } from "ag-grid-community";
 import { DataGrid } from "@/app/_components/data-grid";
+import { Pager, pageHref } from "@/app/_components/pager";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { formatCondition, formatSci } from "@/lib/format";
 import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
-import type { QueueRow } from "@/lib/server/review";
+import type { ClaimQueuePage, QueueRow } from "@/lib/server/review";
 
 const FILTERS = ["tenderId", "vendor", "verdict", "mark"] as const;
 type Filter = (typeof FILTERS)[number];
+/** What the address carries: the filters, then the page and its size. */
+const PARAMS = [...FILTERS, "page", "size"] as const;
 
-async function fetchQueue(query: string): Promise<QueueRow[]> {
+async function fetchQueue(query: string): Promise<ClaimQueuePage> {
   const response = await fetch(`/api/v1/claims?${query}`, { headers: { accept: "application/json" } });
   const body = await response.json();
   if (!response.ok) throw new Error(body.error ?? "The queue could not be read.");
-  return body.claims;
+  return body;
 }
 
 /** The queue, kept fresh by polling; its filters live in the URL so a filtered view can be shared. */
@@ -36,15 +39,18 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
   const router = useRouter();
   const pathname = usePathname();
   const search = useSearchParams();
-  const query = new URLSearchParams(FILTERS.flatMap((f) => (search.get(f) ? [[f, search.get(f)!]] : []))).toString();
+  const asked = Object.fromEntries(PARAMS.flatMap((f) => (search.get(f) ? [[f, search.get(f)!]] : [])));
+  const query = new URLSearchParams(asked).toString();
   const { data, error, isFetching } = useQuery({ queryKey: ["claims", query], queryFn: () => fetchQueue(query), refetchInterval: 5000 });
-  const rows = useMemo(() => data ?? [], [data]);
-  const vendors = useMemo(() => [...new Map(rows.map((r) => [r.vendorOrgId, r.vendorName]))].sort((a, b) => a[1].localeCompare(b[1])), [rows]);
+  const rows = useMemo(() => data?.claims ?? [], [data]);
+  const vendors = useMemo(() => (data?.vendors ?? []).map((v): [string, string] => [v.id, v.name]), [data]);
 
   const setFilter = (name: Filter, value: string) => {
     const next = new URLSearchParams(search.toString());
     if (value) next.set(name, value);
     else next.delete(name);
+    // Another filter is another list: back to its first page.
+    next.delete("page");
     router.replace(`${pathname}${next.size ? `?${next}` : ""}`, { scroll: false });
   };
   const select = (name: Filter, label: string, options: [string, string][]) => (
@@ -89,9 +95,10 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
         {select("mark", "Mark", [["unmarked", "Not marked"], ...(Object.entries(MARK_LABELS) as [string, string][])])}
       </div>
       <p className="text-xs text-ink-soft" role="status">
-        {error ? error.message : `${rows.length} ${rows.length === 1 ? "claim" : "claims"}${isFetching ? ", refreshing…" : ""}`}
+        {error ? error.message : data ? `${data.total} ${data.total === 1 ? "claim" : "claims"}${isFetching ? ", refreshing…" : ""}` : "Reading the queue…"}
       </p>
-      <DataGrid<QueueRow> label="Claims" rowData={rows} columnDefs={columns} getRowId={(p) => p.data.id} height={460} />
+      <DataGrid<QueueRow> label="Claims" rowData={rows} columnDefs={columns} defaultColDef={{ sortable: false }} getRowId={(p) => p.data.id} height={460} />
+      {data ? <Pager info={data} noun={["claim", "claims"]} href={(page) => pageHref(pathname, asked, page)} /> : null}
     </section>
   );
 }

@@ -1,10 +1,14 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, readJson, readQuery } from "@/lib/server/http";
 import { requireViewer } from "@/lib/server/session";
 import { createTender } from "@/lib/server/tender-lifecycle";
-import { listTenderViews } from "@/lib/server/tenders";
-import { tenderInputSchema } from "@/lib/validation/tender";
+import { listTenderViewPage } from "@/lib/server/tenders";
+import { tenderInputSchema, tenderListQuerySchema } from "@/lib/validation/tender";
 
-export const GET = jsonRoute(async (request) => listTenderViews(await requireViewer(request.headers)));
+/** One page of the tenders the viewer may read: ?page=&size=&state=&q= (text in the reference or title). */
+export const GET = jsonRoute(async (request) => {
+  const viewer = await requireViewer(request.headers);
+  return listTenderViewPage(viewer, readQuery(request, tenderListQuerySchema));
+});
 
 export const POST = jsonRoute(async (request) => {
   const viewer = await requireViewer(request.headers);

@@ -1,9 +1,13 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, readJson, readQuery } from "@/lib/server/http";
 import { createUser, listPeople } from "@/lib/server/people";
 import { requireViewer } from "@/lib/server/session";
-import { createUserSchema } from "@/lib/validation/people";
+import { createUserSchema, peopleQuerySchema } from "@/lib/validation/people";
 
-export const GET = jsonRoute(async (request) => listPeople(await requireViewer(request.headers)));
+/** One page of people (admin): ?q=&organisationId=&role=&status=&page=&size=. */
+export const GET = jsonRoute(async (request) => {
+  const viewer = await requireViewer(request.headers);
+  return listPeople(viewer, readQuery(request, peopleQuerySchema));
+});
 
 export const POST = jsonRoute(async (request) => {
   const viewer = await requireViewer(request.headers);

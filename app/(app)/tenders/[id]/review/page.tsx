@@ -7,7 +7,9 @@ import { formatCondition, formatSci } from "@/lib/format";
 import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
 import { ForbiddenError, NotFoundError } from "@/lib/server/errors";
 import { getDeclaration, listDeclarableVendors } from "@/lib/server/declarations";
-import { orPage, pageViewer } from "@/lib/server/pages";
+import { orPage, pageQuery, pageViewer } from "@/lib/server/pages";
+import { Pager, pageHref } from "@/app/_components/pager";
+import { MAX_PAGE_SIZE, pagingSchema } from "@/lib/validation/paging";
 import { listClaimQueue, type QueueRow } from "@/lib/server/review";
 import { getSignoffState } from "@/lib/server/signoff";
 import { getTender, tenderSubject } from "@/lib/server/tenders";
@@ -28,8 +30,12 @@ async function ifAllowed<T>(work: Promise<T>): Promise<T | null> {
   }
 }
 
-export default async function TenderReviewPage({ params }: { params: Promise<{ id: string }> }) {
+/** The tab pages its claims a hundred at a time (a tender's offers times its operating points). */
+const tabPagingSchema = pagingSchema.extend({ size: pagingSchema.shape.size.default(MAX_PAGE_SIZE) });
+
+export default async function TenderReviewPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { id } = await params;
+  const { query: paging, problem } = pageQuery(await searchParams, tabPagingSchema);
   const viewer = await pageViewer();
   const tender = await orPage(getTender(viewer, id));
   const vendor = viewer.actor.organisationKind === "vendor";
@@ -37,7 +43,7 @@ export default async function TenderReviewPage({ params }: { params: Promise<{ i
   const declaration = declares ? await ifAllowed(getDeclaration(viewer, id)) : null;
   const mayDeclare = declares && !declaration && viewer.ability.can("declare", tenderSubject(tender));
   const vendors = mayDeclare ? await listDeclarableVendors(viewer, id) : [];
-  const claims = await ifAllowed(listClaimQueue(viewer, { tenderId: id }));
+  const claims = await ifAllowed(listClaimQueue(viewer, { tenderId: id, ...paging }));
   const signoff = vendor ? null : await ifAllowed(getSignoffState(viewer, id));
   const threads = viewer.ability.can("list", "Thread") ? await ifAllowed(listThreads(viewer, { tenderId: id })) : null;
 
@@ -54,7 +60,9 @@ export default async function TenderReviewPage({ params }: { params: Promise<{ i
         </section>
       ) : null}
 
-      {claims ? <ClaimsTable claims={claims} vendor={vendor} /> : null}
+      {problem ? <p role="alert" className="text-sm text-verdict-impossible">{problem}</p> : null}
+      {claims ? <ClaimsTable claims={claims.claims} vendor={vendor} /> : null}
+      {claims && claims.pages > 1 ? <Pager info={claims} noun={["claim", "claims"]} href={(page) => pageHref(`/tenders/${id}/review`, {}, page)} /> : null}
 
       {signoff ? <SignoffCard tenderId={id} state={signoff} /> : null}
 

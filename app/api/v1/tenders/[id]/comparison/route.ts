@@ -1,5 +1,5 @@
 import { jsonRoute } from "@/lib/server/http";
-import { getComparisonJson } from "@/lib/server/comparison";
+import { getComparisonBody } from "@/lib/server/comparison";
 import { requireViewer } from "@/lib/server/session";
 
 type Context = { params: Promise<{ id: string }> };
@@ -11,6 +11,6 @@ type Context = { params: Promise<{ id: string }> };
  * without totals or ranks; engineers and vendors get 403.
  */
 export const GET = jsonRoute(async (request, { params }: Context) => {
-  const json = await getComparisonJson(await requireViewer(request.headers), (await params).id);
-  return new Response(json, { headers: { "content-type": "application/json" } });
+  const body = await getComparisonBody(await requireViewer(request.headers), (await params).id);
+  return new Response(body as Uint8Array<ArrayBuffer>, { headers: { "content-type": "application/json", "content-length": String(body.byteLength) } });
 });
