@@ -42,18 +42,21 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
   const soft = view.model === "biawgn";
   const logX = !soft;
   const xTitle = view.model === "bsc" ? "Raw BER p (log scale)" : view.model === "bec" ? "Erasure probability e (log scale)" : "Eb/N0 (dB)";
-  const fmtX = (v: number) => (logX ? formatSci(v, 1) : `${v.toFixed(1)}`);
+  const fmtX = (v: number) => (logX ? formatSci(v, 1) : `${Number(v.toFixed(1))}`);
   const xs = channel.map((p) => p.x);
   const [xMin, xMax] = [Math.min(...xs), Math.max(...xs)];
   const inRange = (v: number) => v >= xMin && v <= xMax;
   const frac = (v: number) => (logX ? Math.log(v / xMin) / Math.log(xMax / xMin) : (v - xMin) / (xMax - xMin));
+  // whole decibels on the soft-decision axis (every second one on a wide range), not the span's fifths
+  const step = xMax - xMin > 10 ? 2 : 1;
+  const ticks = soft ? Array.from({ length: Math.floor(xMax / step) - Math.ceil(xMin / step) + 1 }, (_, i) => (Math.ceil(xMin / step) + i) * step) : undefined;
   const dB = (v: number) => (soft ? `${v.toFixed(2)} dB` : formatSci(v, 2));
   const thresholds = [
     { key: "capacity", label: soft ? "Shannon limit" : "capacity", value: result.thresholds.capacity, colour: COLOURS.capacity },
     { key: "converse", label: "converse", value: soft ? null : result.thresholds.converse, colour: COLOURS.converse },
     { key: "achievable", label: "random coding", value: soft ? null : result.thresholds.achievable, colour: COLOURS.achievable },
     { key: "sphere", label: "1959 bound", value: soft ? result.thresholds.spherePacking : null, colour: COLOURS.converse },
-    { key: "energy", label: `energy, k = ${view.k}`, value: soft ? (result.energy?.converseEbn0Db ?? null) : null, colour: COLOURS.energy },
+    { key: "energy", label: "energy limit", value: soft ? (result.energy?.converseEbn0Db ?? null) : null, colour: COLOURS.energy },
   ]
     .filter((t): t is { key: string; label: string; value: number; colour: string } => t.value != null && Number.isFinite(t.value) && inRange(t.value))
     .sort((a, b) => a.value - b.value);
@@ -73,7 +76,7 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
     { name: "normal approximation", colour: COLOURS.normal, dash: "2 3", width: 1.5 },
     ...(thresholds.length > 0 ? [{ name: "thin dashed lines: where each limit allows the claimed BLER", colour: INK.axis, dash: "3 3", width: 1 }] : []),
     ...(claim.length > 0 ? [{ name: "this claim", colour: COLOURS.claim, marker: "square" as const }] : []),
-    ...(labRuns.length > 0 ? [{ name: "lab run (upper bound of its error rate)", colour: COLOURS.run, marker: "ring" as const }] : []),
+    ...(labRuns.length > 0 ? [{ name: "lab runs (upper bound of each measured error rate)", colour: COLOURS.run, marker: "ring" as const }] : []),
     ...vendorGroups.map((g) => ({ name: `vendor curve: ${g.mark.words}`, colour: g.mark.colour, marker: g.mark.shape })),
   ];
 
@@ -82,7 +85,7 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
       <ResponsiveContainer width="100%" height="100%">
         <ComposedChart data={channel} margin={{ top: 8 + thresholds.length * LABEL_ROW, right: 12, bottom: 4, left: 0 }}>
           <CartesianGrid stroke={INK.grid} />
-          <XAxis dataKey="x" type="number" scale={logX ? "log" : "linear"} domain={[xMin, xMax]} tickFormatter={fmtX} allowDataOverflow {...AXIS} />
+          <XAxis dataKey="x" type="number" scale={logX ? "log" : "linear"} domain={[xMin, xMax]} ticks={ticks} tickFormatter={fmtX} allowDataOverflow {...AXIS} />
           <YAxis width={52} domain={[(min: number) => Math.max(Math.floor(min), -30), 0]} tickFormatter={pow10} allowDataOverflow {...AXIS} />
           <Tooltip formatter={(v) => (typeof v === "number" ? pow10(v) : String(v))} labelFormatter={(v) => fmtX(Number(v))} />
           <Line dataKey="converse" name={entries[0].name} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
