@@ -167,6 +167,18 @@ export class BallVolumes {
    * none of them near the centre n/2 unless the answer is there.
    */
   largestBelow(target: number): number {
+    // the converse and RCU ask for the same target (it depends on n and k only) at every channel
+    // value their inverses try: remember the answer
+    let L = this.below.get(target);
+    if (L === undefined) {
+      L = this.searchBelow(target);
+      if (this.below.size > 10_000) this.below.clear();
+      this.below.set(target, L);
+    }
+    return L;
+  }
+  private readonly below = new Map<number, number>();
+  private searchBelow(target: number): number {
     const n = this.n;
     if (this.logS(n + 1) <= target) return n + 1;
     const est = target <= 0 ? 1 : n * h2inv(Math.min(1, target / (n * LN2)));
