@@ -1,4 +1,4 @@
-import type { SensitivityView } from "@/lib/validation/explorer";
+import type { CurveMetric, SensitivityView } from "@/lib/validation/explorer";
 import {
   channelCurve,
   ebn0ToEsn0,
@@ -23,6 +23,16 @@ export interface BoundView {
   k: number;
   /** Target block error rate. */
   target: number;
+  /** A vendor's waterfall to judge and overlay (BI-AWGN only): Eb/N0 against an error rate. */
+  curve?: { ebn0Db: number; value: number; metric: CurveMetric }[];
+}
+
+/** One judged point of a vendor's curve, as the charts overlay it. */
+export interface VendorCurvePoint {
+  ebn0Db: number;
+  value: number;
+  metric: CurveMetric;
+  verdict: string;
 }
 
 export interface BoundCharts {
@@ -30,21 +40,25 @@ export interface BoundCharts {
   result: ClaimResult;
   channel: ChannelCurvePoint[];
   rate: RateCurvePoint[];
+  /** The view's vendor curve, each point judged at the view's n and k. */
+  vendorCurve: VendorCurvePoint[];
 }
 
 const channelOf = (model: ChannelModel, x: number) =>
   model === "bsc" ? { model, p: x } : model === "bec" ? { model, e: x } : { model, ebn0Db: x };
 
-/** The waterfall of the bounds, widened where needed so that the claim's own channel is on the chart. */
+/** The waterfall of the bounds, widened where needed so that the claim's own channel (and any vendor curve) is on the chart. */
 function channelCurveAround(view: BoundView): ChannelCurvePoint[] {
   const base = { model: view.model, n: view.n, k: view.k, points: 48 };
   const auto = channelCurve(base);
   const lo = auto[0].x;
   const hi = auto[auto.length - 1].x;
-  if (view.x >= lo && view.x <= hi) return auto;
-  if (view.model === "biawgn") return channelCurve({ ...base, from: Math.min(lo, view.x - 0.5), to: Math.max(hi, view.x + 0.5) });
+  const wanted = [view.x, ...(view.model === "biawgn" ? (view.curve ?? []).map((p) => p.ebn0Db) : [])];
+  const [wLo, wHi] = [Math.min(...wanted), Math.max(...wanted)];
+  if (wLo >= lo && wHi <= hi) return auto;
+  if (view.model === "biawgn") return channelCurve({ ...base, from: Math.min(lo, wLo - 0.5), to: Math.max(hi, wHi + 0.5) });
   const ceiling = view.model === "bsc" ? 0.5 : 0.999;
-  return channelCurve({ ...base, from: Math.min(lo, view.x / 1.5), to: Math.min(ceiling, Math.max(hi, view.x * 1.5)) });
+  return channelCurve({ ...base, from: Math.min(lo, wLo / 1.5), to: Math.min(ceiling, Math.max(hi, wHi * 1.5)) });
 }
 
 /** Everything the bound charts plot for one code and channel: the verdict, BLER against the channel, best rate against n. */
@@ -57,7 +71,23 @@ export function buildBoundCharts(view: BoundView): BoundCharts {
   const channel = channelCurveAround(view);
   const x = view.model === "biawgn" ? ebn0ToEsn0(view.x, view.k / view.n) : view.x;
   const rate = rateCurve({ model: view.model, x, targetBler: view.target, nMin: 16, nMax: Math.max(10_000, view.n * 4), points: 28 });
-  return { view, result, channel, rate };
+  return { view, result, channel, rate, vendorCurve: judgeCurve(view) };
+}
+
+/**
+ * Each point of the view's vendor curve judged as a claim of the view's code (n, k) on the
+ * BI-AWGN channel. A packet error rate is judged as a block error rate: one packet, one codeword.
+ */
+export function judgeCurve(view: BoundView): VendorCurvePoint[] {
+  if (view.model !== "biawgn") return [];
+  return (view.curve ?? []).map((p) => {
+    const r = evaluateClaim({
+      channel: { model: "biawgn", ebn0Db: p.ebn0Db },
+      code: { n: view.n, k: view.k },
+      target: { metric: p.metric === "ber" ? "ber" : "bler", value: p.value },
+    } as Parameters<typeof evaluateClaim>[0]);
+    return { ...p, verdict: r.verdict };
+  });
 }
 
 /** The chart view of a stored verdict: its code and the channel the engine actually used (null without n and k). */

@@ -1,19 +1,9 @@
 "use client";
 
-import {
-  CartesianGrid,
-  Legend,
-  Line,
-  LineChart,
-  ReferenceDot,
-  ReferenceLine,
-  ResponsiveContainer,
-  Tooltip,
-  XAxis,
-  YAxis,
-} from "recharts";
-import type { BoundCharts } from "@/lib/explorer";
+import { CartesianGrid, ComposedChart, Line, ReferenceLine, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis } from "recharts";
+import type { BoundCharts, VendorCurvePoint } from "@/lib/explorer";
 import { formatSci } from "@/lib/format";
+import { ChartFrame, INK, LABEL_ROW, LineTag, Marker, type KeyEntry, type MarkerShape } from "./chart-frame";
 
 const COLOURS = { converse: "#b42318", achievable: "#1f7a3a", normal: "#0f5e6b", capacity: "#4a5568", energy: "#8a5a00", claim: "#1c2430", run: "#6b3fa0" };
 
@@ -23,47 +13,105 @@ export interface ChartRun {
   upper: number;
   label: string;
 }
-const pow10 = (v: number) => formatSci(10 ** v, 1);
 
-/** Least possible BLER, random-coding BLER and the normal approximation against the channel, with the claim as a point. */
-export function ChannelChart({ charts, runs = [] }: { charts: BoundCharts; runs?: ChartRun[] }) {
+/** A vendor's waterfall point, judged: Eb/N0 against the error rate it states (BLER, BER or PER). */
+export type { VendorCurvePoint };
+
+// The same shapes as the verdict badges: a cross, an open diamond, a filled disc.
+const VERDICT_MARK: Record<string, { shape: MarkerShape; colour: string; words: string }> = {
+  impossible: { shape: "cross", colour: "#b42318", words: "beyond the limits" },
+  "needs-evidence": { shape: "diamond", colour: "#8a5a00", words: "needs evidence" },
+  plausible: { shape: "disc", colour: "#1f7a3a", words: "plausible" },
+};
+const markOf = (verdict: string) => VERDICT_MARK[verdict] ?? { shape: "ring" as const, colour: INK.text, words: verdict };
+
+const pow10 = (v: number) => formatSci(10 ** v, 1);
+const AXIS = { stroke: INK.axis, tick: { fontSize: 11, fill: INK.text }, tickLine: false };
+const METRIC = { bler: "BLER", ber: "BER", per: "PER" } as const;
+
+type Point = { x: number; y: number; title: string };
+const shapeFn = (shape: MarkerShape, colour: string, size?: number) =>
+  function MarkerShapeFn(props: unknown) {
+    const p = props as { cx?: number; cy?: number; payload?: Point };
+    return <Marker cx={p.cx} cy={p.cy} shape={shape} colour={colour} size={size} title={p.payload?.title} />;
+  };
+
+/** Least possible BLER, random-coding BLER and the normal approximation against the channel, with the claim, lab runs and a vendor's curve as points. */
+export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: BoundCharts; runs?: ChartRun[]; vendorCurve?: VendorCurvePoint[] }) {
   const { view, result, channel } = charts;
-  const logX = view.model !== "biawgn";
-  const xLabel = view.model === "bsc" ? "raw BER p" : view.model === "bec" ? "erasure probability e" : "Eb/N0 (dB)";
-  const fmtX = (v: number) => (logX ? formatSci(v, 1) : `${v.toFixed(1)} dB`);
   const soft = view.model === "biawgn";
-  // Soft decision: thresholds in Eb/N0 (the capacity one is in the claim's unit, Eb/N0 here)
-  const thresholds = [
-    { key: "capacity", label: "capacity", value: result.thresholds.capacity, colour: COLOURS.capacity },
-    { key: "converse", label: "converse", value: result.thresholds.converse, colour: COLOURS.converse },
-    { key: "achievable", label: "random coding", value: result.thresholds.achievable, colour: COLOURS.achievable },
-    { key: "sphere", label: "sphere packing", value: soft ? result.thresholds.spherePacking : null, colour: COLOURS.converse },
-    { key: "energy", label: `energy limit, k = ${view.k}`, value: soft ? (result.energy?.converseEbn0Db ?? null) : null, colour: COLOURS.energy },
-  ].filter((t): t is { key: string; label: string; value: number; colour: string } => t.value != null && Number.isFinite(t.value));
+  const logX = !soft;
+  const xTitle = view.model === "bsc" ? "Raw BER p (log scale)" : view.model === "bec" ? "Erasure probability e (log scale)" : "Eb/N0 (dB)";
+  const fmtX = (v: number) => (logX ? formatSci(v, 1) : `${Number(v.toFixed(1))}`);
   const xs = channel.map((p) => p.x);
-  const inRange = (v: number) => v >= Math.min(...xs) && v <= Math.max(...xs);
+  const [xMin, xMax] = [Math.min(...xs), Math.max(...xs)];
+  const inRange = (v: number) => v >= xMin && v <= xMax;
+  const frac = (v: number) => (logX ? Math.log(v / xMin) / Math.log(xMax / xMin) : (v - xMin) / (xMax - xMin));
+  // whole decibels on the soft-decision axis (every second one on a wide range), not the span's fifths
+  const step = xMax - xMin > 10 ? 2 : 1;
+  const ticks = soft ? Array.from({ length: Math.floor(xMax / step) - Math.ceil(xMin / step) + 1 }, (_, i) => (Math.ceil(xMin / step) + i) * step) : undefined;
+  const dB = (v: number) => (soft ? `${v.toFixed(2)} dB` : formatSci(v, 2));
+  const thresholds = [
+    { key: "capacity", label: soft ? "Shannon limit" : "capacity", value: result.thresholds.capacity, colour: COLOURS.capacity },
+    { key: "converse", label: "converse", value: soft ? null : result.thresholds.converse, colour: COLOURS.converse },
+    { key: "achievable", label: "random coding", value: soft ? null : result.thresholds.achievable, colour: COLOURS.achievable },
+    { key: "sphere", label: "1959 bound", value: soft ? result.thresholds.spherePacking : null, colour: COLOURS.converse },
+    { key: "energy", label: "energy limit", value: soft ? (result.energy?.converseEbn0Db ?? null) : null, colour: COLOURS.energy },
+  ]
+    .filter((t): t is { key: string; label: string; value: number; colour: string } => t.value != null && Number.isFinite(t.value) && inRange(t.value))
+    .sort((a, b) => a.value - b.value);
+
+  const claim: Point[] = inRange(view.x) ? [{ x: view.x, y: Math.log10(view.target), title: `claim: BLER ${formatSci(view.target)} at ${dB(view.x)}` }] : [];
+  const labRuns: Point[] = runs.filter((r) => inRange(r.x) && r.upper > 0).map((r) => ({ x: r.x, y: Math.log10(r.upper), title: r.label }));
+  const shown = soft ? vendorCurve.filter((p) => inRange(p.ebn0Db)) : [];
+  const vendorGroups = [...new Set(shown.map((p) => p.verdict))].map((verdict) => ({
+    verdict,
+    mark: markOf(verdict),
+    points: shown.filter((p) => p.verdict === verdict).map((p): Point => ({ x: p.ebn0Db, y: Math.log10(p.value), title: `vendor: ${METRIC[p.metric]} ${formatSci(p.value)} at ${p.ebn0Db} dB, ${markOf(p.verdict).words}` })),
+  }));
+
+  const entries: KeyEntry[] = [
+    { name: soft ? "least possible BLER (1959 sphere packing)" : "least possible BLER (converse)", colour: COLOURS.converse },
+    ...(soft ? [{ name: `least possible BLER for k = ${view.k} bits, any bandwidth (energy limit)`, colour: COLOURS.energy, dash: "8 3 2 3" }] : [{ name: "random-coding BLER (achievable)", colour: COLOURS.achievable, dash: "6 3" }]),
+    { name: "normal approximation", colour: COLOURS.normal, dash: "2 3", width: 1.5 },
+    ...(thresholds.length > 0 ? [{ name: "thin dashed lines: where each limit allows the claimed BLER", colour: INK.axis, dash: "3 3", width: 1 }] : []),
+    ...(claim.length > 0 ? [{ name: "this claim", colour: COLOURS.claim, marker: "square" as const }] : []),
+    ...(labRuns.length > 0 ? [{ name: "lab runs (upper bound of each measured error rate)", colour: COLOURS.run, marker: "ring" as const }] : []),
+    ...vendorGroups.map((g) => ({ name: `vendor curve: ${g.mark.words}`, colour: g.mark.colour, marker: g.mark.shape })),
+  ];
+
   return (
-    <figure aria-label="Block error rate against the channel" className="h-80 w-full">
+    <ChartFrame label="Block error rate against the channel" xTitle={xTitle} yTitle="Block error rate (log scale)" entries={entries}>
       <ResponsiveContainer width="100%" height="100%">
-        <LineChart data={channel} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
-          <CartesianGrid stroke="#e2e6ec" />
-          <XAxis dataKey="x" type="number" scale={logX ? "log" : "linear"} domain={["dataMin", "dataMax"]} tickFormatter={fmtX} label={{ value: xLabel, position: "insideBottom", offset: -12 }} allowDataOverflow />
-          <YAxis domain={[(min: number) => Math.max(Math.floor(min), -30), 0]} tickFormatter={pow10} label={{ value: "BLER", angle: -90, position: "insideLeft" }} allowDataOverflow />
+        <ComposedChart data={channel} margin={{ top: 8 + thresholds.length * LABEL_ROW, right: 12, bottom: 4, left: 0 }}>
+          <CartesianGrid stroke={INK.grid} />
+          <XAxis dataKey="x" type="number" scale={logX ? "log" : "linear"} domain={[xMin, xMax]} ticks={ticks} tickFormatter={fmtX} allowDataOverflow {...AXIS} />
+          <YAxis width={52} domain={[(min: number) => Math.max(Math.floor(min), -30), 0]} tickFormatter={pow10} allowDataOverflow {...AXIS} />
           <Tooltip formatter={(v) => (typeof v === "number" ? pow10(v) : String(v))} labelFormatter={(v) => fmtX(Number(v))} />
-          <Legend verticalAlign="top" />
-          <Line dataKey="converse" name={soft ? "least possible BLER (1959 sphere packing)" : "least possible BLER (converse)"} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
-          {soft ? null : <Line dataKey="achievable" name="random-coding BLER (achievable)" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />}
+          <Line dataKey="converse" name={entries[0].name} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
+          {soft ? (
+            <Line dataKey="energy" name="energy limit" stroke={COLOURS.energy} dot={false} strokeWidth={2} strokeDasharray="8 3 2 3" isAnimationActive={false} />
+          ) : (
+            <Line dataKey="achievable" name="random-coding BLER" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />
+          )}
           <Line dataKey="normal" name="normal approximation" stroke={COLOURS.normal} dot={false} strokeWidth={1.5} strokeDasharray="2 3" isAnimationActive={false} />
-          {thresholds.filter((t) => inRange(t.value)).map((t) => (
-            <ReferenceLine key={t.key} x={t.value} stroke={t.colour} strokeDasharray="3 3" label={{ value: t.label, position: "top", fontSize: 11, fill: t.colour }} />
+          {thresholds.map((t, i) => (
+            <ReferenceLine
+              key={t.key}
+              x={t.value}
+              stroke={t.colour}
+              strokeDasharray="3 3"
+              label={<LineTag row={thresholds.length - 1 - i} text={`${t.label} ${dB(t.value)}`} colour={t.colour} anchorEnd={frac(t.value) > 0.5} />}
+            />
           ))}
-          {runs.filter((r) => inRange(r.x) && r.upper > 0).map((r, i) => (
-            <ReferenceDot key={`run-${i}`} x={r.x} y={Math.log10(r.upper)} r={4} fill="#fff" stroke={COLOURS.run} strokeWidth={2} label={{ value: r.label, position: "left", fontSize: 11, fill: COLOURS.run }} />
+          {labRuns.length > 0 ? <Scatter data={labRuns} dataKey="y" name="lab run" shape={shapeFn("ring", COLOURS.run, 4)} isAnimationActive={false} /> : null}
+          {vendorGroups.map((g) => (
+            <Scatter key={g.verdict} data={g.points} dataKey="y" name={`vendor: ${g.mark.words}`} shape={shapeFn(g.mark.shape, g.mark.colour)} isAnimationActive={false} />
           ))}
-          {inRange(view.x) ? <ReferenceDot x={view.x} y={Math.log10(view.target)} r={6} fill={COLOURS.claim} stroke="#fff" label={{ value: "claim", position: "right", fontSize: 12 }} /> : null}
-        </LineChart>
+          {claim.length > 0 ? <Scatter data={claim} dataKey="y" name="claim" shape={shapeFn("square", COLOURS.claim)} isAnimationActive={false} /> : null}
+        </ComposedChart>
       </ResponsiveContainer>
-    </figure>
+    </ChartFrame>
   );
 }
 
@@ -71,22 +119,29 @@ export function ChannelChart({ charts, runs = [] }: { charts: BoundCharts; runs?
 export function RateChart({ charts }: { charts: BoundCharts }) {
   const { view, rate } = charts;
   const soft = view.model === "biawgn";
+  const entries: KeyEntry[] = [
+    { name: "capacity", colour: COLOURS.capacity, width: 1.5 },
+    { name: soft ? "largest rate allowed (1959 sphere packing)" : "largest rate allowed (converse)", colour: COLOURS.converse },
+    ...(soft ? [] : [{ name: "rate guaranteed (random coding)", colour: COLOURS.achievable, dash: "6 3" }]),
+    { name: "normal approximation", colour: COLOURS.normal, dash: "2 3", width: 1.5 },
+    { name: "this claim", colour: COLOURS.claim, marker: "square" },
+  ];
+  const claim: Point[] = [{ x: view.n, y: view.k / view.n, title: `claim: rate ${(view.k / view.n).toFixed(4)} at n = ${view.n.toLocaleString("en-GB")}` }];
   return (
-    <figure aria-label="Best rate against block length" className="h-80 w-full">
+    <ChartFrame label="Best rate against block length" xTitle="Block length n (bits, log scale)" yTitle="Rate (bits per channel use)" entries={entries}>
       <ResponsiveContainer width="100%" height="100%">
-        <LineChart data={rate} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
-          <CartesianGrid stroke="#e2e6ec" />
-          <XAxis dataKey="n" type="number" scale="log" domain={["dataMin", "dataMax"]} tickFormatter={(v: number) => v.toLocaleString("en-GB")} label={{ value: "block length n (bits)", position: "insideBottom", offset: -12 }} />
-          <YAxis domain={[0, 1]} tickFormatter={(v: number) => v.toFixed(2)} label={{ value: "rate (bits per channel use)", angle: -90, position: "insideLeft", dy: 80 }} />
+        <ComposedChart data={rate.map((r) => ({ ...r, x: r.n }))} margin={{ top: 8, right: 12, bottom: 4, left: 0 }}>
+          <CartesianGrid stroke={INK.grid} />
+          <XAxis dataKey="x" type="number" scale="log" domain={["dataMin", "dataMax"]} tickFormatter={(v: number) => v.toLocaleString("en-GB")} {...AXIS} />
+          <YAxis width={40} domain={[0, 1]} tickFormatter={(v: number) => v.toFixed(2)} {...AXIS} />
           <Tooltip formatter={(v) => (typeof v === "number" ? v.toFixed(4) : String(v))} labelFormatter={(v) => `n = ${Number(v).toLocaleString("en-GB")}`} />
-          <Legend verticalAlign="top" />
-          <Line dataKey="capacity" name="capacity" stroke={COLOURS.capacity} dot={false} isAnimationActive={false} />
-          <Line dataKey="converseRate" name={soft ? "largest rate allowed (1959 sphere packing)" : "largest rate allowed (converse)"} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
-          {soft ? null : <Line dataKey="achievableRate" name="rate guaranteed (random coding)" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />}
-          <Line dataKey="normalRate" name="normal approximation" stroke={COLOURS.normal} dot={false} strokeDasharray="2 3" isAnimationActive={false} />
-          <ReferenceDot x={view.n} y={view.k / view.n} r={6} fill={COLOURS.claim} stroke="#fff" label={{ value: "claim", position: "right", fontSize: 12 }} />
-        </LineChart>
+          <Line dataKey="capacity" name="capacity" stroke={COLOURS.capacity} dot={false} strokeWidth={1.5} isAnimationActive={false} />
+          <Line dataKey="converseRate" name={entries[1].name} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
+          {soft ? null : <Line dataKey="achievableRate" name="rate guaranteed" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />}
+          <Line dataKey="normalRate" name="normal approximation" stroke={COLOURS.normal} dot={false} strokeWidth={1.5} strokeDasharray="2 3" isAnimationActive={false} />
+          <Scatter data={claim} dataKey="y" name="claim" shape={shapeFn("square", COLOURS.claim)} isAnimationActive={false} />
+        </ComposedChart>
       </ResponsiveContainer>
-    </figure>
+    </ChartFrame>
   );
 }

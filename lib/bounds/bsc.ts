@@ -51,8 +51,54 @@ export function bscRcuLog(n: number, k: number, p: number): number {
   const sp = Math.sqrt(p);
   const guess = (n * sp) / (sp + Math.sqrt(1 - p));
   const w = concaveWindow(g, 0, last, guess);
-  // Walk the window upwards, growing S by one binomial coefficient per step (log domain); the
-  // coefficients follow from their ratio, re-anchored on log-gamma every RESYNC steps (see logBinomSum).
+  const head = p === 0 ? rcuHeadLogDomain(V, B, c0, w) : rcuHeadLinear(V, B, c0, w);
+  return Math.min(0, logAddExp(Number.isFinite(head) || head === -Infinity ? head : rcuHeadLogDomain(V, B, c0, w), tail));
+}
+
+type Window = { lo: number; hi: number; top: number };
+
+/**
+ * The RCU head sum over the window, walked upwards in linear terms within blocks of RESYNC: the
+ * binomial coefficient, the term and the ball volume S_{t+1} follow from their ratios
+ * (C(n, t+1) = C(n, t) (n-t)/(t+1), S_{t+2} = S_{t+1} + C(n, t+1)); each block starts from exact
+ * logs (log-gamma for the coefficient, the carried ln S). NaN if a block overflows (n in the millions).
+ */
+function rcuHeadLinear(V: ReturnType<typeof ballVolumes>, B: ReturnType<typeof binomial>, c0: number, w: Window): number {
+  const n = B.n;
+  const odds = Math.exp(B.lnp - B.ln1mp);
+  const lnOdds = B.lnp - B.ln1mp;
+  let s = V.logS(w.lo + 1); // ln S_{t0+1}
+  let ref = w.top;
+  let sum = 0;
+  for (let t0 = w.lo; t0 <= w.hi; t0 += RESYNC) {
+    const c = V.logChoose(t0);
+    const v0 = c + t0 * lnOdds + n * B.ln1mp + c0 + s;
+    if (v0 > ref) {
+      sum *= Math.exp(ref - v0);
+      ref = v0;
+    }
+    const q = Math.exp(c - s); // C(n, t0) / S_{t0+1}
+    let pre = Math.exp(v0 - ref); // the term at t0, relative to ref, without its S ratio
+    let cl = 1; // C(n, t) / C(n, t0)
+    let sl = 1; // S_{t+1} / S_{t0+1}
+    const end = Math.min(w.hi, t0 + RESYNC - 1);
+    for (let t = t0; t <= end; t++) {
+      sum += pre * sl;
+      const r = (n - t) / (t + 1);
+      pre *= r * odds;
+      cl *= r;
+      sl += cl * q;
+    }
+    s += Math.log(sl); // ln S_{end+2}, the next block's S_{t0+1}
+  }
+  if (!Number.isFinite(sum)) return NaN;
+  return sum === 0 ? -Infinity : ref + Math.log(sum);
+}
+
+/** The same sum term by term in the log domain (p = 0, and the fallback when a linear block overflows). */
+function rcuHeadLogDomain(V: ReturnType<typeof ballVolumes>, B: ReturnType<typeof binomial>, c0: number, w: Window): number {
+  const n = B.n;
+  const p = B.p;
   let s = V.logS(w.lo + 1);
   let ref = w.top;
   let sum = 0;
@@ -68,8 +114,7 @@ export function bscRcuLog(n: number, k: number, p: number): number {
     c += Math.log((n - t) / (t + 1)); // ln C(n, t+1)
     s = logAddExp(s, c);
   }
-  const head = sum === 0 ? -Infinity : ref + Math.log(sum);
-  return Math.min(0, logAddExp(head, tail));
+  return sum === 0 ? -Infinity : ref + Math.log(sum);
 }
 
 /**

@@ -4,6 +4,7 @@ import { becAchievLog, becConverseLog } from "./bec";
 import { biawgnCapDisp, biawgnEsn0ForCapacity, esn0Where } from "./biawgn";
 import { bscCapacity, bscDispersion, becCapacity, becDispersion } from "./channels";
 import { ebn0ToEsn0, esn0ToEbn0 } from "./conversions";
+import { energyConverseLogBler } from "./energy";
 import { spherePackingLog } from "./sphere";
 import { normalApproxLog2M, normalApproxLogBler, normalApproxRate } from "./normal";
 import { channelThreshold } from "./solve";
@@ -17,6 +18,8 @@ export interface ChannelCurvePoint {
   converse: number | null;
   achievable: number | null;
   normal: number;
+  /** BI-AWGN only: log10 of the least BLER any code with 2^k words reaches at this energy per bit (PPV 2011). */
+  energy?: number | null;
 }
 
 export interface ChannelCurveOptions {
@@ -65,6 +68,7 @@ export function channelCurve({ model, n, k, points = 60, from, to }: ChannelCurv
         converse: toLog10(spherePackingLog(n, k, x)),
         achievable: null,
         normal: toLog10(normalApproxLogBler(n, k, cd.capacity, cd.dispersion, true)),
+        energy: toLog10(energyConverseLogBler(k, x)),
       };
     });
   }

@@ -3,7 +3,7 @@
 // 57(8), 2011), and the conversion of a receiver sensitivity to Eb/N0.
 import { linearToDb } from "./channels";
 import { integrate } from "./quadrature";
-import { solveIncreasing } from "./solve";
+import { lnNegLogPhi } from "./orthogonal";
 import { LN2, log1mExp, logQ, qInvLog } from "./special";
 import { THERMAL_DBM_PER_HZ } from "./thermal";
 
@@ -22,11 +22,14 @@ export function energyConverseEbn0Db(k: number, logEps: number): number | null {
   return linearToDb((a * a) / (2 * k));
 }
 
-/** ln(-ln(1 - Q(z))) = ln(-ln Phi(z)), accurate in both tails. */
-function lnNegLogPhi(z: number): number {
-  if (z <= 0) return Math.log(-logQ(-z)); // Phi(z) <= 1/2: its log is far from 0
-  const lq = logQ(z);
-  return lq < -30 ? lq : Math.log(-Math.log1p(-Math.exp(lq))); // -ln(1 - Q) = Q (1 + Q/2 + ...)
+/**
+ * ln of the least block error of any code with 2^k codewords at energy per bit Eb/N0 (dB), any
+ * modulation and bandwidth: the converse above solved for eps, eps >= Q(sqrt(2 k Eb/N0) - Qinv(2^-k))
+ * (PPV 2011, Theorem 2). The curve the charts draw beside the 1959 bound; its inverse is
+ * energyConverseEbn0Db.
+ */
+export function energyConverseLogBler(k: number, ebn0Db: number): number {
+  return logQ(Math.sqrt(2 * k * 10 ** (ebn0Db / 10)) - qInvLog(-k * LN2));
 }
 
 /**
@@ -75,23 +78,9 @@ export function orthogonalLogBler(k: number, a: number): number {
   return Math.min(0, top - 0.5 * Math.log(2 * Math.PI) + Math.log(I));
 }
 
-/**
- * Least Eb/N0 (dB) at which 2^k orthogonal signals reach block error exp(logEps) (achievability:
- * some code does this well, PPV 2011). The BLER falls as a grows; bracketed by doubling.
- */
-export function orthogonalEbn0Db(k: number, logEps: number): number | null {
-  const f = (a: number) => logEps - orthogonalLogBler(k, a); // increasing in a
-  if (f(0) >= 0) return null;
-  // The converse's amplitude Qinv(2^-k) + Qinv(eps) is a lower end (no code does better), and
-  // orthogonal signalling comes close to it (PPV 2011), so a short gallop brackets the root.
-  const conv = qInvLog(-k * LN2) + qInvLog(logEps);
-  let lo = conv > 0 && f(conv) <= 0 ? conv : 0;
-  let hi = lo + 0.25;
-  for (let i = 0; i < 200 && f(hi) <= 0; i++) [lo, hi] = [hi, lo + 2 * (hi - lo)];
-  const a = solveIncreasing(f, lo, hi, 1e-10); // 1e-10 relative in amplitude: below 1e-9 dB
-  return linearToDb((a * a) / (2 * k));
-}
-
+// The inverse of orthogonal signalling lives in orthogonal.ts (Newton on a fixed trapezoid grid);
+// orthogonalLogBler above stays as the careful adaptive reference that the tests compare it with.
+export { orthogonalEbn0Db, orthogonalAmplitude } from "./orthogonal";
 export { THERMAL_DBM_PER_HZ };
 
 /** Implied Eb/N0 (dB) = S - 10 log10(k_B T0 / 1 mW) - 10 log10(Rb) - NF (common practice; BOUNDS.md section 9). */

@@ -102,20 +102,28 @@ export function logBinomSum(B: Binomial, a: number, b: number, slope = 0, guess 
   if (B.p === 0) return lo0 <= 0 ? 0 : -Infinity;
   const f = (t: number) => B.logPmf(t) + slope * t;
   const { lo, hi, top } = concaveWindow(f, lo0, hi0, guess);
-  const step = B.lnp - B.ln1mp + slope;
+  // Linear terms relative to ref, walked by multiplying by the term ratio (no log or exp per term);
+  // each RESYNC block starts from the exact log term, rescaling the sum when a block starts higher.
+  const odds = Math.exp(B.lnp - B.ln1mp + slope);
   const n = B.n;
   let ref = top;
   let sum = 0;
-  let v = 0;
-  for (let t = lo; t <= hi; t++) {
-    if ((t - lo) % RESYNC === 0) v = f(t);
+  for (let t0 = lo; t0 <= hi; t0 += RESYNC) {
+    const v = f(t0);
     if (v > ref) {
-      sum = sum * Math.exp(ref - v) + 1;
+      sum *= Math.exp(ref - v);
       ref = v;
-    } else sum += Math.exp(v - ref);
-    v += Math.log((n - t) / (t + 1)) + step;
+    }
+    let w = Math.exp(v - ref);
+    const end = Math.min(hi, t0 + RESYNC - 1);
+    for (let t = t0; t <= end; t++) {
+      sum += w;
+      w *= ((n - t) / (t + 1)) * odds;
+    }
   }
-  return ref + Math.log(sum);
+  // With the default guess (the mode, clamped to [a, b]) no term exceeds the first one by much; a
+  // far-off guess could overflow a block, and then the plain log-domain sum answers instead.
+  return Number.isFinite(sum) ? ref + Math.log(sum) : logSumRange(f, lo, hi, top);
 }
 
 /** ln P[a <= T <= b] for T ~ Binomial(n, p); integer a, b. */
@@ -159,6 +167,18 @@ export class BallVolumes {
    * none of them near the centre n/2 unless the answer is there.
    */
   largestBelow(target: number): number {
+    // the converse and RCU ask for the same target (it depends on n and k only) at every channel
+    // value their inverses try: remember the answer
+    let L = this.below.get(target);
+    if (L === undefined) {
+      L = this.searchBelow(target);
+      if (this.below.size > 10_000) this.below.clear();
+      this.below.set(target, L);
+    }
+    return L;
+  }
+  private readonly below = new Map<number, number>();
+  private searchBelow(target: number): number {
     const n = this.n;
     if (this.logS(n + 1) <= target) return n + 1;
     const est = target <= 0 ? 1 : n * h2inv(Math.min(1, target / (n * LN2)));

@@ -16,6 +16,33 @@ const readIn = (parse: (raw: string) => number | null) => (what: string) =>
 const numberIn = readIn(parseDecimal);
 const countIn = readIn(parseCount);
 
+/** Most vendor curve points the explorer overlays (a datasheet waterfall has a handful). */
+export const CURVE_MAX_POINTS = 12;
+export const CURVE_METRICS = ["bler", "ber", "per"] as const;
+export type CurveMetric = (typeof CURVE_METRICS)[number];
+
+/**
+ * A vendor's waterfall as typed in the explorer and kept in the address: "Eb/N0:rate" pairs
+ * separated by commas or semicolons, e.g. "1.5:1e-2, 2:1e-4". Returns the points or, for the
+ * first bad one, what is wrong with it in words.
+ */
+export function parseCurveText(text: string): { points: { ebn0Db: number; value: number }[] } | { error: string } {
+  const parts = text.split(/[;,]/).map((p) => p.trim()).filter((p) => p !== "");
+  if (parts.length > CURVE_MAX_POINTS) return { error: `the vendor curve may have at most ${CURVE_MAX_POINTS} points` };
+  const points: { ebn0Db: number; value: number }[] = [];
+  for (const [i, part] of parts.entries()) {
+    const m = /^(-?[\d.]+(?:e-?\d+)?)\s*:\s*([\d.]+(?:e-?\d+)?)$/i.exec(part);
+    const ebn0Db = m ? Number(m[1]) : NaN;
+    const value = m ? Number(m[2]) : NaN;
+    if (!Number.isFinite(ebn0Db) || !Number.isFinite(value))
+      return { error: `vendor curve point ${i + 1} ("${part}") must be written as Eb/N0 in dB, a colon and the error rate, e.g. 2.5:1e-4` };
+    if (ebn0Db < -5 || ebn0Db > 20) return { error: `vendor curve point ${i + 1} must have Eb/N0 from -5 to 20 dB` };
+    if (!(value > 0 && value < 0.5)) return { error: `vendor curve point ${i + 1} must have an error rate above 0 and below 0.5` };
+    points.push({ ebn0Db, value });
+  }
+  return { points };
+}
+
 /** The Bound explorer's view, as it lives in the URL's search parameters. */
 export const explorerSchema = z
   .object({
@@ -24,10 +51,16 @@ export const explorerSchema = z
     n: countIn("the block length n"),
     k: countIn("the information bits k"),
     target: numberIn("the target BLER"),
+    curve: z.string().optional(),
+    metric: z.enum(CURVE_METRICS, { error: "the vendor curve's error rate must be BLER, BER or PER" }).optional(),
   })
   .transform((v) => {
     const d = EXPLORER_DEFAULTS[v.model];
-    return { model: v.model, x: v.x ?? d.x, n: v.n ?? d.n, k: v.k ?? d.k, target: v.target ?? 1e-4 };
+    const parsed = parseCurveText(v.curve ?? "");
+    const metric = v.metric ?? "bler";
+    const curve = "points" in parsed ? parsed.points.map((p) => ({ ...p, metric })) : [];
+    const curveError = "error" in parsed ? parsed.error : undefined;
+    return { model: v.model, x: v.x ?? d.x, n: v.n ?? d.n, k: v.k ?? d.k, target: v.target ?? 1e-4, curve, curveError };
   })
   .superRefine((v, ctx) => {
     const issue = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
@@ -37,6 +70,7 @@ export const explorerSchema = z
     if (v.model === "bsc" && !(v.x > 0 && v.x <= 0.5)) issue("x", "the raw BER p must be above 0 and at most 0.5");
     if (v.model === "bec" && !(v.x > 0 && v.x < 1)) issue("x", "the erasure probability e must be above 0 and below 1");
     if (v.model === "biawgn" && !(v.x >= -5 && v.x <= 20)) issue("x", "Eb/N0 must be from -5 to 20 dB");
+    if (v.curveError) issue("curve", v.curveError);
   });
 export type ExplorerView = z.output<typeof explorerSchema>;
 

@@ -4,6 +4,8 @@ export interface BenchCase {
   runs: number;
   warmup?: number;
   targetMs?: number;
+  /** The case runs a child process: its CPU time is read from the reaped children's times (Linux). */
+  childProcess?: boolean;
   run: (i: number) => unknown | Promise<unknown>;
 }
 

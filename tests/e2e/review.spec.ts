@@ -1,5 +1,6 @@
 import { expect, test, type Page } from "@playwright/test";
 import { ACCOUNTS, signIn, signOut, confirmStep } from "./helpers";
+import { expectChartsApart, WIDTHS } from "./chart-layout";
 
 // One journey through the technical evaluation of the gauges tender (RC-2027-001), in order:
 // the engineer declares, reviews, records a lab run at a milder channel (it does not verify) and
@@ -75,6 +76,14 @@ test("the engineer records a lab run and asks Marram a question", async ({ page 
   const runs = page.getByRole("table", { name: "Lab runs" });
   await expect(runs.locator('tr[data-status="inconclusive"]', { hasText: "p = 5e-5" })).toHaveCount(1);
   await expect(page.getByRole("region", { name: "Charts" })).toContainText("lab runs");
+  // The claim's charts keep titles, marker-line labels and key apart, on a desktop and a phone.
+  for (const w of WIDTHS) {
+    await page.setViewportSize({ width: w.width, height: w.height });
+    await page.waitForTimeout(300);
+    await expectChartsApart(page, page.getByRole("region", { name: "Charts" }));
+    await page.getByRole("region", { name: "Charts" }).screenshot({ path: `test-results/charts/claim-${w.name}.png` });
+  }
+  await page.setViewportSize({ width: 1280, height: 720 });
 
   // The same counts at the claim's own channel verify it.
   await run.getByLabel("Channel condition").fill("0.005");

@@ -6,7 +6,7 @@ import { formatSci } from "@/lib/format";
 import { boundCharts } from "@/lib/server/engine";
 import { pageViewer, orPage } from "@/lib/server/pages";
 import { authorize } from "@/lib/server/session";
-import { EXPLORER_DEFAULTS, explorerIssues, explorerSchema, paramText, type SearchParams } from "@/lib/validation/explorer";
+import { CURVE_METRICS, EXPLORER_DEFAULTS, explorerIssues, explorerSchema, paramText, type SearchParams } from "@/lib/validation/explorer";
 import { ExplorerForm, type ExplorerFormValues } from "./_components/explorer-form";
 import { SensitivityPanel } from "./_components/sensitivity-panel";
 import { ClaimFindings, ClaimNumbers } from "@/app/_components/claim-numbers";
@@ -19,7 +19,8 @@ function formValues(raw: SearchParams): ExplorerFormValues {
   const model = (["bsc", "bec", "biawgn"] as const).find((m) => m === paramText(raw.model)) ?? "bsc";
   const d = EXPLORER_DEFAULTS[model];
   const or = (v: string, fallback: number) => (v === "" ? String(fallback) : v);
-  return { model, x: or(paramText(raw.x), d.x), n: or(paramText(raw.n), d.n), k: or(paramText(raw.k), d.k), target: or(paramText(raw.target), 1e-4) };
+  const metric = CURVE_METRICS.find((m) => m === paramText(raw.metric)) ?? "bler";
+  return { model, x: or(paramText(raw.x), d.x), n: or(paramText(raw.n), d.n), k: or(paramText(raw.k), d.k), target: or(paramText(raw.target), 1e-4), curve: paramText(raw.curve), metric };
 }
 
 export default async function ExplorerPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
@@ -62,8 +63,17 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
           </section>
           <ClaimFindings result={charts.result} />
           <div className="grid gap-5 lg:grid-cols-2">
-            <section className="panel"><h2>Block error rate against the channel</h2><ChannelChart charts={charts} /></section>
-            <section className="panel"><h2>Best rate against block length at BLER {formatSci(view.target)}</h2><RateChart charts={charts} /></section>
+            <section className="panel space-y-2">
+              <h2>Block error rate against the channel</h2>
+              <ChannelChart charts={charts} vendorCurve={charts.vendorCurve} />
+              {charts.vendorCurve.length > 0 ? (
+                <p className="text-xs text-ink-soft">
+                  Each vendor point is judged as a claim of this code (n = {view.n.toLocaleString("en-GB")}, k = {view.k.toLocaleString("en-GB")}); a
+                  PER counts as a block error rate (one packet, one codeword). The verdict judges only the physical limit.
+                </p>
+              ) : null}
+            </section>
+            <section className="panel space-y-2"><h2>Best rate against block length at BLER {formatSci(view.target)}</h2><RateChart charts={charts} /></section>
           </div>
           <ClaimNumbers result={charts.result} />
         </>

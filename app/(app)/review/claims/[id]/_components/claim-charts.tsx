@@ -1,10 +1,14 @@
-import { ChannelChart, RateChart, type ChartRun } from "@/app/_components/bound-charts";
+import { ChannelChart, RateChart, type ChartRun, type VendorCurvePoint } from "@/app/_components/bound-charts";
 import { claimResultSchema } from "@/lib/bounds";
 import { boundViewOfResult } from "@/lib/explorer";
 import { boundCharts } from "@/lib/server/engine";
 
-/** The claim against the bounds at its own n and k, with the same charts as the Bound explorer, and its lab runs (upper bounds) where the viewer reads them. */
-export async function ClaimCharts({ result, runs = [] }: { result: unknown; runs?: ChartRun[] }) {
+/**
+ * The claim against the bounds at its own n and k, with the same charts as the Bound explorer, its
+ * lab runs (upper bounds) where the viewer reads them, and, for a claim that is one point of a
+ * vendor's waterfall, the whole curve with each point's stored verdict.
+ */
+export async function ClaimCharts({ result, runs = [], vendorCurve = [] }: { result: unknown; runs?: ChartRun[]; vendorCurve?: VendorCurvePoint[] }) {
   const parsed = claimResultSchema.safeParse(result);
   const view = parsed.success ? boundViewOfResult(parsed.data) : null;
   if (!view) {
@@ -19,14 +23,13 @@ export async function ClaimCharts({ result, runs = [] }: { result: unknown; runs
   const query = new URLSearchParams({ model: view.model, x: String(view.x), n: String(view.n), k: String(view.k), target: String(view.target) });
   return (
     <section className="panel space-y-3" aria-label="Charts">
-      <div className="flex items-baseline justify-between">
+      <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
         <h2>The claim against the bounds</h2>
         <a href={`/explorer?${query}`} className="text-sm">Open in the Bound explorer</a>
       </div>
-      {runs.length > 0 ? <p className="text-xs text-ink-soft">Open circles: lab runs, at their channel and the upper bound of their measured error rate.</p> : null}
       {charts ? (
         <div className="grid gap-5 lg:grid-cols-2">
-          <ChannelChart charts={charts} runs={runs} />
+          <ChannelChart charts={charts} runs={runs} vendorCurve={vendorCurve} />
           <RateChart charts={charts} />
         </div>
       ) : (
