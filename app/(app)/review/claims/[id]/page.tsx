@@ -14,7 +14,7 @@ import { ThreadList } from "@/app/(app)/threads/_components/thread-list";
 import { ClaimNumbers, ClaimFindings } from "@/app/_components/claim-numbers";
 import { ClaimCharts } from "./_components/claim-charts";
 import { CurveTable, SensitivityCaution, SensitivityWorst } from "@/app/_components/sensitivity-summary";
-import { describeSensitivity, formatDb, formatMarginDb, type RadioClaim } from "@/lib/offers/radio";
+import { describeSensitivity, formatDb, formatMarginDb, vendorCurvePoints, type RadioClaim } from "@/lib/offers/radio";
 import { EvidencePanel } from "./_components/evidence-panel";
 import { MarkForm } from "./_components/mark-form";
 import { OpenThreadForm } from "./_components/open-thread-form";
@@ -67,7 +67,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
       ) : null}
       <ClaimFindings result={claim.result} />
       <ClaimNumbers result={claim.result} />
-      <ClaimCharts result={claim.result} runs={(runs ?? []).map((r) => ({ x: r.channelValue, upper: r.upper, label: `lab: ${EVIDENCE_LABELS[r.status].toLowerCase()}` }))} />
+      <ClaimCharts result={claim.result} runs={(runs ?? []).map((r) => ({ x: r.channelValue, upper: r.upper, label: `lab: ${EVIDENCE_LABELS[r.status].toLowerCase()}` }))} vendorCurve={radio ? vendorCurvePoints(radio) : undefined} />
 
       <section className="panel" aria-label="Documents">
         <h2>Documents</h2>
