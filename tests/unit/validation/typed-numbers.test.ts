@@ -38,7 +38,7 @@ describe("numbers typed with a decimal comma", () => {
   });
 
   it("are read by the explorer and the sensitivity calculator, counts with grouped thousands", () => {
-    expect(explorerSchema.parse({ model: "bsc", x: "0,00001", n: "2 048", k: "1,640", target: "0,0001" })).toEqual({ model: "bsc", x: 1e-5, n: 2048, k: 1640, target: 1e-4 });
+    expect(explorerSchema.parse({ model: "bsc", x: "0,00001", n: "2 048", k: "1,640", target: "0,0001" })).toMatchObject({ model: "bsc", x: 1e-5, n: 2048, k: 1640, target: 1e-4 });
     expect(sensitivitySchema.parse({ level: "-120,5", rb: "1 200", nf: "3,5", payload: "160", per: "0,01" })).toMatchObject({ level: -120.5, rb: 1200, nf: 3.5, payload: 160, per: 0.01 });
     expect(explorerSchema.safeParse({ model: "bsc", x: "some" }).error?.issues[0].message).toBe("the channel value must be a number");
   });
