@@ -3,7 +3,8 @@
 import type { BenchCase, BenchRow } from "./types";
 
 // A module exports `benches` (each run timed here) or `report()` (it times itself and returns rows).
-const MODULES = ["./bounds.bench.ts", "./comparison.bench.ts", "./engine-pool.bench.ts"];
+// `npm run bench -- web` runs only the web benchmark (a production server on the scale workload).
+const MODULES = process.argv.includes("web") ? ["./web.ts"] : ["./bounds.bench.ts", "./comparison.bench.ts", "./engine-pool.bench.ts"];
 
 function quantile(sorted: number[], q: number): number {
   return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
