@@ -471,7 +471,8 @@ async function buildTender(db: Db, rng: Rng, engine: EngineCache, cast: Cast, pl
       .innerJoin(offers, eq(offers.id, claims.offerId))
       .innerJoin(organisations, eq(organisations.id, claims.vendorOrgId))
       .where(and(eq(claims.tenderId, row.id), eq(offers.status, "submitted")))
-      .orderBy(asc(offers.submittedAt), asc(claims.pointIndex));
+      // Names break ties of submission time: ids are random, and the PRNG must meet the claims in one order.
+      .orderBy(asc(offers.submittedAt), asc(organisations.name), asc(claims.pointIndex));
     const first = plan.engineers[0];
     const second = plan.engineers[1] ?? first;
     const askers = new Map<string, Viewer>();

@@ -29,10 +29,16 @@ const flag = (name: string) => args.includes(name);
 const ROUNDS = Number(args[args.indexOf("--rounds") + 1]) || 3;
 const log = (line: string) => process.stderr.write(`[web bench] ${line}\n`);
 
+/** The bench's environment with the given settings; DATABASE_URL only where given (the PGlite runs have none). */
+function envWith(env: NodeJS.ProcessEnv): NodeJS.ProcessEnv {
+  const { DATABASE_URL: _given, ...rest } = process.env;
+  return { ...rest, ...env };
+}
+
 /** Runs a command to its end with the output passed through; rejects on a non-zero exit. */
 function run(command: string, commandArgs: string[], env: NodeJS.ProcessEnv = {}): Promise<void> {
   return new Promise((resolve, reject) => {
-    const child = spawn(command, commandArgs, { cwd: ROOT, env: { ...process.env, ...env }, stdio: ["ignore", "inherit", "inherit"] });
+    const child = spawn(command, commandArgs, { cwd: ROOT, env: envWith(env), stdio: ["ignore", "inherit", "inherit"] });
     child.on("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${command} ${commandArgs.join(" ")} ended with ${code}`))));
   });
 }
@@ -59,7 +65,7 @@ async function startServer(port: number, dataDir: string, env: NodeJS.ProcessEnv
     cwd: ROOT,
     detached: true,
     stdio: ["ignore", out, out],
-    env: { ...process.env, NODE_ENV: "production", DEMO: "1", PORT: String(port), DATA_DIR: dataDir, BETTER_AUTH_URL: base, SIGN_IN_ATTEMPTS_PER_MINUTE: "100000", ...env },
+    env: envWith({ NODE_ENV: "production", DEMO: "1", PORT: String(port), DATA_DIR: dataDir, BETTER_AUTH_URL: base, SIGN_IN_ATTEMPTS_PER_MINUTE: "100000", ...env }),
   });
   const deadline = Date.now() + 240_000;
   for (;;) {
@@ -146,7 +152,21 @@ async function signIn(base: string, email: string): Promise<Client> {
   return { base, cookie };
 }
 
+/** Connections the server closed under a kept-alive request and that were retried (counted, reported). */
+let resets = 0;
+
 async function call(client: Client, target: string, body?: unknown): Promise<Response> {
+  try {
+    return await send(client, target, body);
+  } catch (error) {
+    // A kept-alive connection the server closed as the request went out: once more on a new one.
+    if (!(error instanceof TypeError)) throw error;
+    resets += 1;
+    return send(client, target, body);
+  }
+}
+
+function send(client: Client, target: string, body?: unknown): Promise<Response> {
   return fetch(`${client.base}${target}`, {
     method: body === undefined ? "GET" : "POST",
     headers: { cookie: client.cookie, origin: client.base, ...(body === undefined ? {} : { "content-type": "application/json" }) },
@@ -223,6 +243,7 @@ async function visit(client: Client, c: Case): Promise<number> {
 const quantile = (sorted: number[], q: number) => sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
 
 async function measure(label: string, c: Case, clients: Client[], concurrency: number): Promise<BenchRow> {
+  resets = 0;
   const times: number[] = [];
   if (concurrency === 1) {
     await visit(clients[0], c); // warm-up
@@ -232,7 +253,8 @@ async function measure(label: string, c: Case, clients: Client[], concurrency: n
     for (let r = 0; r < (c.rounds ?? ROUNDS); r++) times.push(...(await Promise.all(clients.slice(0, concurrency).map((client) => visit(client, c)))));
   }
   times.sort((a, b) => a - b);
-  const row = { name: `${label}: ${c.name}, ${concurrency} client${concurrency > 1 ? "s" : ""}`, runs: times.length, medianMs: quantile(times, 0.5), p95Ms: quantile(times, 0.95), target: `p95 < ${TARGET_MS} ms` };
+  const row = { name: `${label}: ${c.name}, ${concurrency} client${concurrency > 1 ? "s" : ""}${resets ? ` (${resets} reset connection${resets > 1 ? "s" : ""} retried)` : ""}`, runs: times.length, medianMs: quantile(times, 0.5), p95Ms: quantile(times, 0.95), target: `p95 < ${TARGET_MS} ms` };
+  resets = 0;
   log(`${row.name}: p50 ${row.medianMs.toFixed(0)} ms, p95 ${row.p95Ms.toFixed(0)} ms`);
   return row;
 }
@@ -251,6 +273,7 @@ async function measureAll(label: string, servers: Server[]): Promise<BenchRow[]>
     for (const c of cases) {
       rows.push(await measure(label, c, sessions[c.role], 1));
       rows.push(await measure(label, c, sessions[c.role], CONCURRENT));
+      log(`peak resident memory so far: ${memory.peak().peakOne.toFixed(0)} MB (largest process)`);
     }
   } finally {
     memory.stop();
@@ -306,17 +329,37 @@ async function startPostgres(): Promise<{ url: string; stop: () => void }> {
   };
 }
 
+/** How many tenders a PostgreSQL database holds (0 when it has no schema yet). */
+async function tendersIn(url: string): Promise<number> {
+  const { default: pg } = await import("pg");
+  const client = new pg.Client({ connectionString: url });
+  await client.connect();
+  try {
+    const { rows } = await client.query("select count(*)::int as n from tenders");
+    return rows[0].n as number;
+  } catch {
+    return 0;
+  } finally {
+    await client.end();
+  }
+}
+
 async function postgresRows(): Promise<BenchRow[]> {
   const own = process.env.DATABASE_URL ? null : await startPostgres();
   const url = process.env.DATABASE_URL ?? own!.url;
   // Each instance has its own data folder; the second starts as a copy of the first, so both hold
-  // the same secrets, ledger checkpoints and stored memos.
-  const first = fs.mkdtempSync(path.join(os.tmpdir(), "ratecourt-bench-pg-a-"));
-  const second = `${first}-b`;
+  // the same secrets, ledger checkpoints and stored memos. With a given DATABASE_URL that holds
+  // the workload already, the first folder (BENCH_DATA_DIR-pg, from the seeding run) is reused.
+  const first = `${DATA}-pg`;
+  const second = `${DATA}-pg-b`;
   try {
-    log("seeding the scale workload into PostgreSQL (npm run db:reset, then npm run seed:scale)");
-    await run("npm", ["run", "db:reset"], { DATA_DIR: first, DATABASE_URL: url });
-    await run("npm", ["run", "seed:scale"], { DATA_DIR: first, DATABASE_URL: url });
+    if (own || !fs.existsSync(first) || (await tendersIn(url)) < 200) {
+      log("seeding the scale workload into PostgreSQL (npm run db:reset, then npm run seed:scale)");
+      fs.rmSync(first, { recursive: true, force: true });
+      await run("npm", ["run", "db:reset"], { DATA_DIR: first, DATABASE_URL: url });
+      await run("npm", ["run", "seed:scale"], { DATA_DIR: first, DATABASE_URL: url });
+    }
+    fs.rmSync(second, { recursive: true, force: true });
     fs.cpSync(first, second, { recursive: true, filter: (src) => path.basename(src) !== "server.lock" });
     const servers = [await startServer(PORT, first, { DATABASE_URL: url }), await startServer(PORT + 10, second, { DATABASE_URL: url })];
     try {
@@ -326,7 +369,8 @@ async function postgresRows(): Promise<BenchRow[]> {
     }
   } finally {
     own?.stop();
-    for (const d of [first, second]) fs.rmSync(d, { recursive: true, force: true });
+    fs.rmSync(second, { recursive: true, force: true });
+    if (own) fs.rmSync(first, { recursive: true, force: true });
   }
 }
 
