@@ -29,14 +29,16 @@ const flag = (name: string) => args.includes(name);
 const ROUNDS = Number(args[args.indexOf("--rounds") + 1]) || 3;
 const log = (line: string) => process.stderr.write(`[web bench] ${line}\n`);
 
+type Settings = Record<string, string>;
+
 /** The bench's environment with the given settings; DATABASE_URL only where given (the PGlite runs have none). */
-function envWith(env: NodeJS.ProcessEnv): NodeJS.ProcessEnv {
+function envWith(env: Settings): NodeJS.ProcessEnv {
   const { DATABASE_URL: _given, ...rest } = process.env;
-  return { ...rest, ...env };
+  return { ...rest, ...env } as NodeJS.ProcessEnv;
 }
 
 /** Runs a command to its end with the output passed through; rejects on a non-zero exit. */
-function run(command: string, commandArgs: string[], env: NodeJS.ProcessEnv = {}): Promise<void> {
+function run(command: string, commandArgs: string[], env: Settings = {}): Promise<void> {
   return new Promise((resolve, reject) => {
     const child = spawn(command, commandArgs, { cwd: ROOT, env: envWith(env), stdio: ["ignore", "inherit", "inherit"] });
     child.on("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${command} ${commandArgs.join(" ")} ended with ${code}`))));
@@ -57,7 +59,7 @@ interface Server {
   stop: () => Promise<void>;
 }
 
-async function startServer(port: number, dataDir: string, env: NodeJS.ProcessEnv = {}): Promise<Server> {
+async function startServer(port: number, dataDir: string, env: Settings = {}): Promise<Server> {
   const base = `http://localhost:${port}`;
   const logFile = path.join(os.tmpdir(), `ratecourt-bench-server-${port}.log`);
   const out = fs.openSync(logFile, "w");
