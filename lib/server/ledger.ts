@@ -19,8 +19,8 @@ export interface LedgerInput {
 /** Transactions that have appended already: their earlier entries are not committed yet. */
 const appendedIn = new WeakSet<Queryable>();
 
-/** Appends one entry. Call it inside the transaction that makes the change it records. */
-export async function appendLedger(tx: Queryable, input: LedgerInput) {
+/** Takes the append lock and returns the head to chain onto, signing a checkpoint first when one is due. */
+async function lockHead(tx: Queryable) {
   await tx.execute(sql`select pg_advisory_xact_lock(${ADVISORY_LOCKS.ledgerAppend})`);
   const [last] = await tx
     .select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash })
@@ -29,7 +29,11 @@ export async function appendLedger(tx: Queryable, input: LedgerInput) {
     .limit(1);
   await checkpointIfDue(tx, last ?? null, appendedIn.has(tx));
   appendedIn.add(tx);
-  const prevHash = last?.hash ?? GENESIS_HASH;
+  return last?.hash ?? GENESIS_HASH;
+}
+
+/** The row for one entry chained onto prevHash. */
+function chained(prevHash: string, input: LedgerInput) {
   const body: LedgerBody = {
     tenderId: input.tenderId ?? null,
     actorId: input.actor?.id ?? null,
@@ -40,12 +44,33 @@ export async function appendLedger(tx: Queryable, input: LedgerInput) {
     data: JSON.parse(JSON.stringify(input.data ?? {})),
     at: new Date().toISOString(),
   };
-  const hash = entryHash(prevHash, body);
-  const [row] = await tx
-    .insert(ledgerEntries)
-    .values({ ...body, at: new Date(body.at), prevHash, hash })
-    .returning();
+  return { ...body, at: new Date(body.at), prevHash, hash: entryHash(prevHash, body) };
+}
+
+/** Appends one entry. Call it inside the transaction that makes the change it records. */
+export async function appendLedger(tx: Queryable, input: LedgerInput) {
+  const [row] = await tx.insert(ledgerEntries).values(chained(await lockHead(tx), input)).returning();
   return row;
+}
+
+/** Rows per insert statement in appendLedgerMany (10 parameters each, far below PostgreSQL's limit). */
+const MANY_CHUNK = 500;
+
+/**
+ * Appends several entries in the given order under one lock, chained as appendLedger would chain
+ * them one by one, in a few multi-row statements (bulk writers such as the scale seed). Same rules:
+ * inside the transaction that makes the changes they record.
+ */
+export async function appendLedgerMany(tx: Queryable, inputs: LedgerInput[]): Promise<void> {
+  if (inputs.length === 0) return;
+  let prevHash = await lockHead(tx);
+  const rows = inputs.map((input) => {
+    const row = chained(prevHash, input);
+    prevHash = row.hash;
+    return row;
+  });
+  // A multi-row VALUES list takes its serial numbers in order, so seq follows the chain.
+  for (let i = 0; i < rows.length; i += MANY_CHUNK) await tx.insert(ledgerEntries).values(rows.slice(i, i + MANY_CHUNK));
 }
 
 export async function listLedger(db: Queryable, tenderId?: string) {

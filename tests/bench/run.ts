@@ -4,7 +4,8 @@ import { readFileSync } from "node:fs";
 import type { BenchCase, BenchRow } from "./types";
 
 // A module exports `benches` (each run timed here) or `report()` (it times itself and returns rows).
-const MODULES = ["./bounds.bench.ts", "./comparison.bench.ts", "./engine-pool.bench.ts"];
+// `npm run bench -- web` runs only the web benchmark (a production server on the scale workload).
+const MODULES = process.argv.includes("web") ? ["./web.ts"] : ["./bounds.bench.ts", "./comparison.bench.ts", "./engine-pool.bench.ts"];
 
 /** CPU ms of this process's reaped children (cutime + cstime of /proc/self/stat, 10 ms ticks); NaN off Linux. */
 function childCpuMs(): number {

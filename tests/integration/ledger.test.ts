@@ -3,7 +3,7 @@ import { sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { tenders } from "@/db/schema";
 import { GET as verifyGet } from "@/app/api/v1/ledger/verify/route";
-import { appendLedger } from "@/lib/server/ledger";
+import { appendLedger, appendLedgerMany, listLedger, verifyLedger } from "@/lib/server/ledger";
 import { closeDb, freshDatabase, request, signInAs } from "../support/app";
 import { runFullCheck, startCheck, stepCheck } from "../support/ledger-checks";
 import { allEntries, restoreEntries, type Entry } from "../support/ledger-tamper";
@@ -112,5 +112,22 @@ describe("the full check (admin)", () => {
     expect(bad.status).toBe(400);
     expect((await bad.json()).error).toMatch(/at least 1/);
     expect((await stepCheck(admin, "no-such-check")).status).toBe(404);
+  });
+});
+
+describe("appending many entries at once (bulk writers)", () => {
+  it("chains them in the given order, between single appends, as one by one would", async () => {
+    const before = (await listLedger(db)).length;
+    const inputs = Array.from({ length: 1203 }, (_, i) => ({ tenderId: gaugesId, actor: null, action: "test.bulk", subjectType: "Tender", subjectId: gaugesId, data: { i } }));
+    await db.transaction(async (tx) => {
+      await appendLedger(tx, { tenderId: weirsId, actor: null, action: "test.single", subjectType: "Tender", subjectId: weirsId, data: {} });
+      await appendLedgerMany(tx, inputs);
+      await appendLedger(tx, { tenderId: weirsId, actor: null, action: "test.single", subjectType: "Tender", subjectId: weirsId, data: {} });
+    });
+    const rows = (await listLedger(db)).slice(before);
+    expect(rows.map((r) => r.action)).toEqual(["test.single", ...inputs.map(() => "test.bulk"), "test.single"]);
+    expect(rows.slice(1, -1).map((r) => r.data.i)).toEqual(inputs.map((_, i) => i));
+    expect(await verifyLedger(db)).toMatchObject({ ok: true });
+    expect((await verify(admin)).body).toMatchObject({ ok: true });
   });
 });
