@@ -234,7 +234,7 @@ function planTenders(rng: Rng, cast: Cast, options: ScaleOptions, now: number): 
       submitChance: wide ? 1 : 0.85,
       markedShare: state === "technical" ? rng.pick([0, 0.3, 0.6, 0.9]) : 1,
       buyer: rng.pick(cast.buyers),
-      engineers: [cast.engineers[0], ...[...cast.engineers.slice(1)].sort(() => rng.next() - 0.5)].slice(rng.chance(0.85) ? 0 : 1).slice(0, 2),
+      engineers: [cast.engineers[0], ...cast.engineers.slice(1).sort(() => rng.next() - 0.5)].slice(rng.chance(0.85) ? 0 : 1).slice(0, 2),
       wide,
     };
   };

@@ -106,7 +106,12 @@ function residentMb(rootPid: number): [number, number] {
   const tree = new Set([rootPid]);
   for (let grew = true; grew; ) {
     grew = false;
-    for (const [pid, ppid] of parents) if (tree.has(ppid) && !tree.has(pid)) (tree.add(pid), (grew = true));
+    for (const [pid, ppid] of parents) {
+      if (tree.has(ppid) && !tree.has(pid)) {
+        tree.add(pid);
+        grew = true;
+      }
+    }
   }
   let largest = 0;
   let total = 0;
