@@ -217,9 +217,11 @@ function thousandClaims() {
 }
 
 async function findCases(buyer: Client, engineer: Client): Promise<Case[]> {
-  const tenders = itemsOf<{ id: string; title: string; state: string }>(await (await call(buyer, "/api/v1/tenders")).json(), "tenders");
-  const wide = tenders.find((t) => t.title === WIDE_TITLE);
-  const approval = tenders.find((t) => t.state === "approval");
+  // The list is paged: ask the server for the two tenders by its filters.
+  const listed = async (query: string) =>
+    itemsOf<{ id: string; title: string; state: string }>(await (await call(buyer, `/api/v1/tenders?${query}`)).json(), "tenders");
+  const wide = (await listed(`q=${encodeURIComponent(WIDE_TITLE)}`)).find((t) => t.title === WIDE_TITLE);
+  const approval = (await listed("state=approval")).at(0);
   if (!wide || !approval) throw new Error("the data folder does not hold the scale workload: remove it and run again (it is seeded when missing)");
   const queue = itemsOf<{ id: string }>(await (await call(engineer, "/api/v1/claims")).json(), "claims");
   if (queue.length === 0) throw new Error("the engineer's review bench is empty: the scale workload is missing");
