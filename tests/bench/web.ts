@@ -45,9 +45,26 @@ function run(command: string, commandArgs: string[], env: Settings = {}): Promis
   });
 }
 
+/** The newest modification time of the app's sources (what a production build is made from). */
+function newestSource(): number {
+  let newest = 0;
+  const walk = (dir: string) => {
+    for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
+      const full = path.join(dir, entry.name);
+      if (entry.isDirectory()) walk(full);
+      else newest = Math.max(newest, fs.statSync(full).mtimeMs);
+    }
+  };
+  for (const dir of ["app", "lib", "db", "policies", "drizzle"]) walk(path.join(ROOT, dir));
+  for (const file of ["package.json", "next.config.ts", "proxy.ts", "tailwind.config.ts"]) newest = Math.max(newest, fs.statSync(path.join(ROOT, file)).mtimeMs);
+  return newest;
+}
+
+/** Builds unless a production build newer than every source file is there: never measure stale code. */
 async function ensureBuild() {
-  if (fs.existsSync(path.join(ROOT, ".next", "BUILD_ID"))) return;
-  log("no production build: running npm run build (several minutes on 2 cores)");
+  const id = path.join(ROOT, ".next", "BUILD_ID");
+  if (fs.existsSync(id) && fs.statSync(id).mtimeMs > newestSource()) return;
+  log("no production build of the current sources: running npm run build (several minutes on 2 cores)");
   await run("npm", ["run", "build"]);
 }
 
