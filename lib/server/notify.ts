@@ -5,7 +5,7 @@ import { userRoles, users } from "@/db/schema";
 import { defineAbilityFor, type Actor, type AppAbility } from "@/policies";
 import { queueMail } from "@/lib/mail";
 import { mailText } from "@/lib/mail/words";
-import { appUrl } from "./auth";
+import { env } from "@/lib/env";
 import { actorOf, loadUser } from "./people-store";
 import { ensureLocalServices } from "./services";
 
@@ -25,7 +25,7 @@ export function notify(notices: Notice | Notice[]): void {
   ensureLocalServices()
     .catch((error) => console.warn("local mail server did not start", error))
     .finally(() => {
-      for (const notice of list) queueMail({ ...notice, text: mailText(notice.text, appUrl()) });
+      for (const notice of list) queueMail({ ...notice, text: mailText(notice.text, env().appUrl) });
     });
 }
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, count, eq, ilike, or, sql } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { organisations, sessions, userRoles, users, type RoleName } from "@/db/schema";
 import type { CreateUserInput, PeopleFilters, UpdateUserInput } from "@/lib/validation/people";
 import { pageInfo, pageWindow, type PagingInput } from "@/lib/validation/paging";

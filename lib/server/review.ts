@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, count, eq, ilike, inArray, or, sql } from "drizzle-orm";
 import { asSubject, pickPermitted, recordTenderState, tenderAccess, type ClaimRecord, type RecordTenderState } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { claims, documents, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
 import type { ChannelModel } from "@/db/schema/tenders";
 import { latestMarks } from "@/lib/review/marks";
