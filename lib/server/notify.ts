@@ -2,7 +2,7 @@ import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
 import { userRoles, users } from "@/db/schema";
-import { defineAbilityFor, type Actor, type AppAbility } from "@/policies";
+import { defineAbilityFor, type Actor, type AppAbility, type Role } from "@/policies";
 import { queueMail } from "@/lib/mail";
 import { mailText } from "@/lib/mail/words";
 import { env } from "@/lib/env";
@@ -59,7 +59,7 @@ export async function readersWithRole(db: Queryable, role: InternalRole, may: (a
     .sort();
 }
 
-type InternalRole = "buyer" | "engineer" | "approver" | "admin";
+type InternalRole = Exclude<Role, "vendor">;
 
 /** E-mail addresses of the active internal users holding a role. */
 export async function addressesWithRole(db: Queryable, role: InternalRole): Promise<string[]> {
