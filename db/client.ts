@@ -1,5 +1,4 @@
 import "server-only";
-import { count } from "drizzle-orm";
 import { readFile } from "node:fs/promises";
 import path from "node:path";
 import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
@@ -8,7 +7,6 @@ import { env } from "@/lib/env";
 import { holdDataFolder } from "@/lib/runtime/data-lock";
 import { ADVISORY_LOCKS } from "./locks";
 import * as schema from "./schema/index";
-import { seedDemoData } from "./seed";
 
 export type Db = PgDatabase<PgQueryResultHKT, typeof schema>;
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
@@ -65,23 +63,18 @@ async function openServer(url: string): Promise<Handle> {
   return { db: drizzle(pool, { schema }) as unknown as Db, close: () => pool.end() };
 }
 
-async function open(): Promise<Handle> {
+/**
+ * What runs once on a freshly opened database, before anyone else uses it: the bootstrap step
+ * (`lib/server/database.ts` loads the demo or explains the first account). It lives outside this
+ * file so that the client imports nothing of the data-access layer.
+ */
+export type Prepare = (db: Db) => Promise<void>;
+
+async function open(prepare: Prepare): Promise<Handle> {
   const url = env().DATABASE_URL;
   const handle = url ? await openServer(url) : await openPglite();
-  if (env().seedDemo) await seedDemoData(handle.db);
-  else await explainFirstAdmin(handle.db);
+  await prepare(handle.db);
   return handle;
-}
-
-/** A production start without the demo has no accounts at first: say how to make the first one. */
-async function explainFirstAdmin(db: Db) {
-  const [row] = await db.select({ n: count() }).from(schema.users);
-  if (row.n > 0) return;
-  console.log(
-    "Ratecourt has no accounts yet. Create the first administrator with\n" +
-      "  npm run admin:create -- --email you@example.org --name \"Your Name\" --organisation \"Your organisation\"\n" +
-      "(with the embedded database, stop the server first). It prints a one-time password to change at first sign-in.",
-  );
 }
 
 // One instance per process, kept across dev reloads: two PGlite instances on one folder lose data.
@@ -89,17 +82,18 @@ const KEY = Symbol.for("ratecourt.db");
 type Holder = { [KEY]?: Promise<Handle> };
 const holder = globalThis as Holder;
 
-export async function getDb(): Promise<Db> {
-  holder[KEY] ??= open().catch((error) => {
+/** The process's database, opened, migrated and prepared on first use. */
+export async function openDb(prepare: Prepare): Promise<Db> {
+  holder[KEY] ??= open(prepare).catch((error) => {
     holder[KEY] = undefined;
     throw error;
   });
   return (await holder[KEY]).db;
 }
 
-/** The process's embedded database, or null when DATABASE_URL names a PostgreSQL server. */
-export async function embeddedDatabase(): Promise<PGliteInterface | null> {
-  await getDb();
+/** The process's embedded database once opened, or null when DATABASE_URL names a PostgreSQL server. */
+export async function openedPglite(prepare: Prepare): Promise<PGliteInterface | null> {
+  await openDb(prepare);
   return (await holder[KEY])?.pglite ?? null;
 }
 

@@ -4,7 +4,7 @@ import { randomBytes } from "node:crypto";
 import { parseArgs } from "node:util";
 import { z } from "zod";
 import { count, eq } from "drizzle-orm";
-import { closeDb, getDb } from "./client";
+import { closeDb, getDb } from "@/lib/server/database";
 import { organisations, users } from "./schema";
 import { insertUser } from "@/lib/server/people-store";
 import { appendLedger } from "@/lib/server/ledger";

@@ -1,6 +1,6 @@
 import type { Queryable } from "./client";
 import { approvalBands } from "./schema";
-import type { DemoContext } from "./seed";
+import type { DemoContext } from "./seed-context";
 import { appendLedger } from "@/lib/server/ledger";
 
 /** The demo value bands in EUR; with the approver's limit (250,000) and the director's (2,000,000), a high-value award needs both. */

@@ -1,9 +1,9 @@
 import { eq } from "drizzle-orm";
 import type { Queryable } from "./client";
-import { DEMO_USERS, type DemoContext } from "./seed";
+import { DEMO_USERS, type DemoContext } from "./seed-context";
 import { tenders } from "./schema";
 import { evaluateOffer } from "@/lib/offers";
-import { writeOfferVersion } from "@/lib/server/offers";
+import { writeOfferVersion } from "@/lib/server/offer-versions";
 import type { OfferInput } from "@/lib/validation/offer";
 
 // Invented offers for the gauges tender (hard decision, p = 1e-3 and 5e-3, BLER 1e-4 required,

@@ -1,9 +1,9 @@
 import { and, eq } from "drizzle-orm";
 import type { Queryable } from "./client";
-import type { DemoContext } from "./seed";
+import type { DemoContext } from "./seed-context";
 import { claims, declarations, offers, tenders } from "./schema";
 import { assessRun, unitForMetric } from "@/lib/review/evidence";
-import { insertEvidenceRun } from "@/lib/server/evidence";
+import { insertEvidenceRun } from "@/lib/server/evidence-runs";
 import { appendLedger } from "@/lib/server/ledger";
 
 /**

@@ -13,7 +13,8 @@ import {
   type RateCurvePoint,
 } from "@/lib/bounds";
 
-export type ChannelModel = "bsc" | "bec" | "biawgn";
+import type { ChannelModel } from "@/lib/bounds/vocabulary";
+export type { ChannelModel };
 
 export interface BoundView {
   model: ChannelModel;

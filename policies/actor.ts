@@ -1,11 +1,11 @@
-import type { Role } from "./vocabulary";
+import type { OrganisationKind, Role } from "./vocabulary";
 
 /** The signed-in person, as lib/server reads it from the database on each request. */
 export interface Actor {
   id: string;
   organisationId: string;
   /** The buying company, or one vendor organisation. */
-  organisationKind: "buyer" | "vendor";
+  organisationKind: OrganisationKind;
   /** A vendor user holds exactly ["vendor"]; an internal user any of admin/buyer/engineer/approver. */
   roles: Role[];
   /** Deactivated users get no abilities at all. */

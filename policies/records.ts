@@ -1,4 +1,4 @@
-import type { EnvelopeField, RecordTenderState, SubjectType, TenderState } from "./vocabulary";
+import type { EnvelopeField, OrganisationKind, RecordTenderState, SubjectType, TenderState } from "./vocabulary";
 
 /**
  * The fields each subject's conditions read. lib/server passes records with at least these
@@ -7,7 +7,7 @@ import type { EnvelopeField, RecordTenderState, SubjectType, TenderState } from 
  */
 export type EnvelopeValues = { [F in EnvelopeField]?: unknown };
 
-export interface OrganisationRecord { id: string; kind: "buyer" | "vendor" }
+export interface OrganisationRecord { id: string; kind: OrganisationKind }
 export interface UserRecord { id: string; organisationId: string }
 export type ApprovalLimitRecord = object;
 export interface LedgerRecord { tenderId: string }

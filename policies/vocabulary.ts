@@ -6,6 +6,10 @@
 export const ROLES = ["admin", "buyer", "engineer", "approver", "vendor"] as const;
 export type Role = (typeof ROLES)[number];
 
+/** The two sides of a tender: the buying organisation and the vendors it invites. */
+export const ORGANISATION_KINDS = ["buyer", "vendor"] as const;
+export type OrganisationKind = (typeof ORGANISATION_KINDS)[number];
+
 export const ACTIONS = [
   "manage", // CASL's wildcard: admin on the people subjects only
   "read",

@@ -1,4 +1,6 @@
-export type Verdict = "impossible" | "needs-evidence" | "plausible";
+import type { Verdict } from "@/lib/bounds/vocabulary";
+
+export type { Verdict };
 
 // Each verdict has its own shape as well as its own colour, so the badges read in grey-scale print.
 const LOOK: Record<Verdict, { label: string; glyph: string; className: string }> = {

@@ -4,6 +4,7 @@ import { tenderRef, vendorRef } from "./refs";
 import { id, createdAt, oneOf } from "./columns";
 import { users } from "./people";
 import type { RadioClaim } from "@/lib/offers/radio";
+import { VERDICTS, type Verdict } from "@/lib/bounds/vocabulary";
 
 export const OFFER_STATUSES = ["submitted", "superseded", "withdrawn"] as const;
 export type OfferStatus = (typeof OFFER_STATUSES)[number];
@@ -53,8 +54,7 @@ export const offers = pgTable(
 
 export const CLAIM_METRICS = ["bler", "ber", "ncg"] as const;
 export type ClaimMetric = (typeof CLAIM_METRICS)[number];
-export const VERDICTS = ["impossible", "needs-evidence", "plausible"] as const;
-export type Verdict = (typeof VERDICTS)[number];
+export { VERDICTS, type Verdict };
 
 /** One claim per operating point of the tender, with the engine's verdict stored beside it. */
 export const claims = pgTable(

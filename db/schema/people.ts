@@ -1,9 +1,8 @@
 import { boolean, index, numeric, pgTable, primaryKey, text, timestamp } from "drizzle-orm/pg-core";
-import { ROLES, type Role } from "@/policies/vocabulary";
+import { ORGANISATION_KINDS, ROLES, type OrganisationKind, type Role } from "@/policies/vocabulary";
 import { id, createdAt, oneOf, updatedAt } from "./columns";
 
-export const ORGANISATION_KINDS = ["buyer", "vendor"] as const;
-export type OrganisationKind = (typeof ORGANISATION_KINDS)[number];
+export { ORGANISATION_KINDS, type OrganisationKind };
 
 export const organisations = pgTable(
   "organisations",

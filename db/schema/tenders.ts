@@ -9,7 +9,8 @@ import { TENDER_STATES } from "@/policies/vocabulary";
 export { TENDER_STATES };
 export type { TenderState };
 
-export type ChannelModel = "bsc" | "bec" | "biawgn";
+import type { ChannelModel } from "@/lib/bounds/vocabulary";
+export type { ChannelModel };
 export type NoticeDisclosure = "rank" | "rank-and-scores";
 /**
  * A biawgn point stated as a receiver sees it: the input level (dBm, in `value`) at which the

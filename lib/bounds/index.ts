@@ -1,5 +1,6 @@
 // Public surface of the bounds engine: pure functions, no I/O.
 export * from "./version";
+export * from "./vocabulary";
 export * from "./schema";
 export { evaluateClaim } from "./verdict";
 export { resolveClaim, type OperatingPoint, type Model, type Unit } from "./resolve";

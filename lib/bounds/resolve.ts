@@ -4,8 +4,9 @@ import { bscCapacity, bscDispersion, becCapacity, becDispersion } from "./channe
 import { biawgnCapDisp } from "./biawgn";
 import { ebn0ToEsn0, esn0ForNcg, esn0ToEbn0, overheadToRate, rawBerForNcg } from "./conversions";
 import { sensitivityToEbn0Db } from "./energy";
+import type { ChannelModel } from "./vocabulary";
 
-export type Model = "bsc" | "bec" | "biawgn";
+export type Model = ChannelModel;
 export type Unit = "p" | "e" | "ebn0Db" | "esn0Db";
 
 export interface OperatingPoint {

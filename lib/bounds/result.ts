@@ -1,5 +1,6 @@
 // The result contract shared by the CLI, POST /api/v1/evaluate and the stored verdicts.
 import { z } from "zod";
+import { CHANNEL_MODELS, VERDICTS } from "./vocabulary";
 
 const finding = z.object({
   code: z.string(),
@@ -10,7 +11,7 @@ const finding = z.object({
 const bound = z.object({ log10Bler: z.number(), bler: z.number() }).nullable();
 
 export const claimResultSchema = z.object({
-  verdict: z.enum(["impossible", "needs-evidence", "plausible"]),
+  verdict: z.enum(VERDICTS),
   findings: z.array(finding),
   /** k/n; null for a payload-only claim (no block length, no bandwidth limit). */
   rate: z.number().nullable(),
@@ -46,7 +47,7 @@ export const claimResultSchema = z.object({
     }),
   }),
   channel: z.object({
-    model: z.enum(["bsc", "bec", "biawgn"]),
+    model: z.enum(CHANNEL_MODELS),
     p: z.number().optional(),
     e: z.number().optional(),
     esn0Db: z.number().optional(),

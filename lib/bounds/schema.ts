@@ -1,6 +1,7 @@
 // The claim contract shared by the CLI and the HTTP API: zod schemas, inferred types, messages.
 import { z } from "zod";
 import { THERMAL_DBM_PER_HZ } from "./thermal";
+import { channelModelList } from "./vocabulary";
 
 export const MAX_N = 10_000_000;
 
@@ -45,10 +46,10 @@ const channelSchema = z.discriminatedUnion(
   {
     error: (iss) =>
       iss.input === undefined
-        ? 'is required (an object with model "bsc", "bec" or "biawgn")'
+        ? `is required (an object with model ${channelModelList()})`
         : typeof iss.input === "object" && iss.input !== null
-          ? 'must be one of "bsc", "bec", "biawgn"'
-          : 'must be an object with model "bsc", "bec" or "biawgn"',
+          ? `must be one of ${channelModelList(", ")}`
+          : `must be an object with model ${channelModelList()}`,
   },
 );
 

@@ -1,7 +1,8 @@
 // Maps an offer's code and one claim, at one operating point of its tender, to the engine's claim input.
 import type { ClaimInput, ClaimResult } from "@/lib/bounds";
 
-export type ChannelModel = "bsc" | "bec" | "biawgn";
+import type { ChannelModel } from "@/lib/bounds/vocabulary";
+export type { ChannelModel };
 export type ClaimMetric = "bler" | "ber" | "ncg";
 
 /** The code as an offer states it: n and k, or a rate, or an overhead (n may accompany either). */

@@ -5,7 +5,8 @@ import type { ClaimInput, ClaimResult } from "@/lib/bounds";
 import { THERMAL_DBM_PER_HZ } from "@/lib/bounds/thermal";
 import { parseDecimal } from "@/lib/numbers";
 
-export type VerdictName = "impossible" | "needs-evidence" | "plausible";
+import type { Verdict as VerdictName } from "@/lib/bounds/vocabulary";
+export type { VerdictName };
 export type CurveUnit = "ebn0Db" | "dBm";
 export type CurveMetric = "bler" | "ber" | "per";
 export const CURVE_UNITS: readonly CurveUnit[] = ["ebn0Db", "dBm"];

@@ -73,7 +73,8 @@ export function currentVersion<T extends { version: number; status: string }>(ve
   return versions.filter((v) => v.status !== "superseded").sort((a, b) => b.version - a.version)[0] ?? null;
 }
 
-export type VerdictName = "impossible" | "needs-evidence" | "plausible";
+import type { Verdict as VerdictName } from "@/lib/bounds/vocabulary";
+export type { VerdictName };
 
 /** Counts per verdict, for the ledger and the Desk; never prices. */
 export function verdictSummary(verdicts: readonly VerdictName[]): Record<VerdictName, number> {

@@ -1,6 +1,7 @@
 import { rgb, type PDFPage, type RGB } from "pdf-lib";
 
-export type Verdict = "impossible" | "needs-evidence" | "plausible";
+import type { Verdict } from "@/lib/bounds/vocabulary";
+export type { Verdict };
 
 // Shapes carry the meaning in grey-scale print; the colours only repeat it on screen.
 const COLOURS: Record<Verdict, RGB> = {

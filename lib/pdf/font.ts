@@ -3,6 +3,9 @@ import path from "node:path";
 
 // The app's own font, shipped with it as an npm package (static weights: WOFF 1, which
 // fontkit subsets into a TrueType font that PDF readers accept; WOFF 2 does not subset).
+// The web's @fontsource-variable/inter cannot stand in: it ships only WOFF 2, on which
+// @pdf-lib/fontkit's subsetting fails ("Index out of range"), and one variable file, whose subset
+// would keep only the default outlines (fontkit writes no instance): the memo would lose its 600 weight.
 const FONT_DIR = ["node_modules", "@fontsource", "inter", "files"];
 export const FONT_FILES = {
   regular: "inter-latin-400-normal.woff",

@@ -4,6 +4,7 @@ import type { offers, PriceBreak } from "@/db/schema/offers";
 import type { ScoringWeights } from "@/db/schema/tenders";
 import type { MarkKind } from "@/db/schema/evaluation";
 import type { EvidenceSummary } from "@/lib/review/evidence";
+import type { ChannelModel, Verdict } from "@/lib/bounds/vocabulary";
 
 export type { PriceBreak, ScoringWeights };
 export type Criterion = keyof ScoringWeights;
@@ -18,7 +19,7 @@ export const CRITERION_LABELS: Record<Criterion, string> = {
 
 export interface ScoringTender {
   reference: string;
-  channelModel: "bsc" | "bec" | "biawgn";
+  channelModel: ChannelModel;
   operatingPoints: { label: string; value: number; sensitivity?: { bitRate: number; payloadBits: number; targetPer: number } | null }[];
   targetMetric: "bler" | "ber";
   targetValue: number;
@@ -36,7 +37,7 @@ export interface ScoringClaim {
   metric: "bler" | "ber" | "ncg";
   value: number;
   ncgOutputBer: number | null;
-  verdict: "impossible" | "needs-evidence" | "plausible";
+  verdict: Verdict;
   /** Information bits per frame, when the vendor gave n and k. */
   k: number | null;
   /** (normal-approximation rate - claimed rate) / normal-approximation rate; null without n. */

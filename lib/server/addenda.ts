@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { addenda, addendumAcknowledgements, organisations, threads } from "@/db/schema";
 import { numbered, publishProblem, unacknowledgedProblem } from "@/lib/tenders/addenda";
 import type { AddendumInput } from "@/lib/validation/notices";

@@ -1,28 +1,13 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
-import { getDb, type Queryable } from "@/db/client";
+import { eq } from "drizzle-orm";
+import { getDb } from "./database";
 import { approvalBands } from "@/db/schema";
-import { bandFor, bandGaps, bandProblems, describeBand, type BandRule } from "@/lib/approvals/bands";
+import { bandGaps, bandProblems, describeBand } from "@/lib/approvals/bands";
 import type { ApprovalBandInput } from "@/lib/validation/approvals";
 import { InputError, NotFoundError } from "./errors";
-import { bandWarnings } from "./approval-coverage";
+import { allBands, bandWarnings, type ApprovalBandRow } from "./approval-coverage";
 import { appendLedger } from "./ledger";
 import { authorize, ledgerActor, type Viewer } from "./session";
-
-export type ApprovalBandRow = typeof approvalBands.$inferSelect;
-
-async function allBands(db: Queryable): Promise<ApprovalBandRow[]> {
-  return db.select().from(approvalBands).orderBy(asc(approvalBands.currency), asc(approvalBands.minValue));
-}
-
-/**
- * The band rule in force for an award value, or null when no band covers it. Call it when a
- * recommendation enters approval and store the result on it: later band changes never apply.
- */
-export async function bandRuleFor(db: Queryable, value: number, currency: string): Promise<BandRule | null> {
-  const band = bandFor(await allBands(db), value, currency);
-  return band && { approvalsNeeded: band.approvalsNeeded, minApproverLimit: band.minApproverLimit };
-}
 
 /** The bands, with the values each currency leaves uncovered and the bands today's approvers cannot meet. */
 export async function listApprovalBands(viewer: Viewer) {

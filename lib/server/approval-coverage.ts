@@ -1,19 +1,41 @@
 import "server-only";
-import { and, desc, eq } from "drizzle-orm";
+import { and, asc, desc, eq } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
-import { approvals, declarations, recommendations, tenders, userRoles, users, type RoleName } from "@/db/schema";
+import { approvalBands, approvals, declarations, recommendations, tenders, userRoles, users, type RoleName } from "@/db/schema";
 import { bandWarning, coverage, pendingShortfall, type ApproverCandidate, type Coverage } from "@/lib/approvals/coverage";
 import { governingValue } from "@/lib/approvals/award-value";
-import type { Band, BandRule } from "@/lib/approvals/bands";
+import { bandFor, type Band, type BandRule } from "@/lib/approvals/bands";
 import { formatMoney } from "@/lib/format";
-import { bandRuleFor } from "./approval-bands";
 import { ConflictError } from "./errors";
 import type { TenderRow } from "./tenders";
 
-type RecommendationRow = typeof recommendations.$inferSelect;
+export type ApprovalBandRow = typeof approvalBands.$inferSelect;
+
+export async function allBands(db: Queryable): Promise<ApprovalBandRow[]> {
+  return db.select().from(approvalBands).orderBy(asc(approvalBands.currency), asc(approvalBands.minValue));
+}
+
+/**
+ * The band rule in force for an award value, or null when no band covers it. Call it when a
+ * recommendation enters approval and store the result on it: later band changes never apply.
+ */
+export async function bandRuleFor(db: Queryable, value: number, currency: string): Promise<BandRule | null> {
+  const band = bandFor(await allBands(db), value, currency);
+  return band && { approvalsNeeded: band.approvalsNeeded, minApproverLimit: band.minApproverLimit };
+}
+
+export type RecommendationRow = typeof recommendations.$inferSelect;
 export type Candidate = ApproverCandidate & { email: string };
 /** What coverage reads of a recommendation; a new one has no id and no approvals yet. */
 export type CoveredRecommendation = Pick<RecommendationRow, "preparedBy" | "value" | "computedValue" | "currency"> & { id: string | null };
+
+/** The subject an approval decision is authorised on. */
+export const approvalRecord = (tender: TenderRow, rec: RecommendationRow) => ({
+  tenderId: tender.id,
+  recommendationPreparedBy: rec.preparedBy,
+  value: governingValue(rec),
+  tenderCreatedBy: tender.createdBy,
+});
 
 /** The rule stored on the recommendation, or null while it has none yet. */
 export const storedRule = (rec: RecommendationRow): BandRule | null =>

@@ -5,10 +5,8 @@ import type { BandRule } from "@/lib/approvals/bands";
 import { declareToReadNotice, type AwardDisclosure, type NoticeText } from "@/lib/approvals/notices";
 import type { Standing } from "@/lib/approvals/score-sheet";
 import { standstillEnd } from "@/lib/tenders/disclosure";
-import { eligibleApprovers } from "./approval-coverage";
-import { approvalRecord } from "./approvals";
+import { approvalRecord, eligibleApprovers, type RecommendationRow } from "./approval-coverage";
 import { readersWithRole, type Notice } from "./notify";
-import type { RecommendationRow } from "./recommendations";
 import type { TenderRow } from "./tenders";
 
 // The notices of the approval and award that depend on who may read what.

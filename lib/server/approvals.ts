@@ -2,7 +2,7 @@ import "server-only";
 import { withSafetyCaution } from "@/lib/tenders/safety";
 import { and, eq, inArray } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { approvals, offers, organisations, recommendations, tenders, users } from "@/db/schema";
 import type { BandRule } from "@/lib/approvals/bands";
 import * as words from "@/lib/approvals/notices";
@@ -11,7 +11,7 @@ import { approvalRefusal, decisionProblem, isFullyApproved } from "@/lib/approva
 import { rankedCount, standingsOf } from "@/lib/approvals/score-sheet";
 import { formatMoney } from "@/lib/format";
 import type { DecisionInput } from "@/lib/validation/approvals";
-import { ruleFor, storedRule } from "./approval-coverage";
+import { approvalRecord, ruleFor, storedRule } from "./approval-coverage";
 import { ConflictError, ForbiddenError } from "./errors";
 import { appendLedger } from "./ledger";
 import { approvalsGiven, issueMemo, type MemoRow } from "./memos";
@@ -21,13 +21,6 @@ import { checkpointNow, withLedgerHead } from "./ledger-anchors";
 import { getCurrentRecommendation, type RecommendationRow } from "./recommendations";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, type TenderRow } from "./tenders";
-
-export const approvalRecord = (tender: TenderRow, rec: RecommendationRow) => ({
-  tenderId: tender.id,
-  recommendationPreparedBy: rec.preparedBy,
-  value: governingValue(rec),
-  tenderCreatedBy: tender.createdBy,
-});
 
 /** Why this viewer may not decide on the recommendation, in words, or null. */
 export function refusalFor(viewer: Viewer, tender: TenderRow, rec: RecommendationRow, rule: BandRule): string | null {

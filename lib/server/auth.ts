@@ -3,7 +3,7 @@ import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { APIError } from "better-auth/api";
 import { nextCookies } from "better-auth/next-js";
-import { getDb, type Db } from "@/db/client";
+import { getDb, type Db } from "./database";
 import { env } from "@/lib/env";
 import { keptSecret } from "./secrets";
 import { accounts, sessions, users, verifications } from "@/db/schema";

@@ -1,14 +1,15 @@
 import "server-only";
 import { asc, desc, eq } from "drizzle-orm";
 import { asSubject, recordTenderState } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { approvals, memos, offers, organisations, recommendations, users } from "@/db/schema";
 import { deviationWords, governingValue } from "@/lib/approvals/award-value";
 import { pendingShortfall } from "@/lib/approvals/coverage";
 import { decisionProblem, isFullyApproved } from "@/lib/approvals/routing";
 import { standingsOf } from "@/lib/approvals/score-sheet";
 import { recommendationCoverage, ruleFor } from "./approval-coverage";
-import { approvalRecord, refusalFor } from "./approvals";
+import { refusalFor } from "./approvals";
+import { approvalRecord } from "./approval-coverage";
 import { AppError } from "./errors";
 import { approvalsGiven, currentOffersWithClaims } from "./memos";
 import { getCurrentRecommendation } from "./recommendations";

@@ -1,6 +1,6 @@
 import "server-only";
 import path from "node:path";
-import { dataDir, embeddedDatabase } from "@/db/client";
+import { dataDir, embeddedDatabase } from "./database";
 import { env } from "@/lib/env";
 import { backupName, writeBackup, type BackupManifest } from "@/lib/runtime/backup";
 import { ConflictError } from "./errors";

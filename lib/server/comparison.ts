@@ -2,7 +2,7 @@ import "server-only";
 import { sensitivityScoring } from "@/lib/offers/radio";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
 import { asSubject, recordTenderState } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { claims, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
 import type { MarkKind } from "@/db/schema/evaluation";
 import { summariseRuns } from "@/lib/review/evidence";

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { declarations, organisations } from "@/db/schema";
 import type { DeclarationInput } from "@/lib/validation/review";
 import { ConflictError, InputError } from "./errors";

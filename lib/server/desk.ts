@@ -1,5 +1,5 @@
 import "server-only";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { ne } from "drizzle-orm";
 import { tenders } from "@/db/schema";
 import { stuckRecommendations } from "./approval-coverage";

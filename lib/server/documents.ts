@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject, recordTenderState } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { documents, offers, tenders } from "@/db/schema";
 import { documentRecord, offerRecord, submissionRefusal } from "@/lib/offers";
 import { checkPdfUpload, deleteObject, getObject, isObjectNotFound, MAX_UPLOAD_BYTES, pdfFileName, putObject, sha256Hex } from "@/lib/storage";

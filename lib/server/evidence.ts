@@ -1,63 +1,21 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb } from "./database";
 import { claims, evidenceRuns, offers } from "@/db/schema";
-import type { EvidenceResult } from "@/lib/bounds";
-import { assessRun, type EvidenceUnit } from "@/lib/review/evidence";
+import { assessRun } from "@/lib/review/evidence";
 import type { CsvClaim, CsvReport, ValidRow } from "@/lib/review/csv";
 import type { EvidenceRunInput } from "@/lib/validation/review";
 import { inEngine } from "./engine";
 import { ConflictError, InputError } from "./errors";
 import { appendLedger } from "./ledger";
+import { insertEvidenceRun } from "./evidence-runs";
 import { claimJoin, loadClaim, type LoadedClaim } from "./review";
 import { authorize, ledgerActor, type Viewer } from "./session";
 
 type ClaimRow = typeof claims.$inferSelect;
 const runSubject = (c: Pick<ClaimRow, "id" | "tenderId" | "vendorOrgId">) =>
   asSubject("EvidenceRun", { claimId: c.id, tenderId: c.tenderId, vendorOrgId: c.vendorOrgId });
-
-export interface NewRun {
-  channelValue: number;
-  unit: EvidenceUnit;
-  trials: number;
-  errors: number;
-  confidence: number;
-  note?: string;
-}
-
-/** Stores one assessed run; the caller's transaction also writes the ledger entry. */
-export async function insertEvidenceRun(
-  tx: Queryable,
-  claim: Pick<ClaimRow, "id" | "tenderId" | "vendorOrgId">,
-  run: NewRun,
-  assessed: { result: EvidenceResult; finding: string },
-  by: { userId: string; source: "manual" | "csv" },
-) {
-  const { result, finding } = assessed;
-  const [row] = await tx
-    .insert(evidenceRuns)
-    .values({
-      claimId: claim.id,
-      tenderId: claim.tenderId,
-      vendorOrgId: claim.vendorOrgId,
-      channelValue: run.channelValue,
-      unit: run.unit,
-      trials: run.trials,
-      errors: run.errors,
-      confidence: run.confidence,
-      lower: result.lower,
-      upper: result.upper,
-      status: result.status,
-      finding,
-      errorFreeTrialsNeeded: result.status === "contradicted" ? null : result.errorFreeTrialsNeeded,
-      source: by.source,
-      note: run.note ?? "",
-      recordedBy: by.userId,
-    })
-    .returning();
-  return { ...row, additionalTrialsNeeded: result.additionalTrialsNeeded };
-}
 
 /** Lab runs are recorded while the tender is in technical evaluation, by an engineer declared on it. */
 async function claimForRecording(viewer: Viewer, claimId: string): Promise<LoadedClaim> {

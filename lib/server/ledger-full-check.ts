@@ -1,6 +1,6 @@
 import "server-only";
 import { and, count, desc, eq, lte } from "drizzle-orm";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { ledgerEntries, ledgerFullChecks, ledgerVerification, users } from "@/db/schema";
 import { ANCHOR_LIMIT } from "@/lib/ledger/anchors";
 import { GENESIS_HASH } from "@/lib/ledger/chain";

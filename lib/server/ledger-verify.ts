@@ -1,7 +1,7 @@
 import "server-only";
 import { and, count, eq, lte } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { ledgerEntries } from "@/db/schema";
 import { verifyNew, type ChainCheck } from "./ledger-check";
 import { authorize, type Viewer } from "./session";

@@ -1,7 +1,7 @@
 import "server-only";
 import { asc, eq } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { marks } from "@/db/schema";
 import type { MarkInput } from "@/lib/validation/review";
 import { markProblem } from "@/lib/review/marks";

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject, defineAbilityFor } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { approvals, claims, declarations, evidenceRuns, marks, memoPreviews, memos, offers, organisations, technicalSignoffs, tenders, users } from "@/db/schema";
 import { CAUTIONS } from "@/lib/cautions";
 import { memoDocument, type MemoFacts } from "@/lib/approvals/memo-content";

@@ -2,10 +2,10 @@ import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import type { Queryable } from "@/db/client";
 import { userRoles, users } from "@/db/schema";
-import { defineAbilityFor, type Actor, type AppAbility } from "@/policies";
+import { defineAbilityFor, type Actor, type AppAbility, type Role } from "@/policies";
 import { queueMail } from "@/lib/mail";
 import { mailText } from "@/lib/mail/words";
-import { appUrl } from "./auth";
+import { env } from "@/lib/env";
 import { actorOf, loadUser } from "./people-store";
 import { ensureLocalServices } from "./services";
 
@@ -25,7 +25,7 @@ export function notify(notices: Notice | Notice[]): void {
   ensureLocalServices()
     .catch((error) => console.warn("local mail server did not start", error))
     .finally(() => {
-      for (const notice of list) queueMail({ ...notice, text: mailText(notice.text, appUrl()) });
+      for (const notice of list) queueMail({ ...notice, text: mailText(notice.text, env().appUrl) });
     });
 }
 
@@ -59,7 +59,7 @@ export async function readersWithRole(db: Queryable, role: InternalRole, may: (a
     .sort();
 }
 
-type InternalRole = "buyer" | "engineer" | "approver" | "admin";
+type InternalRole = Exclude<Role, "vendor">;
 
 /** E-mail addresses of the active internal users holding a role. */
 export async function addressesWithRole(db: Queryable, role: InternalRole): Promise<string[]> {

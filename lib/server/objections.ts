@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { objections, organisations, tenders } from "@/db/schema";
 import { closingWords } from "@/lib/tenders/notices";
 import { awardIsFinal, objectionProblem, objectionWaits, standstillEnd } from "@/lib/tenders/disclosure";

@@ -1,4 +1,5 @@
 import "server-only";
+import { cache } from "react";
 import { headers } from "next/headers";
 import { forbidden, notFound, redirect } from "next/navigation";
 import type { ZodType } from "zod";
@@ -6,18 +7,22 @@ import { PAGE_PATH_HEADER, signInPath } from "@/lib/return-path";
 import { describeZodError } from "@/lib/validation/messages";
 import { ForbiddenError, NotFoundError, UnauthorizedError } from "./errors";
 import { getViewer, type Viewer } from "./session";
+import { getTender, type TenderWithInvites } from "./tenders";
 
 /** Sign-in, asked to come back to the page that was asked for (the proxy names it). */
 async function toSignIn(): Promise<never> {
   redirect(signInPath((await headers()).get(PAGE_PATH_HEADER)));
 }
 
-/** For pages: the signed-in viewer, or a redirect to sign-in and back. */
-export async function pageViewer(): Promise<Viewer> {
+/**
+ * For pages: the signed-in viewer, or a redirect to sign-in and back. Looked up once per request
+ * (React's cache), however many layouts and pages of the request ask.
+ */
+export const pageViewer = cache(async (): Promise<Viewer> => {
   const viewer = await getViewer();
   if (!viewer) return toSignIn();
   return viewer;
-}
+});
 
 /** For pages: typed failures become the forbidden, not-found or sign-in page. */
 export async function orPage<T>(work: Promise<T>): Promise<T> {
@@ -41,3 +46,9 @@ export function pageQuery<T>(searchParams: Record<string, string | string[] | un
   if (parsed.success) return { query: parsed.data, problem: null };
   return { query: schema.parse({}), problem: `${describeZodError(parsed.error)} Showing the first page without filters instead.` };
 }
+
+/**
+ * For tender pages: the tender the viewer may read, or the forbidden or not-found page. Read once
+ * per request, so the tender layout and its tab share one lookup.
+ */
+export const pageTender = cache(async (id: string): Promise<TenderWithInvites> => orPage(getTender(await pageViewer(), id)));

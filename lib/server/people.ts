@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, count, eq, ilike, or, sql } from "drizzle-orm";
-import { asSubject } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { asSubject, type OrganisationKind } from "@/policies";
+import { getDb, type Queryable } from "./database";
 import { organisations, sessions, userRoles, users, type RoleName } from "@/db/schema";
 import type { CreateUserInput, PeopleFilters, UpdateUserInput } from "@/lib/validation/people";
 import { pageInfo, pageWindow, type PagingInput } from "@/lib/validation/paging";
@@ -68,7 +68,7 @@ export async function getOrganisation(viewer: Viewer, id: string) {
   return { ...org, members };
 }
 
-function checkRolesFit(kind: "buyer" | "vendor", roles: RoleName[]) {
+function checkRolesFit(kind: OrganisationKind, roles: RoleName[]) {
   if (kind === "vendor" && (roles.length !== 1 || roles[0] !== "vendor")) {
     throw new InputError("A member of a vendor organisation holds the vendor role only.", { roles: ["Vendor organisations: vendor role only."] });
   }

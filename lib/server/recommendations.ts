@@ -2,14 +2,13 @@ import "server-only";
 import { withSafetyCaution } from "@/lib/tenders/safety";
 import { and, desc, eq, inArray } from "drizzle-orm";
 import { asSubject, type TenderState } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { approvals, offers, organisations, recommendations, tenders, users } from "@/db/schema";
 import { buildScoreSheet, recommendationProblem, totalPriceAt, type Envelope } from "@/lib/scoring";
 import { awardValueProblems, governingValue, keptReasons } from "@/lib/approvals/award-value";
 import { submissionShortfall } from "@/lib/approvals/coverage";
 import { formatMoney } from "@/lib/format";
-import { bandRuleFor } from "./approval-bands";
-import { recommendationCoverage } from "./approval-coverage";
+import { bandRuleFor, recommendationCoverage, type RecommendationRow } from "./approval-coverage";
 import { awaitingApprovalNotice, withdrawnNotice } from "@/lib/approvals/notices";
 import type { RecommendationInput, WithdrawalInput } from "@/lib/validation/comparison";
 import { ConflictError, ForbiddenError, InputError } from "./errors";
@@ -21,7 +20,7 @@ import { loadScoringInput } from "./comparison";
 import { authorize, ledgerActor, type Viewer } from "./session";
 import { getTender, tenderSubject, type TenderWithInvites } from "./tenders";
 
-export type RecommendationRow = typeof recommendations.$inferSelect;
+export type { RecommendationRow };
 
 /** The latest recommendation of a tender (pending, returned, approved...), or null. No access check: callers authorise. */
 export async function getCurrentRecommendation(db: Queryable, tenderId: string): Promise<RecommendationRow | null> {

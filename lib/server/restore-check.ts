@@ -1,5 +1,5 @@
 import "server-only";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { verifyChain } from "@/lib/ledger/chain";
 import type { BackupManifest } from "@/lib/runtime/backup";
 import { listLedger } from "./ledger";

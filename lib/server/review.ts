@@ -1,9 +1,9 @@
 import "server-only";
 import { and, asc, count, eq, ilike, inArray, or, sql } from "drizzle-orm";
 import { asSubject, pickPermitted, recordTenderState, tenderAccess, type ClaimRecord, type RecordTenderState } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { claims, documents, evidenceRuns, marks, offers, organisations, tenders } from "@/db/schema";
-import type { ChannelModel } from "@/db/schema/tenders";
+import type { ChannelModel, Verdict } from "@/lib/bounds/vocabulary";
 import { latestMarks } from "@/lib/review/marks";
 import { summariseRuns } from "@/lib/review/evidence";
 import type { EvidenceSummary } from "@/lib/review/labels";
@@ -84,7 +84,7 @@ export interface QueueRow {
   worstMarginDb: number | null;
   tenderId: string;
   tenderReference: string;
-  channelModel: "bsc" | "bec" | "biawgn";
+  channelModel: ChannelModel;
   vendorOrgId: string;
   vendorName: string;
   moduleName: string;
@@ -92,7 +92,7 @@ export interface QueueRow {
   channelValue: number;
   metric: string;
   value: number;
-  verdict: "impossible" | "needs-evidence" | "plausible";
+  verdict: Verdict;
   mark: string | null;
   markedAt: string | null;
   evidence: EvidenceSummary | null;

@@ -1,7 +1,7 @@
 import "server-only";
 import { headers as nextHeaders } from "next/headers";
 import { defineAbilityFor, type Actor, type AppAbility } from "@/policies";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { getAuth } from "./auth";
 import { actorOf, loadUser } from "./people-store";
 import { ForbiddenError, UnauthorizedError } from "./errors";

@@ -3,7 +3,7 @@ import { createHmac, randomBytes, timingSafeEqual } from "node:crypto";
 import { and, count, eq, gt, isNull, lt } from "drizzle-orm";
 import type { BetterAuthPlugin } from "better-auth";
 import { APIError, createAuthMiddleware, isAPIError } from "better-auth/api";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { signInFailures } from "@/db/schema";
 import { clientAddress } from "./client-address";
 

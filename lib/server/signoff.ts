@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { claims, evidenceRuns, marks, offers, organisations, technicalSignoffs, tenders, threadMessages, threads, users } from "@/db/schema";
 import { summariseRuns } from "@/lib/review/evidence";
 import { latestMarks } from "@/lib/review/marks";

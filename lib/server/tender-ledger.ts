@@ -1,7 +1,7 @@
 import "server-only";
 import { and, count, desc, eq, inArray } from "drizzle-orm";
 import { asSubject, recordTenderState } from "@/policies";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { claims, documents, ledgerEntries, offers, threads } from "@/db/schema";
 import { ledgerSentence, readableDetails, type MayRead } from "@/lib/ledger/reading";
 import { ledgerDetails } from "@/lib/tenders/ledger-summary";

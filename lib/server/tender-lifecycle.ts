@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, inArray, like, sql } from "drizzle-orm";
 import { asSubject, cancelKeepsSeal } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { ADVISORY_LOCKS } from "@/db/locks";
 import { organisations, tenderInvitations, tenders } from "@/db/schema";
 import { changedFields, draftInput, draftValues } from "@/lib/tenders/draft";

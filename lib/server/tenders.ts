@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, count, desc, eq, ilike, inArray, lte, or, sql, type SQL } from "drizzle-orm";
 import { asSubject } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { ledgerEntries, offers, organisations, tenderInvitations, tenders } from "@/db/schema";
 import { appendLedger } from "./ledger";
 import { authorize, type Viewer } from "./session";

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { asSubject, recordTenderState, type RecordTenderState } from "@/policies";
-import { getDb, type Queryable } from "@/db/client";
+import { getDb, type Queryable } from "./database";
 import { claims, tenders, threadMessages, threads } from "@/db/schema";
 import { publishProblem } from "@/lib/tenders/addenda";
 import type { CloseThreadInput, MessageInput, ThreadInput } from "@/lib/validation/review";

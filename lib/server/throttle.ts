@@ -1,6 +1,6 @@
 import "server-only";
 import { lt, sql } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb } from "./database";
 import { env } from "@/lib/env";
 import { rateLimits } from "@/db/schema";
 

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { parseCount, parseDecimal } from "@/lib/numbers";
+import { CHANNEL_MODELS } from "@/lib/bounds/vocabulary";
 
 export const EXPLORER_DEFAULTS = {
   bsc: { x: 5e-3, n: 2048, k: 1640 },
@@ -46,7 +47,7 @@ export function parseCurveText(text: string): { points: { ebn0Db: number; value:
 /** The Bound explorer's view, as it lives in the URL's search parameters. */
 export const explorerSchema = z
   .object({
-    model: z.enum(["bsc", "bec", "biawgn"], { error: "the channel must be hard decision, erasures or soft decision" }).default("bsc"),
+    model: z.enum(CHANNEL_MODELS, { error: "the channel must be hard decision, erasures or soft decision" }).default("bsc"),
     x: numberIn("the channel value"),
     n: countIn("the block length n"),
     k: countIn("the information bits k"),

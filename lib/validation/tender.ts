@@ -3,8 +3,9 @@ import { isValidZone, LOCAL_DATE_TIME, localTimeExists } from "@/lib/tenders/clo
 import { TENDER_STATES } from "@/policies/vocabulary";
 import { optionalChoice, optionalFilter, pagingSchema } from "./paging";
 
-export const CHANNEL_MODELS = ["bsc", "bec", "biawgn"] as const;
-export type ChannelModelName = (typeof CHANNEL_MODELS)[number];
+import { CHANNEL_MODELS, type ChannelModel as ChannelModelName } from "@/lib/bounds/vocabulary";
+
+export { CHANNEL_MODELS, type ChannelModelName };
 
 /** The channel condition each model accepts at an operating point, with its words for the form. */
 export const CONDITION_RANGES: Record<ChannelModelName, { min: number; max: number; minOpen: boolean; maxOpen: boolean; words: string }> = {

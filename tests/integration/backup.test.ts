@@ -7,7 +7,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as backupPost } from "@/app/api/v1/backups/route";
-import { closeDb, getDb } from "@/db/client";
+import { closeDb, getDb } from "@/lib/server/database";
 import { startLocalServices, type LocalServices } from "@/lib/dev/services";
 import { BackupError, checkBackup } from "@/lib/runtime/backup";
 import { releaseDataFolder } from "@/lib/runtime/data-lock";

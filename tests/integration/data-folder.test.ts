@@ -3,7 +3,7 @@
 import { existsSync, statSync } from "node:fs";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { closeDb, dataDir } from "@/db/client";
+import { closeDb, dataDir } from "@/lib/server/database";
 import { notify } from "@/lib/server/notify";
 import { flushMail, listCapturedMail } from "@/lib/mail";
 

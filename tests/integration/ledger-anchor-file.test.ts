@@ -3,7 +3,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { desc } from "drizzle-orm";
-import { closeDb, getDb, type Db } from "@/db/client";
+import { closeDb, getDb, type Db } from "@/lib/server/database";
 import { ledgerEntries } from "@/db/schema";
 import { resetEnvForTests } from "@/lib/env";
 import { CHECKPOINT_FILE } from "@/lib/ledger/anchors";

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { closeDb, getDb } from "@/db/client";
+import { closeDb, getDb } from "@/lib/server/database";
 import { seedDemoData, DEMO_PASSWORD } from "@/db/seed";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 

@@ -12,7 +12,7 @@ export default async function setup() {
   process.env.DB_MEMORY = "1";
   process.env.LEDGER_KEY ??= TEST_LEDGER_KEY;
   delete process.env.TEST_DB_SNAPSHOT;
-  const { embeddedDatabase, closeDb } = await import("@/db/client");
+  const { embeddedDatabase, closeDb } = await import("@/lib/server/database");
   const pglite = await embeddedDatabase();
   if (!pglite) throw new Error("The test snapshot needs the embedded database.");
   const dump = await pglite.dumpDataDir("none");

@@ -3,6 +3,7 @@ import { Cautions } from "@/app/_components/cautions";
 import { ChannelChart, RateChart } from "@/app/_components/bound-charts";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { formatSci } from "@/lib/format";
+import { CHANNEL_MODELS } from "@/lib/bounds/vocabulary";
 import { boundCharts } from "@/lib/server/engine";
 import { pageViewer, orPage } from "@/lib/server/pages";
 import { authorize } from "@/lib/server/session";
@@ -16,7 +17,7 @@ export const metadata: Metadata = { title: "Bound explorer" };
 
 /** The form keeps what was typed; empty fields show the channel's defaults. */
 function formValues(raw: SearchParams): ExplorerFormValues {
-  const model = (["bsc", "bec", "biawgn"] as const).find((m) => m === paramText(raw.model)) ?? "bsc";
+  const model = CHANNEL_MODELS.find((m) => m === paramText(raw.model)) ?? "bsc";
   const d = EXPLORER_DEFAULTS[model];
   const or = (v: string, fallback: number) => (v === "" ? String(fallback) : v);
   const metric = CURVE_METRICS.find((m) => m === paramText(raw.metric)) ?? "bler";

@@ -6,10 +6,10 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { formOptionalDecimal } from "@/lib/numbers";
 import { createUserSchema, type CreateUserInput } from "@/lib/validation/people";
-import { ROLES as ROLE_NAMES } from "@/policies/vocabulary";
+import { ROLES as ROLE_NAMES, type OrganisationKind } from "@/policies/vocabulary";
 import { createUserAction, type FormResult } from "../actions";
 
-interface Org { id: string; name: string; kind: "buyer" | "vendor" }
+interface Org { id: string; name: string; kind: OrganisationKind }
 
 export function CreateUserForm({ organisations }: { organisations: Org[] }) {
   const [result, setResult] = useState<FormResult>({});

@@ -4,7 +4,7 @@ import { useMemo, useState, useTransition } from "react";
 import type { ColDef } from "ag-grid-community";
 import { DataGrid } from "@/app/_components/data-grid";
 import { formOptionalDecimal } from "@/lib/numbers";
-import { ROLES } from "@/policies/vocabulary";
+import { ROLES, type OrganisationKind } from "@/policies/vocabulary";
 import { updateUserAction, type FormResult } from "../actions";
 
 export interface PersonRow {
@@ -14,7 +14,7 @@ export interface PersonRow {
   active: boolean;
   approvalLimit: number | null;
   organisationName: string;
-  organisationKind: "buyer" | "vendor";
+  organisationKind: OrganisationKind;
   roles: string[];
 }
 

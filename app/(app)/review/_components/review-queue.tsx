@@ -10,6 +10,7 @@ import { DataGrid } from "@/app/_components/data-grid";
 import { Pager, pageHref } from "@/app/_components/pager";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { formatCondition, formatSci } from "@/lib/format";
+import { VERDICT_LABELS, VERDICTS } from "@/lib/bounds/vocabulary";
 import { EVIDENCE_LABELS, MARK_LABELS } from "@/lib/review/labels";
 import type { ClaimQueuePage, QueueRow } from "@/lib/server/review";
 
@@ -91,7 +92,7 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
       <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
         {select("tenderId", "Tender", tenders.map((t) => [t.id, t.reference]))}
         {select("vendor", "Vendor", vendors)}
-        {select("verdict", "Verdict", [["impossible", "Impossible"], ["needs-evidence", "Needs evidence"], ["plausible", "Plausible"]])}
+        {select("verdict", "Verdict", VERDICTS.map((v) => [v, VERDICT_LABELS[v]]))}
         {select("mark", "Mark", [["unmarked", "Not marked"], ...(Object.entries(MARK_LABELS) as [string, string][])])}
       </div>
       <p className="text-xs text-ink-soft" role="status">

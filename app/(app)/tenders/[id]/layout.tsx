@@ -1,7 +1,6 @@
 import { DateTime } from "@/app/_components/date-time";
 import { StateTag } from "@/app/_components/state-tag";
-import { orPage, pageViewer } from "@/lib/server/pages";
-import { getTender } from "@/lib/server/tenders";
+import { pageViewer, pageTender } from "@/lib/server/pages";
 import { tenderTabs } from "./_components/tabs";
 import { TenderTabs } from "./_components/tender-tabs";
 
@@ -9,7 +8,7 @@ import { TenderTabs } from "./_components/tender-tabs";
 export default async function TenderLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
   const { id } = await params;
   const viewer = await pageViewer();
-  const tender = await orPage(getTender(viewer, id));
+  const tender = await pageTender(id);
   return (
     <div className="space-y-4">
       <header className="space-y-1">

@@ -3,10 +3,9 @@ import { forbidden } from "next/navigation";
 import { asSubject } from "@/policies";
 import { Cautions } from "@/app/_components/cautions";
 import { SensitivityCaution } from "@/app/_components/sensitivity-summary";
-import { orPage, pageViewer } from "@/lib/server/pages";
+import { orPage, pageViewer, pageTender } from "@/lib/server/pages";
 import { getComparison } from "@/lib/server/comparison";
 import { listRecommendations } from "@/lib/server/recommendations";
-import { getTender } from "@/lib/server/tenders";
 import { ComparisonView } from "./_components/comparison-view";
 
 export const metadata: Metadata = { title: "Comparison" };
@@ -15,7 +14,7 @@ export const metadata: Metadata = { title: "Comparison" };
 export default async function ComparisonPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const viewer = await pageViewer();
-  const tender = await orPage(getTender(viewer, id));
+  const tender = await pageTender(id);
   if (!viewer.ability.can("read", asSubject("Score", { tenderId: id }))) forbidden();
   const [data, recommendations] = await Promise.all([
     orPage(getComparison(viewer, tender.id)),

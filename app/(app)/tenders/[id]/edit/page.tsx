@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { listOrganisations } from "@/lib/server/people";
-import { orPage, pageViewer } from "@/lib/server/pages";
+import { orPage, pageViewer, pageTender } from "@/lib/server/pages";
 import { authorize } from "@/lib/server/session";
-import { getTender, tenderSubject } from "@/lib/server/tenders";
+import { tenderSubject } from "@/lib/server/tenders";
 import { zoneChoices } from "@/lib/tenders/closing";
 import { draftInput } from "@/lib/tenders/draft";
 import { editProblem } from "@/lib/tenders/states";
@@ -14,7 +14,7 @@ export const metadata: Metadata = { title: "Edit tender" };
 export default async function EditTenderPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const viewer = await pageViewer();
-  const tender = await orPage(getTender(viewer, id));
+  const tender = await pageTender(id);
   await orPage((async () => authorize(viewer, "update", "Tender", "Only the buying team edits tenders."))());
   const locked = editProblem(tender.state);
   if (locked) {

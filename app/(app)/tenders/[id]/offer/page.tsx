@@ -4,8 +4,8 @@ import { Cautions } from "@/app/_components/cautions";
 import { DateTime } from "@/app/_components/date-time";
 import { submissionRefusal } from "@/lib/offers";
 import { getOffer, getOwnOffer, type OfferView } from "@/lib/server/offers";
-import { orPage, pageViewer } from "@/lib/server/pages";
-import { getTender, type TenderWithInvites } from "@/lib/server/tenders";
+import { orPage, pageViewer, pageTender } from "@/lib/server/pages";
+import type { TenderWithInvites } from "@/lib/server/tenders";
 import type { OfferFormValues } from "@/lib/validation/offer";
 import { ClaimVerdicts } from "../offers/_components/claim-verdicts";
 import { CodeSummary, DocumentList } from "../offers/_components/offer-card";
@@ -65,7 +65,7 @@ export default async function OfferFormPage({ params }: { params: Promise<{ id: 
   const viewer = await pageViewer();
   // Hiding only: the action and the API authorise every submission themselves.
   if (!viewer.ability.can("submit", "Offer")) forbidden();
-  const tender = await orPage(getTender(viewer, id));
+  const tender = await pageTender(id);
   const current = await orPage(getOwnOffer(viewer, id));
   const versions = current ? (await orPage(getOffer(viewer, current.id))).versions : [];
   const refusal = submissionRefusal(tender, new Date());

@@ -5,8 +5,7 @@ import { offersSealed } from "@/policies";
 import { submissionRefusal } from "@/lib/offers";
 import { ForbiddenError } from "@/lib/server/errors";
 import { listOffers } from "@/lib/server/offers";
-import { orPage, pageViewer } from "@/lib/server/pages";
-import { getTender } from "@/lib/server/tenders";
+import { orPage, pageViewer, pageTender } from "@/lib/server/pages";
 import { OfferCard } from "./_components/offer-card";
 
 export const metadata: Metadata = { title: "Offers" };
@@ -14,7 +13,7 @@ export const metadata: Metadata = { title: "Offers" };
 export default async function OffersPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const viewer = await pageViewer();
-  const tender = await orPage(getTender(viewer, id));
+  const tender = await pageTender(id);
   const vendor = viewer.actor.organisationKind === "vendor";
   // An engineer or approver who has not declared yet gets the way forward rather than a bare refusal.
   const offers = await orPage(
