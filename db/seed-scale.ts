@@ -3,10 +3,11 @@
 // ledger is one valid chain. The demo scenario (db/seed.ts) comes first, so its accounts sign in
 // and see everything. The same seed gives the same rows, verdicts and ledger actions every time
 // (ids, hashes and timestamps differ). Everything here is invented: no real company, person or figure.
-import { and, asc, count, eq, inArray } from "drizzle-orm";
+import { and, asc, count, eq, inArray, notLike } from "drizzle-orm";
 import type { PgTable } from "drizzle-orm/pg-core";
 import { defineAbilityFor } from "@/policies";
-import { getDb, type Db, type Queryable } from "./client";
+import type { Db, Queryable } from "./client";
+import { getDb } from "@/lib/server/database";
 import { claims, declarations, marks, offers, organisations, tenderInvitations, tenders, threadMessages, threads, users, type RoleName } from "./schema";
 import type { ChannelModel, OperatingPoint, ScoringWeights, TenderState } from "./schema/tenders";
 import type { MarkKind } from "./schema/evaluation";
@@ -18,10 +19,10 @@ import { totalPriceAt } from "@/lib/scoring/criteria";
 import type { OfferInput } from "@/lib/validation/offer";
 import { decideRecommendation } from "@/lib/server/approvals";
 import { getComparison, openEnvelopes } from "@/lib/server/comparison";
-import { insertEvidenceRun } from "@/lib/server/evidence";
+import { insertEvidenceRun } from "@/lib/server/evidence-runs";
 import { appendLedger, appendLedgerMany, type LedgerInput } from "@/lib/server/ledger";
 import { checkpointNow } from "@/lib/server/ledger-anchors";
-import { writeOfferVersion } from "@/lib/server/offers";
+import { writeOfferVersion } from "@/lib/server/offer-versions";
 import { actorOf, insertUser, loadUser } from "@/lib/server/people-store";
 import { submitRecommendation } from "@/lib/server/recommendations";
 import type { Viewer } from "@/lib/server/session";
@@ -188,8 +189,8 @@ interface TenderPlan {
   wide: boolean;
 }
 
-function planTenders(rng: Rng, cast: Cast, options: ScaleOptions, now: number): TenderPlan[] {
-  const ordinary = Math.max(0, options.tenders - 3 - (options.wide ? 1 : 0));
+function planTenders(rng: Rng, cast: Cast, options: ScaleOptions, now: number, demoTenders: number): TenderPlan[] {
+  const ordinary = Math.max(0, options.tenders - demoTenders - (options.wide ? 1 : 0));
   const states: TenderState[] = [];
   for (const [state, share] of STATE_SHARES) for (let i = 0; i < Math.round(share * ordinary); i++) states.push(state);
   while (states.length < ordinary) states.push("draft");
@@ -570,12 +571,14 @@ export async function seedScale(partial: Partial<ScaleOptions> = {}): Promise<Sc
   const t0 = performance.now();
   const db = await getDb();
   await seedDemoData(db);
-  const [{ n: existing }] = await db.select({ n: count() }).from(tenders);
-  if (Number(existing) > 3) throw new Error(`The database holds ${existing} tenders already: the scale seed fills a fresh demo database. Stop the server, run npm run db:reset, then npm run seed:scale.`);
+  // The demo's tenders are RC-2027-…; the workload's are numbered in 2026: anything else means a used database.
+  const [{ n: existing }] = await db.select({ n: count() }).from(tenders).where(notLike(tenders.reference, "RC-2027-%"));
+  if (Number(existing) > 0) throw new Error(`The database holds ${existing} tenders besides the demo: the scale seed fills a fresh demo database. Stop the server, run npm run db:reset, then npm run seed:scale.`);
   const rng = prng(options.seed);
   const cast = await makeCast(db, rng, options);
   const now = Date.now();
-  const plans = planTenders(rng, cast, options, now);
+  const [{ n: demoTenders }] = await db.select({ n: count() }).from(tenders);
+  const plans = planTenders(rng, cast, options, now, Number(demoTenders));
   const engine = new EngineCache();
   let wideTenderId: string | null = null;
   for (const [i, plan] of plans.entries()) {

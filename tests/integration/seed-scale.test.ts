@@ -4,7 +4,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { asc, count, eq } from "drizzle-orm";
 import type { PgTable } from "drizzle-orm/pg-core";
-import { closeDb, getDb } from "@/db/client";
+import { closeDb, getDb } from "@/lib/server/database";
 import { claims, evidenceRuns, ledgerEntries, marks, offers, organisations, tenders, threads } from "@/db/schema";
 import { seedScale, type ScaleReport } from "@/db/seed-scale";
 import { verifyLedger } from "@/lib/server/ledger";
@@ -45,7 +45,7 @@ describe("the scale seed", () => {
     const db = await getDb();
     expect(first.tenders).toBe(TINY.tenders);
     expect(await total(tenders)).toBe(TINY.tenders);
-    // The demo's three and the ordinary ones: each state the workload plans, and the wide tender open for comparison.
+    // The demo's tenders and the ordinary ones: each state the workload plans, and the wide tender open for comparison.
     expect(Object.keys(first.byState).sort()).toEqual(expect.arrayContaining(["approval", "awarded", "commercial", "draft", "open", "technical"]));
     expect(first.offers).toBe(await total(offers));
     expect(first.claims).toBe(await total(claims));
