@@ -15,6 +15,17 @@ export interface DeskSection {
   tab: "" | "offer" | "review" | "comparison" | "sign-off" | "notices";
   /** A line under a tender saying what blocks it, by tender id. */
   notes?: Record<string, string>;
+  /** Set when the section holds more than the Desk shows: how many more, and the list that has them all. */
+  more?: { count: number; href: string };
+}
+
+/** The Desk shows the first few of each section; the Tenders list pages through the rest. */
+export const DESK_SECTION_LIMIT = 8;
+
+export function capped(section: DeskSection, states: string[]): DeskSection {
+  if (section.tenders.length <= DESK_SECTION_LIMIT) return section;
+  const href = states.length === 1 ? `/tenders?state=${states[0]}` : "/tenders";
+  return { ...section, tenders: section.tenders.slice(0, DESK_SECTION_LIMIT), more: { count: section.tenders.length - DESK_SECTION_LIMIT, href } };
 }
 
 /** Recommendations nobody can finish approving, for the people who can free them (buyers withdraw, admins raise limits). */
@@ -55,22 +66,22 @@ export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
   if (roles.includes("admin")) sections.push(await objectionsSection(visible));
   else if (roles.includes("buyer")) sections.push(await objectionsSection(visible.filter((t) => t.createdBy === viewer.actor.id)));
   if (roles.includes("buyer")) {
-    sections.push({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id), tab: "" });
-    sections.push({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open"), tab: "" });
-    sections.push({ title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tenders: inState("commercial"), tab: "comparison" });
+    sections.push(capped({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id), tab: "" }, ["draft"]));
+    sections.push(capped({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open"), tab: "" }, ["open"]));
+    sections.push(capped({ title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tenders: inState("commercial"), tab: "comparison" }, ["commercial"]));
   }
   if (roles.includes("engineer")) {
-    sections.push({ title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tenders: inState("technical"), tab: "review" });
+    sections.push(capped({ title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tenders: inState("technical"), tab: "review" }, ["technical"]));
   }
   if (roles.includes("approver")) {
-    sections.push({ title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tenders: inState("approval"), tab: "sign-off" });
+    sections.push(capped({ title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tenders: inState("approval"), tab: "sign-off" }, ["approval"]));
   }
   if (roles.includes("vendor")) {
-    sections.push({ title: "Tenders you are invited to", empty: "No open invitation.", tenders: inState("open"), tab: "offer" });
-    sections.push({ title: "Under evaluation or decided", empty: "Nothing under evaluation.", tenders: inState("technical", "commercial", "approval", "awarded"), tab: "" });
+    sections.push(capped({ title: "Tenders you are invited to", empty: "No open invitation.", tenders: inState("open"), tab: "offer" }, ["open"]));
+    sections.push(capped({ title: "Under evaluation or decided", empty: "Nothing under evaluation.", tenders: inState("technical", "commercial", "approval", "awarded"), tab: "" }, ["technical", "commercial", "approval", "awarded"]));
   }
   if (roles.includes("admin")) {
-    sections.push({ title: "Tenders in progress", empty: "No tender in progress.", tenders: inState("open", "technical", "commercial", "approval"), tab: "" });
+    sections.push(capped({ title: "Tenders in progress", empty: "No tender in progress.", tenders: inState("open", "technical", "commercial", "approval"), tab: "" }, ["open", "technical", "commercial", "approval"]));
   }
   return sections;
 }

@@ -39,6 +39,11 @@ export default async function DeskPage() {
               ))}
             </ul>
           )}
+          {section.more ? (
+            <p className="mt-2 text-sm">
+              <Link href={section.more.href}>{section.more.count.toLocaleString("en-GB")} more in the Tenders list</Link>
+            </p>
+          ) : null}
         </section>
       ))}
     </div>
