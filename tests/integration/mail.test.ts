@@ -96,7 +96,8 @@ describe("queueMail", () => {
 
     const before = performance.now();
     expect(() => queueMail({ to: "v@example.test", subject: "Regret notice", text: "x" }, { attempts: 3, backoffMs: 100 })).not.toThrow();
-    expect(performance.now() - before).toBeLessThan(50);
+    // It returned before its first attempt even failed: sending never holds up the action.
+    expect(warn).not.toHaveBeenCalled();
 
     await flushMail();
     // Waited 100 ms, then 200 ms between the three attempts.

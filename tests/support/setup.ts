@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { TEST_LEDGER_KEY } from "./ledger-key";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -17,3 +18,7 @@ if (!process.env.DATA_DIR) {
   process.env.DATA_DIR = folder;
   process.on("exit", () => rmSync(folder, { recursive: true, force: true }));
 }
+
+// Property tests draw the same cases on every run (fast-check prints the seed and the shrunk
+// counterexample when one fails); FC_SEED=<n> replays or varies them on purpose.
+fc.configureGlobal({ seed: Number(process.env.FC_SEED ?? 20261202) });

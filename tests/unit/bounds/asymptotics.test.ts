@@ -74,11 +74,10 @@ describe("Gallager's random-coding exponent (Gallager 1965)", () => {
 });
 
 describe("chart series (Bound explorer)", () => {
-  it("BLER against the channel: ordered, monotone, finite, fast", () => {
+  it("BLER against the channel: ordered, monotone, finite", () => {
     for (const model of ["bsc", "bec"] as const) {
-      const t0 = performance.now();
+      // Its speed is tracked by the bench (npm run bench), never timed here.
       const pts = channelCurve({ model, n: 1944, k: 1620 });
-      expect(performance.now() - t0).toBeLessThan(2000); // generous on a shared machine; the bench tracks speed
       expect(pts.length).toBe(60);
       for (let i = 0; i < pts.length; i++) {
         expect(pts[i].converse!).toBeLessThanOrEqual(pts[i].achievable! + 1e-9);
