@@ -23,7 +23,7 @@ export function PeopleGrid({ people, selfId }: { people: PersonRow[]; selfId: st
   const columns = useMemo<ColDef<PersonRow>[]>(
     () => [
       { field: "name", headerName: "Name", filter: true, flex: 1.2 },
-      { field: "email", headerName: "E-mail", filter: true, flex: 1.5 },
+      { field: "email", headerName: "E-mail", flex: 1.5 },
       { field: "organisationName", headerName: "Organisation", filter: true, flex: 1.2 },
       { headerName: "Roles", valueGetter: (p) => p.data?.roles.join(", "), flex: 1 },
       { headerName: "Status", valueGetter: (p) => (p.data?.active ? "active" : "deactivated"), width: 120 },
@@ -41,6 +41,7 @@ export function PeopleGrid({ people, selfId }: { people: PersonRow[]; selfId: st
         rowSelection={{ mode: "singleRow", checkboxes: false, enableClickSelection: true }}
         onSelectionChanged={(e) => setSelectedId(e.api.getSelectedRows()[0]?.id ?? null)}
         height={360}
+        empty={{ title: "No people in this view", hint: "Create one with the New account form on this page; it appears here at once." }}
       />
       {selected ? <PersonEditor key={selected.id} person={selected} isSelf={selected.id === selfId} /> : (
         <p className="text-sm text-ink-soft">Select a person to change roles, approval limit or access.</p>

@@ -91,7 +91,18 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
       <p className="text-xs text-ink-soft" role="status">
         {error ? error.message : `${rows.length} ${rows.length === 1 ? "claim" : "claims"}${isFetching ? ", refreshing…" : ""}`}
       </p>
-      <DataGrid<QueueRow> label="Claims" rowData={rows} columnDefs={columns} getRowId={(p) => p.data.id} height={460} />
+      <DataGrid<QueueRow>
+        label="Claims"
+        rowData={rows}
+        columnDefs={columns}
+        getRowId={(p) => p.data.id}
+        height={460}
+        empty={
+          query
+            ? { title: "No claims match these filters", hint: "Set a filter above back to “All” to widen the list." }
+            : { title: "No claims to review", hint: "Claims arrive here when vendors submit offers on an open tender; this list refreshes on its own." }
+        }
+      />
     </section>
   );
 }
