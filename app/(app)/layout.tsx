@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { Cautions } from "@/app/_components/cautions";
+import { CompactMenu } from "@/app/_components/compact-menu";
 import { Logo } from "@/app/_components/logo";
 import { navFor } from "@/lib/nav";
 import { mailroomEnabled } from "@/lib/server/services";
@@ -12,29 +13,31 @@ export default async function SignedInLayout({ children }: { children: React.Rea
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-ink-faint/20 bg-paper-raised">
-        <div className="mx-auto flex max-w-7xl items-center gap-6 px-6 py-2.5">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2.5 sm:px-6 md:flex-nowrap">
           <Logo />
-          <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1 text-sm">
-            {items.map((item) => (
-              <Link key={item.href} href={item.href} className="rounded-md px-2.5 py-1 text-ink-soft no-underline hover:bg-paper-sunk hover:text-ink hover:no-underline">
-                {item.label}
-              </Link>
-            ))}
-          </nav>
-          <div className="text-right text-xs leading-tight" data-testid="who">
-            <div className="font-medium text-ink">{viewer.name}</div>
-            <div className="text-ink-soft">
-              {viewer.organisationName} · {viewer.actor.roles.join(", ")}
+          <CompactMenu>
+            <nav aria-label="Main" className="flex flex-1 flex-col gap-1 text-sm md:flex-row md:flex-wrap">
+              {items.map((item) => (
+                <Link key={item.href} href={item.href} className="rounded-md px-2.5 py-1 text-ink-soft no-underline hover:bg-paper-sunk hover:text-ink hover:no-underline">
+                  {item.label}
+                </Link>
+              ))}
+            </nav>
+            <div className="text-xs leading-tight md:text-right" data-testid="who">
+              <div className="font-medium text-ink">{viewer.name}</div>
+              <div className="text-ink-soft">
+                {viewer.organisationName} · {viewer.actor.roles.join(", ")}
+              </div>
             </div>
-          </div>
-          <form action={signOutAction}>
-            <button type="submit" className="btn-quiet">Sign out</button>
-          </form>
+            <form action={signOutAction}>
+              <button type="submit" className="btn-quiet">Sign out</button>
+            </form>
+          </CompactMenu>
         </div>
       </header>
-      <main className="mx-auto w-full max-w-7xl flex-1 px-6 py-6">{children}</main>
+      <main className="mx-auto w-full min-w-0 max-w-7xl flex-1 px-4 py-6 sm:px-6">{children}</main>
       <footer className="border-t border-ink-faint/20 bg-paper-raised">
-        <div className="mx-auto max-w-7xl px-6 py-4">
+        <div className="mx-auto max-w-7xl px-4 py-4 sm:px-6">
           <Cautions placement="footer" />
         </div>
       </footer>

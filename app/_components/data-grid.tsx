@@ -1,7 +1,8 @@
 "use client";
 
+import { useEffect, useRef } from "react";
 import { AgGridReact, type AgGridReactProps } from "ag-grid-react";
-import { AllCommunityModule, ModuleRegistry, themeQuartz } from "ag-grid-community";
+import { AllCommunityModule, ModuleRegistry, themeQuartz, type GridApi, type GridReadyEvent } from "ag-grid-community";
 
 ModuleRegistry.registerModules([AllCommunityModule]);
 
@@ -61,7 +62,20 @@ function EmptyOverlay({ title, hint }: EmptyState) {
 
 /** AG Grid in Ratecourt's theme; every table of records uses it. */
 export function DataGrid<T>(props: AgGridReactProps<T> & { height?: number; label: string; empty?: EmptyState }) {
-  const { height = 420, label, empty = DEFAULT_EMPTY, ...rest } = props;
+  const { height = 420, label, empty = DEFAULT_EMPTY, onGridReady, ...rest } = props;
+  const api = useRef<GridApi<T> | null>(null);
+  // On paper every row prints at full height: the grid takes its print layout for the print only.
+  useEffect(() => {
+    const layout = (domLayout: "print" | "normal") => () => api.current?.setGridOption("domLayout", domLayout);
+    const before = layout("print");
+    const after = layout("normal");
+    window.addEventListener("beforeprint", before);
+    window.addEventListener("afterprint", after);
+    return () => {
+      window.removeEventListener("beforeprint", before);
+      window.removeEventListener("afterprint", after);
+    };
+  }, []);
   return (
     // The grid scrolls inside its own box; the page itself never grows wider than the screen.
     <div className="rc-grid max-w-full" style={{ height }} aria-label={label} role="region">
@@ -74,6 +88,10 @@ export function DataGrid<T>(props: AgGridReactProps<T> & { height?: number; labe
           noMatchingRows: { overlayText: "No rows match the column filters. Clear a filter (the funnel in its header) to see them again." },
         }}
         {...rest}
+        onGridReady={(e: GridReadyEvent<T>) => {
+          api.current = e.api;
+          onGridReady?.(e);
+        }}
       />
     </div>
   );

@@ -97,7 +97,7 @@ export function ComparisonGrid({
     api?.exportDataAsCsv({ fileName: `${reference}-comparison.csv`, skipColumnGroupHeaders: true, processCellCallback: (p) => csvCell(p.value) });
 
   return (
-    <section className="space-y-2" aria-label="Comparison">
+    <section className="print-wide space-y-2" aria-label="Comparison">
       <div className="flex items-center gap-3">
         <h2 className="flex-1">Comparison of {rows.length} {rows.length === 1 ? "offer" : "offers"}</h2>
         {canExport ? (
