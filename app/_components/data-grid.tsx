@@ -1,8 +1,8 @@
 "use client";
 
-import { useEffect, useRef } from "react";
+import { useEffect, useMemo, useRef, useSyncExternalStore } from "react";
 import { AgGridReact, type AgGridReactProps } from "ag-grid-react";
-import { AllCommunityModule, ModuleRegistry, themeQuartz, type GridApi, type GridReadyEvent } from "ag-grid-community";
+import { AllCommunityModule, ModuleRegistry, themeQuartz, type ColDef, type ColGroupDef, type GridApi, type GridReadyEvent } from "ag-grid-community";
 
 ModuleRegistry.registerModules([AllCommunityModule]);
 
@@ -60,13 +60,35 @@ function EmptyOverlay({ title, hint }: EmptyState) {
   );
 }
 
+const PHONE = "(max-width: 767px)";
+const subscribe = (change: () => void) => {
+  const query = window.matchMedia(PHONE);
+  query.addEventListener("change", change);
+  return () => query.removeEventListener("change", change);
+};
+/** True below the md breakpoint; false on the server, so the first paint matches the server's. */
+function useNarrow() {
+  return useSyncExternalStore(subscribe, () => window.matchMedia(PHONE).matches, () => false);
+}
+
+function unpin<T>(defs: (ColDef<T> | ColGroupDef<T>)[]): (ColDef<T> | ColGroupDef<T>)[] {
+  return defs.map((d) => ("children" in d ? { ...d, children: unpin(d.children) } : { ...d, pinned: null }));
+}
+
 /** AG Grid in Ratecourt's theme; every table of records uses it. */
 export function DataGrid<T>(props: AgGridReactProps<T> & { height?: number; label: string; empty?: EmptyState }) {
   const { height = 420, label, empty = DEFAULT_EMPTY, onGridReady, ...rest } = props;
   const api = useRef<GridApi<T> | null>(null);
+  const box = useRef<HTMLDivElement>(null);
+  const narrow = useNarrow();
+  // On a phone, pinned columns would fill the screen and leave no room to scroll: nothing is pinned.
+  const columnDefs = useMemo(() => (narrow && rest.columnDefs ? unpin(rest.columnDefs) : rest.columnDefs), [narrow, rest.columnDefs]);
   // On paper every row prints at full height: the grid takes its print layout for the print only.
   useEffect(() => {
-    const layout = (domLayout: "print" | "normal") => () => api.current?.setGridOption("domLayout", domLayout);
+    const layout = (domLayout: "print" | "normal") => () => {
+      if (box.current) box.current.style.height = domLayout === "print" ? "auto" : `${height}px`;
+      api.current?.setGridOption("domLayout", domLayout);
+    };
     const before = layout("print");
     const after = layout("normal");
     window.addEventListener("beforeprint", before);
@@ -75,10 +97,10 @@ export function DataGrid<T>(props: AgGridReactProps<T> & { height?: number; labe
       window.removeEventListener("beforeprint", before);
       window.removeEventListener("afterprint", after);
     };
-  }, []);
+  }, [height]);
   return (
     // The grid scrolls inside its own box; the page itself never grows wider than the screen.
-    <div className="rc-grid max-w-full" style={{ height }} aria-label={label} role="region">
+    <div ref={box} className="rc-grid max-w-full" style={{ height }} aria-label={label} role="region">
       <AgGridReact<T>
         theme={theme}
         animateRows={false}
@@ -88,6 +110,7 @@ export function DataGrid<T>(props: AgGridReactProps<T> & { height?: number; labe
           noMatchingRows: { overlayText: "No rows match the column filters. Clear a filter (the funnel in its header) to see them again." },
         }}
         {...rest}
+        columnDefs={columnDefs}
         onGridReady={(e: GridReadyEvent<T>) => {
           api.current = e.api;
           onGridReady?.(e);

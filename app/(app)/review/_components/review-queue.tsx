@@ -100,7 +100,7 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
         empty={
           query
             ? { title: "No claims match these filters", hint: "Set a filter above back to “All” to widen the list." }
-            : { title: "No claims to review", hint: "Claims arrive here when vendors submit offers on an open tender; this list refreshes on its own." }
+            : { title: "No claims to review", hint: "Claims of tenders in technical evaluation appear here once you have declared on them (above); this list refreshes on its own." }
         }
       />
     </section>
