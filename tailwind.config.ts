@@ -16,7 +16,8 @@ export default {
         accent: { DEFAULT: "#0f5e6b", soft: "#dcefF1", strong: "#0a434c" },
         verdict: {
           impossible: "#b42318",
-          evidence: "#b26a00",
+          // 5.0:1 or more on white, paper and the sunk grey (WCAG AA for small text); was #b26a00 at 3.7-4.2:1.
+          evidence: "#955800",
           plausible: "#1f7a3a",
         },
       },

@@ -1,3 +1,4 @@
+import { CompactMenu } from "@/app/_components/compact-menu";
 import { Logo } from "@/app/_components/logo";
 import { Main } from "@/app/_components/main";
 import { MainNav } from "@/app/_components/main-nav";
@@ -12,21 +13,23 @@ export default async function SignedInLayout({ children }: { children: React.Rea
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-ink-faint/20 bg-paper-raised">
-        <div className="mx-auto flex max-w-7xl items-center gap-6 px-6 py-2.5">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2.5 sm:px-6 md:flex-nowrap">
           <Logo />
-          <MainNav items={items} />
-          <div className="text-right text-xs leading-tight" data-testid="who">
-            <div className="font-medium text-ink">{viewer.name}</div>
-            <div className="text-ink-soft">
-              {viewer.organisationName} · {viewer.actor.roles.join(", ")}
+          <CompactMenu>
+            <MainNav items={items} />
+            <div className="text-xs leading-tight md:text-right" data-testid="who">
+              <div className="font-medium text-ink">{viewer.name}</div>
+              <div className="text-ink-soft">
+                {viewer.organisationName} · {viewer.actor.roles.join(", ")}
+              </div>
             </div>
-          </div>
-          <form action={signOutAction}>
-            <button type="submit" className="btn-quiet">Sign out</button>
-          </form>
+            <form action={signOutAction}>
+              <button type="submit" className="btn-quiet">Sign out</button>
+            </form>
+          </CompactMenu>
         </div>
       </header>
-      <Main className="mx-auto w-full max-w-7xl flex-1 px-6 py-6">{children}</Main>
+      <Main className="mx-auto w-full min-w-0 max-w-7xl flex-1 px-4 py-6 sm:px-6">{children}</Main>
     </div>
   );
 }

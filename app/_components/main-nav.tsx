@@ -8,7 +8,7 @@ import { currentNavHref, type NavItem } from "@/lib/nav";
 export function MainNav({ items }: { items: NavItem[] }) {
   const current = currentNavHref(items, usePathname() ?? "");
   return (
-    <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1 text-sm">
+    <nav aria-label="Main" className="flex flex-1 flex-col gap-1 text-sm md:flex-row md:flex-wrap">
       {items.map((item) => (
         <Link
           key={item.href}

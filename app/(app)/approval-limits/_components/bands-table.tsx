@@ -7,6 +7,7 @@ import { formatMoney } from "@/lib/format";
 import type { ApprovalBandInput } from "@/lib/validation/approvals";
 import { removeBandAction } from "../actions";
 import { BandForm } from "./band-form";
+import { ScrollBox } from "@/app/_components/scroll-box";
 
 type BandRow = ApprovalBandInput & { id: string };
 
@@ -18,6 +19,7 @@ export function BandsTable({ bands, editable }: { bands: BandRow[]; editable: bo
   const remove = (id: string) => startTransition(async () => setResult(await removeBandAction(id)));
   return (
     <div className="space-y-3">
+      <ScrollBox label="Value bands">
       <table className="data-table" aria-label="Value bands">
         <thead>
           <tr><th>Currency</th><th className="text-right">From (inclusive)</th><th className="text-right">Up to (exclusive)</th><th className="text-right">Approvals needed</th><th className="text-right">Least approver limit</th>{editable ? <th><span className="sr-only">Change</span></th> : null}</tr>
@@ -41,6 +43,7 @@ export function BandsTable({ bands, editable }: { bands: BandRow[]; editable: bo
           {bands.length === 0 ? <tr><td colSpan={6} className="text-ink-soft">No band yet: no recommendation can be approved.</td></tr> : null}
         </tbody>
       </table>
+      </ScrollBox>
       <FormStatus result={result} />
       {editable && editing ? (
         <section className="panel" aria-label="Change band">

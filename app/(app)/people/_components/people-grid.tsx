@@ -44,6 +44,7 @@ export function PeopleGrid({ people, selfId }: { people: PersonRow[]; selfId: st
         rowSelection={{ mode: "singleRow", checkboxes: false, enableClickSelection: true }}
         onSelectionChanged={(e) => setSelectedId(e.api.getSelectedRows()[0]?.id ?? null)}
         height={360}
+        empty={{ title: "No people in this view", hint: "Create one with the New account form on this page; it appears here at once." }}
       />
       {selected ? <PersonEditor key={selected.id} person={selected} isSelf={selected.id === selfId} /> : (
         <p className="text-sm text-ink-soft">Select a person to change roles, approval limit or access.</p>

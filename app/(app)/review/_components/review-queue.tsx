@@ -98,7 +98,19 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
       <p className="text-xs text-ink-soft" role="status">
         {error ? error.message : data ? `${data.total} ${data.total === 1 ? "claim" : "claims"}${isFetching ? ", refreshing…" : ""}` : "Reading the queue…"}
       </p>
-      <DataGrid<QueueRow> label="Claims" rowData={rows} columnDefs={columns} defaultColDef={{ sortable: false }} getRowId={(p) => p.data.id} height={460} />
+      <DataGrid<QueueRow>
+        label="Claims"
+        rowData={rows}
+        columnDefs={columns}
+        defaultColDef={{ sortable: false }}
+        getRowId={(p) => p.data.id}
+        height={460}
+        empty={
+          query
+            ? { title: "No claims match these filters", hint: "Set a filter above back to “All” to widen the list." }
+            : { title: "No claims to review", hint: "Claims of tenders in technical evaluation appear here once you have declared on them (above); this list refreshes on its own." }
+        }
+      />
       {data ? <Pager info={data} noun={["claim", "claims"]} href={(page) => pageHref(pathname, asked, page)} /> : null}
     </section>
   );

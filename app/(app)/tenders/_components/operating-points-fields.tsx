@@ -57,7 +57,7 @@ export function OperatingPointsFields() {
         const inDbm = soft && Boolean(points[i]?.sensitivity);
         const valueWords = inDbm ? "input level (dBm)" : `${channel.parameter}${unit}`;
         return (
-          <div key={field.id} className={`grid items-start gap-2 ${soft ? "grid-cols-[1fr_11rem_12rem_auto]" : "grid-cols-[1fr_12rem_auto]"}`} role="group" aria-label={`Operating point ${i + 1}`}>
+          <div key={field.id} className={`grid items-start gap-2 ${soft ? "grid-cols-1 sm:grid-cols-[1fr_11rem_12rem_auto]" : "grid-cols-1 sm:grid-cols-[1fr_12rem_auto]"}`} role="group" aria-label={`Operating point ${i + 1}`}>
             <div>
               <label className="sr-only" htmlFor={`op-${i}-label`}>Point {i + 1} name</label>
               <input id={`op-${i}-label`} className="field" placeholder="e.g. Storm fade" aria-invalid={Boolean(labelError)} aria-describedby={`op-${i}-label-error`} {...register(`operatingPoints.${i}.label`)} />

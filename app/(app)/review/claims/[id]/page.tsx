@@ -41,7 +41,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
           <h1 className="flex-1">{detail.vendorName}: {offer.moduleName}</h1>
           <VerdictBadge verdict={claim.verdict} />
         </div>
-        <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4">
+        <dl className="grid grid-cols-1 gap-x-6 gap-y-1 text-sm sm:grid-cols-2 md:grid-cols-4">
           <div><dt className="label">Operating point</dt><dd>{claim.pointLabel}: {radio ? `${radio.requiredDbm} dBm required; the line amounts to ${formatCondition(tender.channelModel, claim.channelValue)}` : formatCondition(tender.channelModel, claim.channelValue)}</dd></div>
           <div><dt className="label">Claimed</dt><dd className="tabular-nums">{claimed}</dd></div>
           <div><dt className="label">Code</dt><dd className="tabular-nums">{offer.codeFamily}, {offer.decision} decision{offer.n ? `, n = ${offer.n}` : ""}{offer.k ? `, k = ${offer.k}` : ""}</dd></div>

@@ -11,7 +11,7 @@ export function TenderTabs({ tabs }: { tabs: { href: string; label: string }[] }
     .filter((t) => pathname === t.href || pathname.startsWith(`${t.href}/`))
     .sort((a, b) => b.href.length - a.href.length)[0]?.href;
   return (
-    <nav aria-label="Tender sections" className="flex gap-1 border-b border-ink-faint/25 text-sm">
+    <nav aria-label="Tender sections" className="flex gap-1 overflow-x-auto border-b border-ink-faint/25 text-sm print:hidden">
       {tabs.map((tab) => {
         const active = tab.href === current;
         return (
@@ -19,7 +19,7 @@ export function TenderTabs({ tabs }: { tabs: { href: string; label: string }[] }
             key={tab.href}
             href={tab.href}
             aria-current={active ? "page" : undefined}
-            className={`-mb-px border-b-2 px-3 py-1.5 no-underline hover:no-underline ${active ? "border-accent font-medium text-ink" : "border-transparent text-ink-soft hover:text-ink"}`}
+            className={`-mb-px shrink-0 whitespace-nowrap border-b-2 px-3 py-1.5 no-underline hover:no-underline ${active ? "border-accent font-medium text-ink" : "border-transparent text-ink-soft hover:text-ink"}`}
           >
             {tab.label}
           </Link>

@@ -17,6 +17,7 @@ import { listThreads } from "@/lib/server/threads";
 import { ThreadList } from "@/app/(app)/threads/_components/thread-list";
 import { DeclarationForm } from "./_components/declaration-form";
 import { SignoffCard } from "./_components/signoff-card";
+import { ScrollBox } from "@/app/_components/scroll-box";
 
 export const metadata: Metadata = { title: "Review" };
 
@@ -82,7 +83,8 @@ function ClaimsTable({ claims, vendor }: { claims: QueueRow[]; vendor: boolean }
     <section className="panel" aria-label={vendor ? "Your claims" : "Claims of this tender"}>
       <h2>{vendor ? "Your claims and their marks" : "Claims of this tender"}</h2>
       {claims.length === 0 ? <p className="text-sm text-ink-soft">No claim to show.</p> : (
-        <table className="data-table mt-2">
+        <ScrollBox label={vendor ? "Your claims" : "Claims"} className="mt-2">
+        <table className="data-table">
           <thead><tr><th>Verdict</th>{vendor ? null : <th>Vendor</th>}<th>Operating point</th><th>Claimed</th><th>Mark</th>{vendor ? null : <th>Evidence</th>}<th><span className="sr-only">Open</span></th></tr></thead>
           <tbody>
             {claims.map((c) => (
@@ -98,6 +100,7 @@ function ClaimsTable({ claims, vendor }: { claims: QueueRow[]; vendor: boolean }
             ))}
           </tbody>
         </table>
+        </ScrollBox>
       )}
     </section>
   );

@@ -69,14 +69,14 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
       </section>
 
       {view.canWithdraw ? (
-        <section className="panel" aria-label="Withdraw">
+        <section className="panel print:hidden" aria-label="Withdraw">
           <h2>Withdraw from approval</h2>
           <WithdrawForm tenderId={id} />
         </section>
       ) : null}
 
       {view.me.allowed ? (
-        <section className="panel" aria-label="Your decision">
+        <section className="panel print:hidden" aria-label="Your decision">
           <h2>Your decision</h2>
           <DecisionForm
             tenderId={id}
@@ -103,7 +103,7 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
           </p>
         </section>
       ) : view.canPreview ? (
-        <section className="panel space-y-2" aria-label="Memo preview">
+        <section className="panel space-y-2 print:hidden" aria-label="Memo preview">
           <div className="flex items-baseline justify-between"><h2>Memo preview</h2><a href={`/api/v1/tenders/${id}/memo/preview`} target="_blank" rel="noreferrer" className="text-sm">Open the preview (PDF)</a></div>
           <iframe title="Memo preview" src={`/api/v1/tenders/${id}/memo/preview`} className="h-[32rem] w-full rounded border border-ink-faint/30 bg-white" />
         </section>

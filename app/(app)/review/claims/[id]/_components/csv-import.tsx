@@ -56,7 +56,7 @@ export function CsvImport({ claimId, template }: { claimId: string; template: st
     ...(report?.rejected ?? []).map((r) => ({ line: r.line, outcome: "Refused", why: r.reasons.join(" "), ok: false })),
   ].sort((a, b) => a.line - b.line);
   return (
-    <div className="space-y-2" aria-label="Import lab runs" role="group">
+    <div className="space-y-2 print:hidden" aria-label="Import lab runs" role="group">
       <h3 className="text-sm font-semibold">Import runs from a CSV file</h3>
       <p className="text-xs text-ink-soft">
         Columns: claim_id (or vendor and point), channel, unit (bits or frames), trials, errors, confidence, note. Rows without a claim count for this one; rows without a channel are at the claim&apos;s.{" "}

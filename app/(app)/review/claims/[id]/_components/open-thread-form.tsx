@@ -21,7 +21,7 @@ export function OpenThreadForm({ claimId }: { claimId: string }) {
     }),
   );
   return (
-    <details className="border-t border-ink-faint/20 pt-3">
+    <details className="border-t border-ink-faint/20 pt-3 print:hidden">
       <summary className="cursor-pointer text-sm text-accent">Ask the vendor a question</summary>
       <form onSubmit={submit} aria-label="Ask the vendor" className="mt-2 space-y-2" noValidate>
         <div><label className="label" htmlFor="thread-subject">Subject</label><input id="thread-subject" className="field" {...register("subject")} /><FieldError message={formState.errors.subject?.message} /></div>

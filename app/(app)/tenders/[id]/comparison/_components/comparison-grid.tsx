@@ -8,7 +8,9 @@ import { formatMoney } from "@/lib/format";
 import { comparisonRows, CRITERIA, CRITERION_LABELS, csvCell, type ComparisonRow, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
 
 const score = (p: ValueFormatterParams<ComparisonRow>) => (p.value == null ? "–" : Number(p.value).toFixed(1));
-const numeric = { type: "rightAligned", filter: "agNumberColumnFilter", width: 110 } as const;
+// Numbers sort rather than filter: with a handful of offers a sort answers the question, so only the
+// columns one narrows by (vendor, module, verdict, evidence, status) carry a filter.
+const numeric = { type: "rightAligned", width: 110 } as const;
 
 function columnsFor(input: ScoringInput, currency: string): (ColDef<ComparisonRow> | ColGroupDef<ComparisonRow>)[] {
   const money = (p: ValueFormatterParams<ComparisonRow>) => (p.value == null ? "–" : formatMoney(Number(p.value), currency));
@@ -95,7 +97,7 @@ export function ComparisonGrid({
     api?.exportDataAsCsv({ fileName: `${reference}-comparison.csv`, skipColumnGroupHeaders: true, processCellCallback: (p) => csvCell(p.value) });
 
   return (
-    <section className="space-y-2" aria-label="Comparison">
+    <section className="print-wide space-y-2" aria-label="Comparison">
       <div className="flex items-center gap-3">
         <h2 className="flex-1">Comparison of {rows.length} {rows.length === 1 ? "offer" : "offers"}</h2>
         {canExport ? (
@@ -111,6 +113,7 @@ export function ComparisonGrid({
         rowSelection={{ mode: "singleRow", checkboxes: false, enableClickSelection: true }}
         onSelectionChanged={(e) => onSelect(e.api.getSelectedRows()[0]?.offerId ?? null)}
         onGridReady={(e) => setApi(e.api)}
+        empty={{ title: "No offers to compare yet", hint: "Offers appear here once the envelopes are opened. Vendors can submit until the deadline; check the tender's Offers tab." }}
         ensureDomOrder
         // Every column in the page, not only those scrolled into view: screen readers and the export checks read them all.
         suppressColumnVirtualisation

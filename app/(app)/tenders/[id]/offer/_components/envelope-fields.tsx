@@ -35,7 +35,7 @@ export function EnvelopeFields({ currency }: { currency: string }) {
       <fieldset className="space-y-2">
         <legend className="label">Price breaks by quantity</legend>
         {fields.map((field, i) => (
-          <div key={field.id} role="group" aria-label={`Price break ${i + 1}`} className="grid grid-cols-[10rem_10rem_auto] items-start gap-2">
+          <div key={field.id} role="group" aria-label={`Price break ${i + 1}`} className="grid grid-cols-[minmax(0,10rem)_minmax(0,10rem)_auto] items-start gap-2">
             <div>
               <label className="sr-only" htmlFor={`pb-${i}-q`}>Break {i + 1} from quantity</label>
               <input id={`pb-${i}-q`} className="field tabular-nums" placeholder="from units" inputMode="numeric" {...register(`envelope.priceBreaks.${i}.minQuantity`, { setValueAs: formCount })} />

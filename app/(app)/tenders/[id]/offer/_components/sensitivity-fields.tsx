@@ -7,6 +7,7 @@ import { formatSci } from "@/lib/format";
 import { formDecimal, formOptionalCount, formOptionalDecimal } from "@/lib/numbers";
 import { CURVE_CSV_HELP, CURVE_METRIC_WORDS, CURVE_UNIT_WORDS, MAX_CURVE_POINTS, parseCurveCsv, type CurveCsvReport } from "@/lib/offers/radio";
 import type { OfferFormValues } from "@/lib/validation/offer";
+import { ScrollBox } from "@/app/_components/scroll-box";
 
 type Point = { label: string; value: number; sensitivity?: { bitRate: number; payloadBits: number; targetPer: number } | null };
 
@@ -21,6 +22,7 @@ function CurveFields({ index }: { index: number }) {
     <fieldset className="col-span-full space-y-2" aria-label="Waterfall curve">
       <legend className="label">Waterfall curve (optional): each point is judged; the worst one counts for the claim</legend>
       {fields.length ? (
+        <ScrollBox label="Waterfall curve points">
         <table className="data-table">
           <thead><tr><th>#</th><th>x</th><th>Unit</th><th>Metric</th><th>Error rate</th><th><span className="sr-only">Remove</span></th></tr></thead>
           <tbody>
@@ -29,7 +31,7 @@ function CurveFields({ index }: { index: number }) {
                 <td className="tabular-nums">{j + 1}</td>
                 <td>
                   <label className="sr-only" htmlFor={id(j, "x")}>Curve point {j + 1} x</label>
-                  <input id={id(j, "x")} className="field tabular-nums w-28" inputMode="decimal" {...register(`${base}.${j}.x` as `claims.0.sensitivity.curve.0.x`, { setValueAs: formDecimal })} />
+                  <input id={id(j, "x")} className="field tabular-nums w-20 sm:w-28" inputMode="decimal" {...register(`${base}.${j}.x` as `claims.0.sensitivity.curve.0.x`, { setValueAs: formDecimal })} />
                   <FieldError id={`${id(j, "x")}-error`} message={errorAt(formState.errors, `${base}.${j}.x`)} />
                 </td>
                 <td>
@@ -49,7 +51,7 @@ function CurveFields({ index }: { index: number }) {
                 </td>
                 <td>
                   <label className="sr-only" htmlFor={id(j, "value")}>Curve point {j + 1} error rate</label>
-                  <input id={id(j, "value")} className="field tabular-nums w-28" inputMode="decimal" {...register(`${base}.${j}.value` as `claims.0.sensitivity.curve.0.value`, { setValueAs: formDecimal })} />
+                  <input id={id(j, "value")} className="field tabular-nums w-20 sm:w-28" inputMode="decimal" {...register(`${base}.${j}.value` as `claims.0.sensitivity.curve.0.value`, { setValueAs: formDecimal })} />
                   <FieldError id={`${id(j, "value")}-error`} message={errorAt(formState.errors, `${base}.${j}.value`)} />
                 </td>
                 <td><button type="button" className="btn-quiet" onClick={() => remove(j)} aria-label={`Remove curve point ${j + 1}`}>Remove</button></td>
@@ -57,6 +59,7 @@ function CurveFields({ index }: { index: number }) {
             ))}
           </tbody>
         </table>
+        </ScrollBox>
       ) : null}
       <div className="flex flex-wrap items-center gap-3">
         <button type="button" className="btn-quiet" disabled={fields.length >= MAX_CURVE_POINTS} onClick={() => append({ x: undefined as unknown as number, unit: "dBm", metric: "per", value: undefined as unknown as number })}>Add curve point</button>

@@ -4,6 +4,7 @@ import type { RadioClaim } from "@/lib/offers/radio";
 import { formatCondition, formatSci } from "@/lib/format";
 import type { ChannelModel } from "@/lib/offers";
 import type { OfferView } from "@/lib/server/offers";
+import { ScrollBox } from "@/app/_components/scroll-box";
 
 type ClaimView = OfferView["claims"][number];
 interface Finding { code: string; severity: string; message: string; source: string }
@@ -23,6 +24,7 @@ export function ClaimVerdicts({ claims, model, detail = false }: { claims: Claim
   const radios = claims.some((c) => c.radio);
   return (
     <>
+    <ScrollBox label="Verdicts by operating point">
     <table className="data-table">
       <thead>
         <tr>
@@ -63,6 +65,7 @@ export function ClaimVerdicts({ claims, model, detail = false }: { claims: Claim
         })}
       </tbody>
     </table>
+    </ScrollBox>
     {radios ? <SensitivityCaution /> : null}
     </>
   );
