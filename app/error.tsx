@@ -10,7 +10,9 @@ export default function ErrorPage({ error, reset }: { error: Error & { digest?: 
         The page could not be shown. Nothing you submitted was half-saved: every change is all or nothing.
         {error.digest ? ` Reference: ${error.digest}.` : ""}
       </p>
-      <button type="button" className="btn mt-6" onClick={reset}>Try again</button>
+      <button type="button" className="btn mt-6" onClick={reset}>
+        Try again
+      </button>
     </Main>
   );
 }

@@ -6,7 +6,9 @@ export default function NotFound() {
     <Main className="mx-auto max-w-lg px-6 py-24 text-center">
       <h1>Not found</h1>
       <p className="mt-2 text-sm text-ink-soft">There is nothing at this address, or it is no longer here.</p>
-      <p className="mt-6"><Link href="/">Back to your desk</Link></p>
+      <p className="mt-6">
+        <Link href="/">Back to your desk</Link>
+      </p>
     </Main>
   );
 }

@@ -13,7 +13,10 @@ const argsSchema = z.object({
   email: z.email("--email must be an e-mail address"),
   name: z.string().trim().min(1, "--name is required").max(200),
   organisation: z.string().trim().min(1, "--organisation is required").max(200),
-  country: z.string().regex(/^[A-Z]{2}$/, "--country must be a two-letter code such as GB").default("GB"),
+  country: z
+    .string()
+    .regex(/^[A-Z]{2}$/, "--country must be a two-letter code such as GB")
+    .default("GB"),
 });
 
 async function main() {
@@ -31,7 +34,13 @@ async function main() {
     let [org] = await tx.select().from(organisations).where(eq(organisations.name, input.organisation));
     org ??= (await tx.insert(organisations).values({ name: input.organisation, kind: "buyer", country: input.country }).returning())[0];
     const user = await insertUser(tx, { name: input.name, email: input.email, password, organisationId: org.id, roles: ["admin"] });
-    await appendLedger(tx, { actor: null, action: "user.created", subjectType: "User", subjectId: user.id, data: { email: user.email, roles: ["admin"], by: "admin:create" } });
+    await appendLedger(tx, {
+      actor: null,
+      action: "user.created",
+      subjectType: "User",
+      subjectId: user.id,
+      data: { email: user.email, roles: ["admin"], by: "admin:create" },
+    });
   });
   console.log(`Created the administrator ${input.email}. One-time password (shown once, keep it safe):\n  ${password}`);
 }

@@ -57,8 +57,14 @@ export const DEMO_OFFERS: DemoOffer[] = [
       code: { family: "LDPC", decision: "hard", n: 2048, k: 1536, rate: null, overhead: null },
       claims: bothPoints("bler", 1e-5),
       envelope: {
-        unitPrice: 38.5, currency: "EUR", leadTimeWeeks: 14, warrantyMonths: 24,
-        priceBreaks: [{ minQuantity: 1000, unitPrice: 37.2 }, { minQuantity: 2500, unitPrice: 35.9 }],
+        unitPrice: 38.5,
+        currency: "EUR",
+        leadTimeWeeks: 14,
+        warrantyMonths: 24,
+        priceBreaks: [
+          { minQuantity: 1000, unitPrice: 37.2 },
+          { minQuantity: 2500, unitPrice: 35.9 },
+        ],
       },
     },
   },
@@ -90,7 +96,15 @@ export const DEMO_SENSITIVITY_OFFERS: (Omit<DemoOffer, "shows"> & { shows: "plau
       moduleName: "Oxbow OW-GW2 Gateway",
       partNumber: "OW-GW2-320",
       code: { family: "LDPC", decision: "soft", n: 320, k: 160, rate: null, overhead: null },
-      claims: [{ pointIndex: 0, metric: "bler", value: 1e-2, ncgOutputBer: null, sensitivity: { dbm: -133, noiseFigureDb: 4, modulation: "bpsk", n: 320, k: 160, curve: null } }],
+      claims: [
+        {
+          pointIndex: 0,
+          metric: "bler",
+          value: 1e-2,
+          ncgOutputBer: null,
+          sensitivity: { dbm: -133, noiseFigureDb: 4, modulation: "bpsk", n: 320, k: 160, curve: null },
+        },
+      ],
       envelope: { unitPrice: 212, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 36, priceBreaks: [] },
     },
   },
@@ -102,7 +116,15 @@ export const DEMO_SENSITIVITY_OFFERS: (Omit<DemoOffer, "shows"> & { shows: "plau
       moduleName: "Marram GR-1 Basin",
       partNumber: "GR1-B-12",
       code: { family: "convolutional", decision: "soft", n: null, k: null, rate: 0.5, overhead: null },
-      claims: [{ pointIndex: 0, metric: "bler", value: 1e-2, ncgOutputBer: null, sensitivity: { dbm: -141, noiseFigureDb: null, modulation: null, n: null, k: null, curve: null } }],
+      claims: [
+        {
+          pointIndex: 0,
+          metric: "bler",
+          value: 1e-2,
+          ncgOutputBer: null,
+          sensitivity: { dbm: -141, noiseFigureDb: null, modulation: null, n: null, k: null, curve: null },
+        },
+      ],
       envelope: { unitPrice: 189, currency: "EUR", leadTimeWeeks: 10, warrantyMonths: 24, priceBreaks: [] },
     },
   },
@@ -114,25 +136,39 @@ export const DEMO_SENSITIVITY_OFFERS: (Omit<DemoOffer, "shows"> & { shows: "plau
       moduleName: "KR-GW Longreach",
       partNumber: "KR-GW-LR4",
       code: { family: "polar", decision: "soft", n: null, k: null, rate: 0.5, overhead: null },
-      claims: [{
-        pointIndex: 0, metric: "bler", value: 1e-2, ncgOutputBer: null,
-        sensitivity: {
-          dbm: -142, noiseFigureDb: null, modulation: null, n: null, k: null,
-          curve: [
-            { x: -145, unit: "dBm", metric: "per", value: 1e-1 },
-            { x: -142, unit: "dBm", metric: "per", value: 1e-2 },
-            { x: -140.5, unit: "dBm", metric: "per", value: 1e-3 },
-            { x: -139.5, unit: "dBm", metric: "per", value: 1e-4 },
-          ],
+      claims: [
+        {
+          pointIndex: 0,
+          metric: "bler",
+          value: 1e-2,
+          ncgOutputBer: null,
+          sensitivity: {
+            dbm: -142,
+            noiseFigureDb: null,
+            modulation: null,
+            n: null,
+            k: null,
+            curve: [
+              { x: -145, unit: "dBm", metric: "per", value: 1e-1 },
+              { x: -142, unit: "dBm", metric: "per", value: 1e-2 },
+              { x: -140.5, unit: "dBm", metric: "per", value: 1e-3 },
+              { x: -139.5, unit: "dBm", metric: "per", value: 1e-4 },
+            ],
+          },
         },
-      }],
+      ],
       envelope: { unitPrice: 164, currency: "EUR", leadTimeWeeks: 6, warrantyMonths: 24, priceBreaks: [] },
     },
   },
 ];
 
 /** The demo offers: four vendors on the gauges tender (one claim beyond capacity, one needing evidence, two honest). */
-export async function seedDemoOffers(tx: Queryable, ctx: DemoContext, tenderId = ctx.tenderIds.gauges, offers: readonly Omit<DemoOffer, "shows">[] = DEMO_OFFERS): Promise<void> {
+export async function seedDemoOffers(
+  tx: Queryable,
+  ctx: DemoContext,
+  tenderId = ctx.tenderIds.gauges,
+  offers: readonly Omit<DemoOffer, "shows">[] = DEMO_OFFERS,
+): Promise<void> {
   const [tender] = await tx.select().from(tenders).where(eq(tenders.id, tenderId));
   for (const demo of offers) {
     const evaluation = evaluateOffer(tender, demo.offer);

@@ -27,10 +27,24 @@ export async function seedDemoReview(tx: Queryable, ctx: DemoContext): Promise<v
   const director = { id: ctx.userIds.director, label: "Tomas Veld" };
   const statement = "I have no financial, family or past employment ties to any vendor invited to this tender.";
   const [declaration] = await tx.insert(declarations).values({ tenderId, userId: director.id, conflictedOrgIds: [], statement }).returning();
-  await appendLedger(tx, { tenderId, actor: director, action: "declaration.made", subjectType: "Declaration", subjectId: declaration.id, data: { conflicts: [], statement } });
+  await appendLedger(tx, {
+    tenderId,
+    actor: director,
+    action: "declaration.made",
+    subjectType: "Declaration",
+    subjectId: declaration.id,
+    data: { conflicts: [], statement },
+  });
 
   // 3 errors in 200,000 at the claim's own channel condition, counted in the claim's unit.
-  const run = { channelValue: target.channelValue, unit: unitForMetric(target.metric), trials: 200_000, errors: 3, confidence: 0.95, note: "Bench run at the stated raw BER, shielded room." };
+  const run = {
+    channelValue: target.channelValue,
+    unit: unitForMetric(target.metric),
+    trials: 200_000,
+    errors: 3,
+    confidence: 0.95,
+    note: "Bench run at the stated raw BER, shielded room.",
+  };
   const assessed = assessRun({ ...target, channelModel: found.channelModel }, run);
   if (!assessed.ok) return;
   const stored = await insertEvidenceRun(tx, target, run, assessed, { userId: director.id, source: "manual" });

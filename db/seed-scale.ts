@@ -83,19 +83,122 @@ type Rng = ReturnType<typeof prng>;
 
 // Invented names, combined deterministically; none is meant to name a real company or person.
 const VENDOR_STEMS = [
-  "Alderwick", "Brackenholt", "Corriemoss", "Dunnockfield", "Eltermere", "Fellgate", "Gorsedale", "Harebell", "Inglebrook",
-  "Juniper Vale", "Kittiwake", "Lythebank", "Mossbeck", "Nethermoor", "Ormsgill", "Peewit", "Quarrymoor", "Rushmere",
-  "Sedgefen", "Thistlecombe", "Underhowe", "Varlow", "Whinfell", "Yarrowby", "Zennorcove", "Ashgill", "Brockholme",
-  "Cawdor Fen", "Dipperwell", "Eskholt", "Fernlow", "Gillraven", "Heronsike", "Ivybridge Moor", "Jackdaw Hill", "Kelpie Reach",
-  "Lapwing", "Marlpit", "Nutwood", "Otterburnside", "Pinfold", "Quernstone", "Reedmace", "Stonechat", "Tarnhow", "Upfold",
+  "Alderwick",
+  "Brackenholt",
+  "Corriemoss",
+  "Dunnockfield",
+  "Eltermere",
+  "Fellgate",
+  "Gorsedale",
+  "Harebell",
+  "Inglebrook",
+  "Juniper Vale",
+  "Kittiwake",
+  "Lythebank",
+  "Mossbeck",
+  "Nethermoor",
+  "Ormsgill",
+  "Peewit",
+  "Quarrymoor",
+  "Rushmere",
+  "Sedgefen",
+  "Thistlecombe",
+  "Underhowe",
+  "Varlow",
+  "Whinfell",
+  "Yarrowby",
+  "Zennorcove",
+  "Ashgill",
+  "Brockholme",
+  "Cawdor Fen",
+  "Dipperwell",
+  "Eskholt",
+  "Fernlow",
+  "Gillraven",
+  "Heronsike",
+  "Ivybridge Moor",
+  "Jackdaw Hill",
+  "Kelpie Reach",
+  "Lapwing",
+  "Marlpit",
+  "Nutwood",
+  "Otterburnside",
+  "Pinfold",
+  "Quernstone",
+  "Reedmace",
+  "Stonechat",
+  "Tarnhow",
+  "Upfold",
 ];
 const VENDOR_KINDS = ["Radio", "Telemetry", "Wireless", "RF", "Links", "Signal Works"];
 const COUNTRIES = ["NL", "DK", "IE", "DE", "FR", "BE", "SE", "FI", "PL", "CZ", "AT", "ES", "PT", "IT", "NO", "GB"];
-const GIVEN = ["Ada", "Bram", "Carys", "Dev", "Elin", "Femi", "Greta", "Hugo", "Isla", "Jori", "Kaia", "Lorcan", "Mina", "Nils", "Oona", "Pavel", "Rhea", "Sami", "Tove", "Ugo", "Vera", "Wim", "Yara", "Zeno"];
-const FAMILY = ["Abberley", "Brunt", "Castellow", "Dray", "Emberton", "Fallowby", "Garside", "Holroyd", "Ickworth", "Jessop", "Kettleby", "Lindqvist", "Marwood", "Northey", "Osgood", "Pellow", "Rainford", "Sowerby", "Thwaite", "Umber", "Vance", "Wetherall"];
+const GIVEN = [
+  "Ada",
+  "Bram",
+  "Carys",
+  "Dev",
+  "Elin",
+  "Femi",
+  "Greta",
+  "Hugo",
+  "Isla",
+  "Jori",
+  "Kaia",
+  "Lorcan",
+  "Mina",
+  "Nils",
+  "Oona",
+  "Pavel",
+  "Rhea",
+  "Sami",
+  "Tove",
+  "Ugo",
+  "Vera",
+  "Wim",
+  "Yara",
+  "Zeno",
+];
+const FAMILY = [
+  "Abberley",
+  "Brunt",
+  "Castellow",
+  "Dray",
+  "Emberton",
+  "Fallowby",
+  "Garside",
+  "Holroyd",
+  "Ickworth",
+  "Jessop",
+  "Kettleby",
+  "Lindqvist",
+  "Marwood",
+  "Northey",
+  "Osgood",
+  "Pellow",
+  "Rainford",
+  "Sowerby",
+  "Thwaite",
+  "Umber",
+  "Vance",
+  "Wetherall",
+];
 const ASSETS = [
-  "pumping station", "reservoir level", "borehole", "sluice gate", "flow meter", "rain gauge", "valve chamber", "leak detector",
-  "water tower", "treatment works", "outfall", "culvert", "groundwater probe", "storm overflow", "intake screen", "tide gauge",
+  "pumping station",
+  "reservoir level",
+  "borehole",
+  "sluice gate",
+  "flow meter",
+  "rain gauge",
+  "valve chamber",
+  "leak detector",
+  "water tower",
+  "treatment works",
+  "outfall",
+  "culvert",
+  "groundwater probe",
+  "storm overflow",
+  "intake screen",
+  "tide gauge",
 ];
 const WORDS = ["radios", "telemetry links", "uplink modules", "sensor radios", "backhaul radios"];
 
@@ -106,14 +209,23 @@ interface CodeDesign {
 }
 // Block codes of the sizes radio modules use; the last ones are rate-1/2 codes for soft decision.
 const HARD_CODES: CodeDesign[] = [
-  { family: "LDPC", n: 648, k: 540 }, { family: "BCH", n: 1023, k: 923 }, { family: "polar", n: 1024, k: 768 },
-  { family: "polar", n: 1024, k: 901 }, { family: "LDPC", n: 1944, k: 1620 }, { family: "LDPC", n: 2048, k: 1536 },
-  { family: "LDPC", n: 2048, k: 1792 }, { family: "BCH", n: 2047, k: 1695 }, { family: "LDPC", n: 4096, k: 3584 },
+  { family: "LDPC", n: 648, k: 540 },
+  { family: "BCH", n: 1023, k: 923 },
+  { family: "polar", n: 1024, k: 768 },
+  { family: "polar", n: 1024, k: 901 },
+  { family: "LDPC", n: 1944, k: 1620 },
+  { family: "LDPC", n: 2048, k: 1536 },
+  { family: "LDPC", n: 2048, k: 1792 },
+  { family: "BCH", n: 2047, k: 1695 },
+  { family: "LDPC", n: 4096, k: 3584 },
   { family: "RS", n: 8160, k: 7136 },
 ];
 const SOFT_CODES: CodeDesign[] = [
-  { family: "LDPC", n: 1024, k: 512 }, { family: "turbo", n: 2048, k: 1024 }, { family: "LDPC", n: 4096, k: 2048 },
-  { family: "polar", n: 2048, k: 1365 }, { family: "LDPC", n: 8192, k: 6144 },
+  { family: "LDPC", n: 1024, k: 512 },
+  { family: "turbo", n: 2048, k: 1024 },
+  { family: "LDPC", n: 4096, k: 2048 },
+  { family: "polar", n: 2048, k: 1365 },
+  { family: "LDPC", n: 8192, k: 6144 },
 ];
 const BSC_POINTS = [5e-4, 1e-3, 1.5e-3, 2e-3, 3e-3, 4e-3, 5e-3, 6e-3, 8e-3, 1e-2, 1.2e-2, 1.5e-2, 2e-2, 2.5e-2];
 const AWGN_POINTS = [8, 7, 6.5, 6, 5.5, 5, 4.5, 4, 3.5, 3, 2.5, 2, 1.5, 1];
@@ -126,7 +238,12 @@ const WEIGHT_SETS: ScoringWeights[] = [
 
 /** How many of the ordinary tenders end in each state (fractions; drafts take the rest). */
 const STATE_SHARES: [TenderState, number][] = [
-  ["open", 0.15], ["technical", 0.25], ["commercial", 0.2], ["approval", 0.12], ["awarded", 0.13], ["cancelled", 0.05],
+  ["open", 0.15],
+  ["technical", 0.25],
+  ["commercial", 0.2],
+  ["approval", 0.12],
+  ["awarded", 0.13],
+  ["cancelled", 0.05],
 ];
 
 const DAY = 86_400_000;
@@ -209,13 +326,17 @@ function planTenders(rng: Rng, cast: Cast, options: ScaleOptions, now: number, d
     const start = rng.int(0, palette.length - pointCount);
     const points = palette.slice(start, start + pointCount).map((value, i) => ({ label: `Case ${String.fromCharCode(65 + i)}`, value }));
     const closesAt =
-      state === "draft" ? new Date(now + rng.int(30, 90) * DAY)
-      : state === "open" ? new Date(now + rng.int(3, 40) * DAY)
-      : state === "technical" ? new Date(now - rng.int(1, 20) * DAY - rng.int(0, 23) * HOUR)
-      : new Date(now - rng.int(25, 700) * DAY);
-    const invited = wide && options.wide
-      ? cast.vendors.slice(0, options.wide.offers)
-      : [...regular].sort(() => rng.next() - 0.5).slice(0, rng.int(Math.min(16, regular.length), Math.min(30, regular.length)));
+      state === "draft"
+        ? new Date(now + rng.int(30, 90) * DAY)
+        : state === "open"
+          ? new Date(now + rng.int(3, 40) * DAY)
+          : state === "technical"
+            ? new Date(now - rng.int(1, 20) * DAY - rng.int(0, 23) * HOUR)
+            : new Date(now - rng.int(25, 700) * DAY);
+    const invited =
+      wide && options.wide
+        ? cast.vendors.slice(0, options.wide.offers)
+        : [...regular].sort(() => rng.next() - 0.5).slice(0, rng.int(Math.min(16, regular.length), Math.min(30, regular.length)));
     const year = 2024 + Math.floor(index / 70);
     const asset = rng.pick(ASSETS);
     return {
@@ -306,15 +427,31 @@ async function makeCast(db: Db, rng: Rng, options: ScaleOptions): Promise<Cast> 
     for (const p of internal) {
       const name = person(serial++);
       const email = `${name.toLowerCase().replace(/[^a-z]+/g, ".")}@tarnwell.example`;
-      const user = await insertUser(tx, { name, email, password: DEMO_PASSWORD, organisationId: cast.buyerOrgId, roles: p.roles, approvalLimit: p.limit ?? null });
+      const user = await insertUser(tx, {
+        name,
+        email,
+        password: DEMO_PASSWORD,
+        organisationId: cast.buyerOrgId,
+        roles: p.roles,
+        approvalLimit: p.limit ?? null,
+      });
       await appendLedger(tx, { actor: adminActor, action: "user.created", subjectType: "User", subjectId: user.id, data: { email, roles: p.roles } });
       p.into.push({ id: user.id, name });
     }
     for (let i = cast.vendors.length; i < totalVendors; i++) {
       const stem = VENDOR_STEMS[i - 4] ?? `Vendor ${i}`;
       const orgName = `${stem} ${VENDOR_KINDS[i % VENDOR_KINDS.length]}`;
-      const [org] = await tx.insert(organisations).values({ name: orgName, kind: "vendor", country: rng.pick(COUNTRIES) }).returning();
-      await appendLedger(tx, { actor: adminActor, action: "organisation.created", subjectType: "Organisation", subjectId: org.id, data: { name: orgName, kind: "vendor" } });
+      const [org] = await tx
+        .insert(organisations)
+        .values({ name: orgName, kind: "vendor", country: rng.pick(COUNTRIES) })
+        .returning();
+      await appendLedger(tx, {
+        actor: adminActor,
+        action: "organisation.created",
+        subjectType: "Organisation",
+        subjectId: org.id,
+        data: { name: orgName, kind: "vendor" },
+      });
       const name = person(serial++);
       const email = `sales@${stem.toLowerCase().replace(/[^a-z]+/g, "")}.example`;
       const user = await insertUser(tx, { name, email, password: DEMO_PASSWORD, organisationId: org.id, roles: ["vendor"] });
@@ -322,7 +459,9 @@ async function makeCast(db: Db, rng: Rng, options: ScaleOptions): Promise<Cast> 
       cast.vendors.push({ orgId: org.id, user: { id: user.id, name } });
     }
   });
-  options.log(`people: ${cast.buyers.length} buyers, ${cast.engineers.length} engineers, ${cast.approvers.length} approvers, ${cast.vendors.length} vendor organisations`);
+  options.log(
+    `people: ${cast.buyers.length} buyers, ${cast.engineers.length} engineers, ${cast.approvers.length} approvers, ${cast.vendors.length} vendor organisations`,
+  );
   return cast;
 }
 
@@ -348,7 +487,14 @@ class Batch {
 async function declare(batch: Batch, tenderId: string, who: Person, at: Date) {
   const statement = "I have no financial, family or past employment ties to any vendor invited to this tender.";
   const [row] = await batch.tx.insert(declarations).values({ tenderId, userId: who.id, conflictedOrgIds: [], statement, createdAt: at }).returning();
-  batch.entries.push({ tenderId, actor: { id: who.id, label: who.name }, action: "declaration.made", subjectType: "Declaration", subjectId: row.id, data: { conflicts: [], statement } });
+  batch.entries.push({
+    tenderId,
+    actor: { id: who.id, label: who.name },
+    action: "declaration.made",
+    subjectType: "Declaration",
+    subjectId: row.id,
+    data: { conflicts: [], statement },
+  });
 }
 
 type ClaimRow = typeof claims.$inferSelect;
@@ -371,8 +517,22 @@ function mark(batch: Batch, claim: ClaimRow, vendorName: string, by: Person, kin
 async function labRun(batch: Batch, claim: ClaimRow, model: ChannelModel, by: Person, verify: boolean) {
   const rate = claim.value;
   const run = verify
-    ? { channelValue: claim.channelValue, unit: unitForMetric(claim.metric), trials: Math.ceil(4 / rate), errors: 0, confidence: 0.95, note: "Bench run at the stated condition." }
-    : { channelValue: claim.channelValue, unit: unitForMetric(claim.metric), trials: Math.ceil(10 / rate), errors: 100, confidence: 0.95, note: "Bench run at the stated condition: far more errors than claimed." };
+    ? {
+        channelValue: claim.channelValue,
+        unit: unitForMetric(claim.metric),
+        trials: Math.ceil(4 / rate),
+        errors: 0,
+        confidence: 0.95,
+        note: "Bench run at the stated condition.",
+      }
+    : {
+        channelValue: claim.channelValue,
+        unit: unitForMetric(claim.metric),
+        trials: Math.ceil(10 / rate),
+        errors: 100,
+        confidence: 0.95,
+        note: "Bench run at the stated condition: far more errors than claimed.",
+      };
   const assessed = assessRun({ ...claim, channelModel: model }, run);
   if (!assessed.ok) throw new Error(`scale seed: a lab run was refused: ${assessed.message}`);
   const stored = await insertEvidenceRun(batch.tx, claim, run, assessed, { userId: by.id, source: "manual" });
@@ -399,8 +559,17 @@ async function question(batch: Batch, claim: ClaimRow, asker: Viewer, vendor: Pe
   if (!answer) return;
   const body = "Fifty decoder iterations, measured over ten million frames at the stated condition.";
   // The answer comes after the question: its own timestamp, not the transaction's.
-  await tx.insert(threadMessages).values({ threadId: thread.id, authorId: vendor.id, authorLabel: `${vendor.name}`, body, createdAt: new Date(Date.now() + 1000) });
-  batch.entries.push({ tenderId: claim.tenderId, actor: { id: vendor.id, label: vendor.name }, action: "thread.message", subjectType: "Thread", subjectId: thread.id, data: { from: "vendor", length: body.length } });
+  await tx
+    .insert(threadMessages)
+    .values({ threadId: thread.id, authorId: vendor.id, authorLabel: `${vendor.name}`, body, createdAt: new Date(Date.now() + 1000) });
+  batch.entries.push({
+    tenderId: claim.tenderId,
+    actor: { id: vendor.id, label: vendor.name },
+    action: "thread.message",
+    subjectType: "Thread",
+    subjectId: thread.id,
+    data: { from: "vendor", length: body.length },
+  });
 }
 
 /**
@@ -435,7 +604,8 @@ async function buildTender(db: Db, rng: Rng, engine: EngineCache, cast: Cast, pl
       })
       .returning();
     const buyer = { id: plan.buyer.id, label: plan.buyer.name };
-    const entry = (action: string, data: Record<string, unknown>) => appendLedger(tx, { tenderId: row.id, actor: buyer, action, subjectType: "Tender", subjectId: row.id, data });
+    const entry = (action: string, data: Record<string, unknown>) =>
+      appendLedger(tx, { tenderId: row.id, actor: buyer, action, subjectType: "Tender", subjectId: row.id, data });
     await entry("tender.created", { reference: row.reference });
     if (plan.state === "draft") return row.id;
 
@@ -453,7 +623,14 @@ async function buildTender(db: Db, rng: Rng, engine: EngineCache, cast: Cast, pl
         if (!prepared.ok) throw new Error(`scale seed: an offer does not fit ${plan.reference}: ${JSON.stringify(prepared.fieldErrors)}`);
         const evaluated = prepared.claims.map((item) => evaluatedClaim(item, engine.evaluate(item.input)));
         const at = new Date(openedAt.getTime() + (i + 1) * HOUR + version * DAY);
-        await writeOfferVersion(tx, { tender, vendorOrgId: vendor.orgId, actor: { id: vendor.user.id, label: vendor.user.name }, input, claims: evaluated, at });
+        await writeOfferVersion(tx, {
+          tender,
+          vendorOrgId: vendor.orgId,
+          actor: { id: vendor.user.id, label: vendor.user.name },
+          input,
+          claims: evaluated,
+          at,
+        });
       }
     }
     if (plan.state === "open") return row.id;
@@ -537,7 +714,9 @@ async function buildTender(db: Db, rng: Rng, engine: EngineCache, cast: Cast, pl
   });
   const buyer = await as(plan.buyer);
   const comparison = await getComparison(buyer, tenderId);
-  const best = [...comparison.sheet.offers].filter((o) => !o.disqualified && !o.needsConversion && o.rank !== null).sort((a, b) => (a.rank ?? 0) - (b.rank ?? 0))[0];
+  const best = [...comparison.sheet.offers]
+    .filter((o) => !o.disqualified && !o.needsConversion && o.rank !== null)
+    .sort((a, b) => (a.rank ?? 0) - (b.rank ?? 0))[0];
   if (!best) return tenderId; // nobody to recommend: the tender stays in commercial evaluation
   const envelope = comparison.input.offers.find((o) => o.id === best.offerId)?.envelope;
   if (!envelope) throw new Error(`scale seed: no envelope for the best offer of ${plan.reference}`);
@@ -551,10 +730,12 @@ async function buildTender(db: Db, rng: Rng, engine: EngineCache, cast: Cast, pl
   if (plan.state === "approval") return tenderId;
   // Approvers by rising limit until the award is made; the app refuses anyone the band excludes.
   for (const a of [...cast.approvers].reverse()) {
-    const outcome = await decideRecommendation(await as(a), tenderId, { decision: "approve", comment: "Within budget and the evaluation is complete." }).catch((error: unknown) => {
-      if (error instanceof Error && /limit|band|already/i.test(error.message)) return null;
-      throw error;
-    });
+    const outcome = await decideRecommendation(await as(a), tenderId, { decision: "approve", comment: "Within budget and the evaluation is complete." }).catch(
+      (error: unknown) => {
+        if (error instanceof Error && /limit|band|already/i.test(error.message)) return null;
+        throw error;
+      },
+    );
     if (outcome?.kind === "awarded") break;
   }
   return tenderId;
@@ -573,7 +754,10 @@ export async function seedScale(partial: Partial<ScaleOptions> = {}): Promise<Sc
   await seedDemoData(db);
   // The demo's tenders are RC-2027-…; the workload's are numbered in 2026: anything else means a used database.
   const [{ n: existing }] = await db.select({ n: count() }).from(tenders).where(notLike(tenders.reference, "RC-2027-%"));
-  if (Number(existing) > 0) throw new Error(`The database holds ${existing} tenders besides the demo: the scale seed fills a fresh demo database. Stop the server, run npm run db:reset, then npm run seed:scale.`);
+  if (Number(existing) > 0)
+    throw new Error(
+      `The database holds ${existing} tenders besides the demo: the scale seed fills a fresh demo database. Stop the server, run npm run db:reset, then npm run seed:scale.`,
+    );
   const rng = prng(options.seed);
   const cast = await makeCast(db, rng, options);
   const now = Date.now();
@@ -591,7 +775,10 @@ export async function seedScale(partial: Partial<ScaleOptions> = {}): Promise<Sc
   const states = await db.select({ state: tenders.state, n: count() }).from(tenders).groupBy(tenders.state);
   const { evidenceRuns, ledgerEntries, userRoles } = await import("./schema");
   const vendorOrgs = await db.select({ n: count() }).from(organisations).where(eq(organisations.kind, "vendor"));
-  const people = await db.select({ n: count() }).from(users).where(inArray(users.id, db.select({ id: userRoles.userId }).from(userRoles)));
+  const people = await db
+    .select({ n: count() })
+    .from(users)
+    .where(inArray(users.id, db.select({ id: userRoles.userId }).from(userRoles)));
   return {
     tenders: states.reduce((s, r) => s + Number(r.n), 0),
     byState: Object.fromEntries(states.map((r) => [r.state, Number(r.n)])),

@@ -54,49 +54,58 @@ async function insertDemo(tx: Queryable) {
   const now = Date.now();
   const vendors = ["kestrelink", "marram", "oxbow", "quillfield"] as const;
 
-  const gauges = await insertTender(tx, buyer, vendors.map((v) => orgIds[v]), {
-    reference: "RC-2027-001",
-    title: "River-level gauge radios",
-    description:
-      "Sub-GHz telemetry radios for 4,000 river-level gauges. Hard-decision receivers; frames of at most 2,048 bits to keep latency low.",
-    channelModel: "bsc",
-    operatingPoints: [
-      { label: "Clear weather", value: 1e-3 },
-      { label: "Storm fade", value: 5e-3 },
-    ],
-    targetMetric: "bler",
-    targetValue: 1e-4,
-    maxFrameBits: 2048,
-    quantity: 4000,
-    currency: "EUR",
-    weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
-    impossibleRule: "disqualify",
-    openedAt: new Date(now - 30 * DAY),
-    closesAt: new Date(now - 2 * DAY),
-    closesZone: "Europe/London",
-    state: "technical",
-  });
+  const gauges = await insertTender(
+    tx,
+    buyer,
+    vendors.map((v) => orgIds[v]),
+    {
+      reference: "RC-2027-001",
+      title: "River-level gauge radios",
+      description: "Sub-GHz telemetry radios for 4,000 river-level gauges. Hard-decision receivers; frames of at most 2,048 bits to keep latency low.",
+      channelModel: "bsc",
+      operatingPoints: [
+        { label: "Clear weather", value: 1e-3 },
+        { label: "Storm fade", value: 5e-3 },
+      ],
+      targetMetric: "bler",
+      targetValue: 1e-4,
+      maxFrameBits: 2048,
+      quantity: 4000,
+      currency: "EUR",
+      weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
+      impossibleRule: "disqualify",
+      openedAt: new Date(now - 30 * DAY),
+      closesAt: new Date(now - 2 * DAY),
+      closesZone: "Europe/London",
+      state: "technical",
+    },
+  );
 
-  const weirs = await insertTender(tx, buyer, vendors.map((v) => orgIds[v]), {
-    reference: "RC-2027-003",
-    title: "Weir telemetry links",
-    description: "Radios for flow gauges at weirs that feed the flood warnings: hard-decision, longer frames allowed. Safety-relevant.",
-    channelModel: "bsc",
-    operatingPoints: [{ label: "Typical path", value: 2e-3 }],
-    targetMetric: "bler",
-    targetValue: 1e-5,
-    maxFrameBits: 8192,
-    quantity: 600,
-    currency: "EUR",
-    weights: { technical: 40, evidence: 10, price: 35, leadTime: 10, warranty: 5 },
-    impossibleRule: "penalty",
-    impossiblePenalty: 20,
-    safetyRelevant: true,
-    openedAt: new Date(now - 5 * DAY),
-    closesAt: new Date(now + 14 * DAY),
-    closesZone: "Europe/London",
-    state: "open",
-  });
+  const weirs = await insertTender(
+    tx,
+    buyer,
+    vendors.map((v) => orgIds[v]),
+    {
+      reference: "RC-2027-003",
+      title: "Weir telemetry links",
+      description: "Radios for flow gauges at weirs that feed the flood warnings: hard-decision, longer frames allowed. Safety-relevant.",
+      channelModel: "bsc",
+      operatingPoints: [{ label: "Typical path", value: 2e-3 }],
+      targetMetric: "bler",
+      targetValue: 1e-5,
+      maxFrameBits: 8192,
+      quantity: 600,
+      currency: "EUR",
+      weights: { technical: 40, evidence: 10, price: 35, leadTime: 10, warranty: 5 },
+      impossibleRule: "penalty",
+      impossiblePenalty: 20,
+      safetyRelevant: true,
+      openedAt: new Date(now - 5 * DAY),
+      closesAt: new Date(now + 14 * DAY),
+      closesZone: "Europe/London",
+      state: "open",
+    },
+  );
 
   const rain = await insertTender(tx, buyer, [orgIds.oxbow, orgIds.quillfield], {
     reference: "RC-2027-002",
@@ -120,26 +129,31 @@ async function insertDemo(tx: Queryable) {
     state: "draft",
   });
 
-  const gateways = await insertTender(tx, buyer, vendors.map((v) => orgIds[v]), {
-    reference: "RC-2027-004",
-    title: "Flood-warning gateway receivers",
-    description:
-      "Receivers for the valley gateways that collect flood-warning packets from the gauges: 160-bit packets at 1,200 bit/s, stated as the input level each receiver needs.",
-    channelModel: "biawgn",
-    operatingPoints: [{ label: "Valley gateway", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }],
-    targetMetric: "bler",
-    targetValue: 1e-2,
-    maxFrameBits: null,
-    assumedNoiseFigureDb: 6,
-    quantity: 40,
-    currency: "EUR",
-    weights: { technical: 45, evidence: 10, price: 30, leadTime: 10, warranty: 5 },
-    impossibleRule: "disqualify",
-    openedAt: new Date(now - 3 * DAY),
-    closesAt: new Date(now + 20 * DAY),
-    closesZone: "Europe/London",
-    state: "open",
-  });
+  const gateways = await insertTender(
+    tx,
+    buyer,
+    vendors.map((v) => orgIds[v]),
+    {
+      reference: "RC-2027-004",
+      title: "Flood-warning gateway receivers",
+      description:
+        "Receivers for the valley gateways that collect flood-warning packets from the gauges: 160-bit packets at 1,200 bit/s, stated as the input level each receiver needs.",
+      channelModel: "biawgn",
+      operatingPoints: [{ label: "Valley gateway", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }],
+      targetMetric: "bler",
+      targetValue: 1e-2,
+      maxFrameBits: null,
+      assumedNoiseFigureDb: 6,
+      quantity: 40,
+      currency: "EUR",
+      weights: { technical: 45, evidence: 10, price: 30, leadTime: 10, warranty: 5 },
+      impossibleRule: "disqualify",
+      openedAt: new Date(now - 3 * DAY),
+      closesAt: new Date(now + 20 * DAY),
+      closesZone: "Europe/London",
+      state: "open",
+    },
+  );
 
   const ctx: DemoContext = { orgIds, userIds, tenderIds: { gauges, weirs, rain, gateways }, now };
   await seedDemoOffers(tx, ctx);
@@ -154,7 +168,10 @@ type TenderValues = Omit<typeof tenders.$inferInsert, "createdBy">;
 
 /** A demo tender with its invitations and the ledger entries its state implies. */
 async function insertTender(tx: Queryable, buyer: { id: string; label: string }, invited: string[], values: TenderValues) {
-  const [row] = await tx.insert(tenders).values({ ...values, createdBy: buyer.id }).returning();
+  const [row] = await tx
+    .insert(tenders)
+    .values({ ...values, createdBy: buyer.id })
+    .returning();
   await tx.insert(tenderInvitations).values(invited.map((organisationId) => ({ tenderId: row.id, organisationId })));
   const entry = (action: string, data: Record<string, unknown> = {}) =>
     appendLedger(tx, { tenderId: row.id, actor: buyer, action, subjectType: "Tender", subjectId: row.id, data });

@@ -4,8 +4,7 @@ import path from "node:path";
 import { z } from "zod";
 
 /** An unset variable and an empty one mean the same: not configured. */
-const optional = <T extends z.ZodType>(schema: T) =>
-  z.preprocess((value) => (value === "" ? undefined : value), schema.optional());
+const optional = <T extends z.ZodType>(schema: T) => z.preprocess((value) => (value === "" ? undefined : value), schema.optional());
 
 const flag = optional(z.enum(["0", "1", "true", "false"])).transform((v) => v === "1" || v === "true");
 

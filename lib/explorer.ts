@@ -45,8 +45,7 @@ export interface BoundCharts {
   vendorCurve: VendorCurvePoint[];
 }
 
-const channelOf = (model: ChannelModel, x: number) =>
-  model === "bsc" ? { model, p: x } : model === "bec" ? { model, e: x } : { model, ebn0Db: x };
+const channelOf = (model: ChannelModel, x: number) => (model === "bsc" ? { model, p: x } : model === "bec" ? { model, e: x } : { model, ebn0Db: x });
 
 /** The waterfall of the bounds, widened where needed so that the claim's own channel (and any vendor curve) is on the chart. */
 function channelCurveAround(view: BoundView): ChannelCurvePoint[] {
@@ -98,10 +97,12 @@ export function boundViewOfResult(result: ClaimResult): BoundView | null {
   const k = result.k == null ? null : Math.round(result.k);
   if (n == null || k == null || k < 1 || k > n || n < 2) return null;
   const x =
-    channel.model === "bsc" ? channel.p
-    : channel.model === "bec" ? channel.e
-    : channel.ebn0Db ?? (channel.esn0Db == null ? undefined : channel.esn0Db - 10 * Math.log10(k / n));
-  if (x == null || !Number.isFinite(x) || x <= 0 && channel.model !== "biawgn") return null;
+    channel.model === "bsc"
+      ? channel.p
+      : channel.model === "bec"
+        ? channel.e
+        : (channel.ebn0Db ?? (channel.esn0Db == null ? undefined : channel.esn0Db - 10 * Math.log10(k / n)));
+  if (x == null || !Number.isFinite(x) || (x <= 0 && channel.model !== "biawgn")) return null;
   return { model: channel.model, x, n, k, target: Math.min(target.value, 0.49) };
 }
 

@@ -28,10 +28,10 @@ export function parseCount(raw: string): number | null {
 const blank = (v: unknown) => v === "" || v === null || v === undefined;
 
 /** For react-hook-form's setValueAs: a decimal field, undefined when left empty (the schema says it is required). */
-export const formDecimal = (v: unknown): number | undefined => (blank(v) ? undefined : typeof v === "number" ? v : parseDecimal(String(v)) ?? undefined);
+export const formDecimal = (v: unknown): number | undefined => (blank(v) ? undefined : typeof v === "number" ? v : (parseDecimal(String(v)) ?? undefined));
 /** A decimal field that may stay empty (null). */
 export const formOptionalDecimal = (v: unknown): number | null => (blank(v) ? null : typeof v === "number" ? v : parseDecimal(String(v)));
 /** A count field, undefined when left empty. */
-export const formCount = (v: unknown): number | undefined => (blank(v) ? undefined : typeof v === "number" ? v : parseCount(String(v)) ?? undefined);
+export const formCount = (v: unknown): number | undefined => (blank(v) ? undefined : typeof v === "number" ? v : (parseCount(String(v)) ?? undefined));
 /** A count field that may stay empty (null). */
 export const formOptionalCount = (v: unknown): number | null => (blank(v) ? null : typeof v === "number" ? v : parseCount(String(v)));

@@ -42,9 +42,7 @@ export function tenderAccess(declarations: readonly Declared[]): TenderAccess {
   return {
     declared,
     clean: declared.filter((tenderId) => conflicts.get(tenderId)!.size === 0),
-    conflicts: new Map(
-      [...conflicts].filter(([, orgs]) => orgs.size > 0).map(([tenderId, orgs]) => [tenderId, [...orgs]]),
-    ),
+    conflicts: new Map([...conflicts].filter(([, orgs]) => orgs.size > 0).map(([tenderId, orgs]) => [tenderId, [...orgs]])),
   };
 }
 

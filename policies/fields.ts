@@ -13,24 +13,12 @@ export function asSubject<S extends SubjectType>(type: S, record: SubjectRecords
 }
 
 /** ability.can for a subject type (what the client uses to hide controls) or one record. */
-export function allows<S extends SubjectType>(
-  ability: AppAbility,
-  action: Action,
-  type: S,
-  record?: SubjectRecords[S],
-  field?: string,
-): boolean {
+export function allows<S extends SubjectType>(ability: AppAbility, action: Action, type: S, record?: SubjectRecords[S], field?: string): boolean {
   return ability.can(action, record === undefined ? type : asSubject(type, record), field);
 }
 
 /** Throws CASL's ForbiddenError (with the rule's reason, if any) unless allowed. */
-export function assertAllowed<S extends SubjectType>(
-  ability: AppAbility,
-  action: Action,
-  type: S,
-  record?: SubjectRecords[S],
-  field?: string,
-): void {
+export function assertAllowed<S extends SubjectType>(ability: AppAbility, action: Action, type: S, record?: SubjectRecords[S], field?: string): void {
   const target = record === undefined ? type : asSubject(type, record);
   ForbiddenError.from(ability).throwUnlessCan(action, target, field);
 }
@@ -55,12 +43,7 @@ export function permittedFields<S extends SubjectType, R extends SubjectRecords[
  * The record with only the permitted fields, to strip a response before it leaves the server.
  * A record the ability does not reach at all comes back empty: authorise it first.
  */
-export function pickPermitted<S extends SubjectType, R extends SubjectRecords[S]>(
-  ability: AppAbility,
-  action: Action,
-  type: S,
-  record: R,
-): Partial<R> {
+export function pickPermitted<S extends SubjectType, R extends SubjectRecords[S]>(ability: AppAbility, action: Action, type: S, record: R): Partial<R> {
   const picked: Partial<R> = {};
   for (const field of permittedFields(ability, action, type, record)) picked[field] = record[field];
   return picked;

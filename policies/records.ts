@@ -7,10 +7,18 @@ import type { EnvelopeField, OrganisationKind, RecordTenderState, SubjectType, T
  */
 export type EnvelopeValues = { [F in EnvelopeField]?: unknown };
 
-export interface OrganisationRecord { id: string; kind: OrganisationKind }
-export interface UserRecord { id: string; organisationId: string }
+export interface OrganisationRecord {
+  id: string;
+  kind: OrganisationKind;
+}
+export interface UserRecord {
+  id: string;
+  organisationId: string;
+}
 export type ApprovalLimitRecord = object;
-export interface LedgerRecord { tenderId: string }
+export interface LedgerRecord {
+  tenderId: string;
+}
 
 export interface TenderRecord {
   id: string;
@@ -42,7 +50,13 @@ export interface EnvelopeRecord extends EnvelopeValues {
  * The records of a vendor's offer other than the Offer itself carry their tender's state where it
  * is known: the buying side reads none of them while the tender is draft or open (sealed).
  */
-export interface ClaimRecord { id: string; offerId: string; tenderId: string; vendorOrgId: string; tenderState?: RecordTenderState }
+export interface ClaimRecord {
+  id: string;
+  offerId: string;
+  tenderId: string;
+  vendorOrgId: string;
+  tenderState?: RecordTenderState;
+}
 
 export interface DocumentRecord {
   id: string;
@@ -53,14 +67,40 @@ export interface DocumentRecord {
   tenderState?: RecordTenderState;
 }
 
-export interface MarkRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: RecordTenderState }
+export interface MarkRecord {
+  claimId: string;
+  tenderId: string;
+  vendorOrgId: string;
+  tenderState?: RecordTenderState;
+}
 /** A clarification thread between engineers and one vendor; its messages share its access. */
-export interface ThreadRecord { id: string; tenderId: string; vendorOrgId: string; tenderState?: RecordTenderState }
-export interface EvidenceRunRecord { claimId: string; tenderId: string; vendorOrgId: string; tenderState?: RecordTenderState }
-export interface DeclarationRecord { tenderId: string; userId: string }
-export interface TechnicalSignoffRecord { tenderId: string }
-export interface ScoreRecord { tenderId: string }
-export interface RecommendationRecord { tenderId: string; preparedBy: string; value: number }
+export interface ThreadRecord {
+  id: string;
+  tenderId: string;
+  vendorOrgId: string;
+  tenderState?: RecordTenderState;
+}
+export interface EvidenceRunRecord {
+  claimId: string;
+  tenderId: string;
+  vendorOrgId: string;
+  tenderState?: RecordTenderState;
+}
+export interface DeclarationRecord {
+  tenderId: string;
+  userId: string;
+}
+export interface TechnicalSignoffRecord {
+  tenderId: string;
+}
+export interface ScoreRecord {
+  tenderId: string;
+}
+export interface RecommendationRecord {
+  tenderId: string;
+  preparedBy: string;
+  value: number;
+}
 
 export interface ApprovalRecord {
   tenderId: string;
@@ -70,15 +110,23 @@ export interface ApprovalRecord {
   tenderCreatedBy: string;
 }
 
-export interface MemoRecord { tenderId: string }
+export interface MemoRecord {
+  tenderId: string;
+}
 export type MemoCheckRecord = object;
 export type MailroomRecord = object;
 export type BoundsRecord = object;
 export type BackupRecord = object;
 /** A vendor's written objection to an award, during the standstill period. */
-export interface ObjectionRecord { tenderId: string; vendorOrgId: string }
+export interface ObjectionRecord {
+  tenderId: string;
+  vendorOrgId: string;
+}
 /** A clarification published to every invited vendor of a tender, without the asker's name. */
-export interface AddendumRecord { tenderId: string; invitedOrgIds: string[] }
+export interface AddendumRecord {
+  tenderId: string;
+  invitedOrgIds: string[];
+}
 
 export interface SubjectRecords {
   Organisation: OrganisationRecord;

@@ -67,15 +67,7 @@ export const SUBJECTS = [
 ] as const;
 export type SubjectType = (typeof SUBJECTS)[number];
 
-export const TENDER_STATES = [
-  "draft",
-  "open",
-  "technical",
-  "commercial",
-  "approval",
-  "awarded",
-  "cancelled",
-] as const;
+export const TENDER_STATES = ["draft", "open", "technical", "commercial", "approval", "awarded", "cancelled"] as const;
 export type TenderState = (typeof TENDER_STATES)[number];
 
 /**
@@ -116,11 +108,5 @@ export const CANCELLABLE_STATES = ["draft", "open", "technical", "commercial", "
  * The sealed commercial envelope. These names are the fields of the Envelope subject and,
  * when an Offer carries its envelope embedded, of the Offer subject too.
  */
-export const ENVELOPE_FIELDS = [
-  "unitPrice",
-  "currency",
-  "leadTimeWeeks",
-  "warrantyMonths",
-  "priceBreaks",
-] as const;
+export const ENVELOPE_FIELDS = ["unitPrice", "currency", "leadTimeWeeks", "warrantyMonths", "priceBreaks"] as const;
 export type EnvelopeField = (typeof ENVELOPE_FIELDS)[number];

@@ -24,7 +24,9 @@ export default async function SignedInLayout({ children }: { children: React.Rea
               </div>
             </div>
             <form action={signOutAction}>
-              <button type="submit" className="btn-quiet">Sign out</button>
+              <button type="submit" className="btn-quiet">
+                Sign out
+              </button>
             </form>
           </CompactMenu>
         </div>

@@ -67,12 +67,20 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
   const vendorGroups = [...new Set(shown.map((p) => p.verdict))].map((verdict) => ({
     verdict,
     mark: markOf(verdict),
-    points: shown.filter((p) => p.verdict === verdict).map((p): Point => ({ x: p.ebn0Db, y: Math.log10(p.value), title: `vendor: ${METRIC[p.metric]} ${formatSci(p.value)} at ${p.ebn0Db} dB, ${markOf(p.verdict).words}` })),
+    points: shown
+      .filter((p) => p.verdict === verdict)
+      .map((p): Point => ({
+        x: p.ebn0Db,
+        y: Math.log10(p.value),
+        title: `vendor: ${METRIC[p.metric]} ${formatSci(p.value)} at ${p.ebn0Db} dB, ${markOf(p.verdict).words}`,
+      })),
   }));
 
   const entries: KeyEntry[] = [
     { name: soft ? "least possible BLER (1959 sphere packing)" : "least possible BLER (converse)", colour: COLOURS.converse },
-    ...(soft ? [{ name: `least possible BLER for k = ${view.k} bits, any bandwidth (energy limit)`, colour: COLOURS.energy, dash: "8 3 2 3" }] : [{ name: "random-coding BLER (achievable)", colour: COLOURS.achievable, dash: "6 3" }]),
+    ...(soft
+      ? [{ name: `least possible BLER for k = ${view.k} bits, any bandwidth (energy limit)`, colour: COLOURS.energy, dash: "8 3 2 3" }]
+      : [{ name: "random-coding BLER (achievable)", colour: COLOURS.achievable, dash: "6 3" }]),
     { name: "normal approximation", colour: COLOURS.normal, dash: "2 3", width: 1.5 },
     ...(thresholds.length > 0 ? [{ name: "thin dashed lines: where each limit allows the claimed BLER", colour: INK.axis, dash: "3 3", width: 1 }] : []),
     ...(claim.length > 0 ? [{ name: "this claim", colour: COLOURS.claim, marker: "square" as const }] : []),
@@ -85,16 +93,49 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
       <ResponsiveContainer width="100%" height="100%">
         <ComposedChart data={channel} margin={{ top: 8 + thresholds.length * LABEL_ROW, right: 12, bottom: 4, left: 0 }}>
           <CartesianGrid stroke={INK.grid} />
-          <XAxis dataKey="x" type="number" scale={logX ? "log" : "linear"} domain={[xMin, xMax]} ticks={ticks} tickFormatter={fmtX} allowDataOverflow {...AXIS} />
+          <XAxis
+            dataKey="x"
+            type="number"
+            scale={logX ? "log" : "linear"}
+            domain={[xMin, xMax]}
+            ticks={ticks}
+            tickFormatter={fmtX}
+            allowDataOverflow
+            {...AXIS}
+          />
           <YAxis width={52} domain={[(min: number) => Math.max(Math.floor(min), -30), 0]} tickFormatter={pow10} allowDataOverflow {...AXIS} />
           <Tooltip formatter={(v) => (typeof v === "number" ? pow10(v) : String(v))} labelFormatter={(v) => fmtX(Number(v))} />
           <Line dataKey="converse" name={entries[0].name} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
           {soft ? (
-            <Line dataKey="energy" name="energy limit" stroke={COLOURS.energy} dot={false} strokeWidth={2} strokeDasharray="8 3 2 3" isAnimationActive={false} />
+            <Line
+              dataKey="energy"
+              name="energy limit"
+              stroke={COLOURS.energy}
+              dot={false}
+              strokeWidth={2}
+              strokeDasharray="8 3 2 3"
+              isAnimationActive={false}
+            />
           ) : (
-            <Line dataKey="achievable" name="random-coding BLER" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />
+            <Line
+              dataKey="achievable"
+              name="random-coding BLER"
+              stroke={COLOURS.achievable}
+              dot={false}
+              strokeWidth={2}
+              strokeDasharray="6 3"
+              isAnimationActive={false}
+            />
           )}
-          <Line dataKey="normal" name="normal approximation" stroke={COLOURS.normal} dot={false} strokeWidth={1.5} strokeDasharray="2 3" isAnimationActive={false} />
+          <Line
+            dataKey="normal"
+            name="normal approximation"
+            stroke={COLOURS.normal}
+            dot={false}
+            strokeWidth={1.5}
+            strokeDasharray="2 3"
+            isAnimationActive={false}
+          />
           {thresholds.map((t, i) => (
             <ReferenceLine
               key={t.key}
@@ -106,7 +147,14 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
           ))}
           {labRuns.length > 0 ? <Scatter data={labRuns} dataKey="y" name="lab run" shape={shapeFn("ring", COLOURS.run, 4)} isAnimationActive={false} /> : null}
           {vendorGroups.map((g) => (
-            <Scatter key={g.verdict} data={g.points} dataKey="y" name={`vendor: ${g.mark.words}`} shape={shapeFn(g.mark.shape, g.mark.colour)} isAnimationActive={false} />
+            <Scatter
+              key={g.verdict}
+              data={g.points}
+              dataKey="y"
+              name={`vendor: ${g.mark.words}`}
+              shape={shapeFn(g.mark.shape, g.mark.colour)}
+              isAnimationActive={false}
+            />
           ))}
           {claim.length > 0 ? <Scatter data={claim} dataKey="y" name="claim" shape={shapeFn("square", COLOURS.claim)} isAnimationActive={false} /> : null}
         </ComposedChart>
@@ -137,8 +185,26 @@ export function RateChart({ charts }: { charts: BoundCharts }) {
           <Tooltip formatter={(v) => (typeof v === "number" ? v.toFixed(4) : String(v))} labelFormatter={(v) => `n = ${Number(v).toLocaleString("en-GB")}`} />
           <Line dataKey="capacity" name="capacity" stroke={COLOURS.capacity} dot={false} strokeWidth={1.5} isAnimationActive={false} />
           <Line dataKey="converseRate" name={entries[1].name} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
-          {soft ? null : <Line dataKey="achievableRate" name="rate guaranteed" stroke={COLOURS.achievable} dot={false} strokeWidth={2} strokeDasharray="6 3" isAnimationActive={false} />}
-          <Line dataKey="normalRate" name="normal approximation" stroke={COLOURS.normal} dot={false} strokeWidth={1.5} strokeDasharray="2 3" isAnimationActive={false} />
+          {soft ? null : (
+            <Line
+              dataKey="achievableRate"
+              name="rate guaranteed"
+              stroke={COLOURS.achievable}
+              dot={false}
+              strokeWidth={2}
+              strokeDasharray="6 3"
+              isAnimationActive={false}
+            />
+          )}
+          <Line
+            dataKey="normalRate"
+            name="normal approximation"
+            stroke={COLOURS.normal}
+            dot={false}
+            strokeWidth={1.5}
+            strokeDasharray="2 3"
+            isAnimationActive={false}
+          />
           <Scatter data={claim} dataKey="y" name="claim" shape={shapeFn("square", COLOURS.claim)} isAnimationActive={false} />
         </ComposedChart>
       </ResponsiveContainer>

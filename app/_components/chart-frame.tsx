@@ -10,7 +10,21 @@ export const INK = { grid: "#e4e8ee", axis: "#5b6678", text: "#4a5568" };
 export type MarkerShape = "cross" | "diamond" | "disc" | "ring" | "square";
 
 /** A marker drawn at (cx, cy); recharts calls shape functions with those props. */
-export function Marker({ cx = 0, cy = 0, shape, colour, size = 5, title }: { cx?: number; cy?: number; shape: MarkerShape; colour: string; size?: number; title?: string }) {
+export function Marker({
+  cx = 0,
+  cy = 0,
+  shape,
+  colour,
+  size = 5,
+  title,
+}: {
+  cx?: number;
+  cy?: number;
+  shape: MarkerShape;
+  colour: string;
+  size?: number;
+  title?: string;
+}) {
   const s = size;
   const body =
     shape === "cross" ? (
@@ -52,7 +66,19 @@ export const LABEL_ROW = 14;
  * The label of a vertical marker line, on its own row above the plot (recharts passes the line's
  * viewBox). Anchored towards the middle of the plot so it never runs off either edge.
  */
-export function LineTag({ viewBox, row, text, colour, anchorEnd }: { viewBox?: { x: number; y: number }; row: number; text: string; colour: string; anchorEnd: boolean }) {
+export function LineTag({
+  viewBox,
+  row,
+  text,
+  colour,
+  anchorEnd,
+}: {
+  viewBox?: { x: number; y: number };
+  row: number;
+  text: string;
+  colour: string;
+  anchorEnd: boolean;
+}) {
   if (!viewBox) return null;
   return (
     <text
@@ -69,12 +95,28 @@ export function LineTag({ viewBox, row, text, colour, anchorEnd }: { viewBox?: {
 }
 
 /** The frame: y title above the plot, x title below it, then the key, all outside the drawing. */
-export function ChartFrame({ label, xTitle, yTitle, entries, children }: { label: string; xTitle: string; yTitle: string; entries: KeyEntry[]; children: ReactNode }) {
+export function ChartFrame({
+  label,
+  xTitle,
+  yTitle,
+  entries,
+  children,
+}: {
+  label: string;
+  xTitle: string;
+  yTitle: string;
+  entries: KeyEntry[];
+  children: ReactNode;
+}) {
   return (
     <figure aria-label={label} className="w-full min-w-0 space-y-1">
-      <div data-chart-part="y-title" className="text-xs font-medium tracking-wide text-ink-soft">{yTitle}</div>
+      <div data-chart-part="y-title" className="text-xs font-medium tracking-wide text-ink-soft">
+        {yTitle}
+      </div>
       <div className="h-72 w-full min-w-0">{children}</div>
-      <div data-chart-part="x-title" className="text-center text-xs font-medium tracking-wide text-ink-soft">{xTitle}</div>
+      <div data-chart-part="x-title" className="text-center text-xs font-medium tracking-wide text-ink-soft">
+        {xTitle}
+      </div>
       <ul data-chart-part="legend" aria-label="Key" className="flex flex-wrap gap-x-4 gap-y-1 border-t border-ink-faint/20 pt-2 text-xs text-ink">
         {entries.map((e) => (
           <li key={e.name} className="flex items-center gap-1.5">

@@ -6,7 +6,8 @@ const fromLog10 = (l: number | null | undefined) => (l == null ? "–" : l < -30
 const rate = (x: number | null | undefined) => (x == null ? "–" : `${x.toFixed(4)} bits per channel use`);
 const channelValue = (x: number | null, unit: ClaimResult["thresholds"]["unit"]) =>
   x == null ? "–" : unit === "p" ? `p = ${formatSci(x)}` : unit === "e" ? `e = ${formatSci(x)}` : `${unit === "ebn0Db" ? "Eb/N0" : "Es/N0"} ${x.toFixed(2)} dB`;
-const margin = (x: number | null, kind: "ratio" | "dB") => (x == null ? "–" : kind === "dB" ? `${x >= 0 ? "+" : ""}${x.toFixed(2)} dB` : `× ${x.toPrecision(3)}`);
+const margin = (x: number | null, kind: "ratio" | "dB") =>
+  x == null ? "–" : kind === "dB" ? `${x >= 0 ? "+" : ""}${x.toFixed(2)} dB` : `× ${x.toPrecision(3)}`;
 
 function parse(result: unknown): ClaimResult | null {
   const parsed = claimResultSchema.safeParse(result);
@@ -23,10 +24,16 @@ export function ClaimFindings({ result }: { result: unknown }) {
   return (
     <section className="panel" aria-label="Findings">
       <h2>Findings</h2>
-      {!r ? <p className="text-sm text-ink-soft">The stored result could not be read; re-evaluate the claim.</p> : (
+      {!r ? (
+        <p className="text-sm text-ink-soft">The stored result could not be read; re-evaluate the claim.</p>
+      ) : (
         <ul className="mt-2 space-y-2 text-sm">
           {r.findings.map((f) => (
-            <li key={f.code} data-severity={f.severity} className={f.severity === "violation" ? "text-verdict-impossible" : f.severity === "gap" ? "text-verdict-evidence" : ""}>
+            <li
+              key={f.code}
+              data-severity={f.severity}
+              className={f.severity === "violation" ? "text-verdict-impossible" : f.severity === "gap" ? "text-verdict-evidence" : ""}
+            >
               {f.message} <span className="block text-xs text-ink-soft">{f.source}</span>
             </li>
           ))}
@@ -49,7 +56,12 @@ export function ClaimNumbers({ result }: { result: unknown }) {
     ["Least possible BLER (converse)", r.converse ? `${fromLog10(r.converse.log10Bler)} (log10 ${r.converse.log10Bler.toFixed(2)})` : "–"],
     ["BLER a random code guarantees (achievability)", r.achievable ? `${fromLog10(r.achievable.log10Bler)} (log10 ${r.achievable.log10Bler.toFixed(2)})` : "–"],
     ["Normal approximation", r.normal ? `BLER ${fromLog10(r.normal.log10Bler)}; best rate ${r.normal.rate.toFixed(4)} bits per channel use` : "–"],
-    ["Rate gap to the normal approximation", r.margins.rateGapBits == null ? "–" : `${r.margins.rateGapBits.toFixed(4)} bits per channel use (${((r.margins.rateGapFraction ?? 0) * 100).toFixed(2)} %)`],
+    [
+      "Rate gap to the normal approximation",
+      r.margins.rateGapBits == null
+        ? "–"
+        : `${r.margins.rateGapBits.toFixed(4)} bits per channel use (${((r.margins.rateGapFraction ?? 0) * 100).toFixed(2)} %)`,
+    ],
   ];
   const thresholds: [string, number | null, number | null][] = [
     ["Capacity equals the rate", t.capacity, r.margins.channel.capacity],
@@ -62,17 +74,36 @@ export function ClaimNumbers({ result }: { result: unknown }) {
     <section className="panel space-y-3" aria-label="Numbers">
       <h2>The numbers</h2>
       <table className="data-table">
-        <tbody>{rows.map(([k, v]) => <tr key={k}><th scope="row">{k}</th><td className="tabular-nums">{v}</td></tr>)}</tbody>
-      </table>
-      <table className="data-table" aria-label="Channel thresholds">
-        <thead><tr><th>Threshold</th><th>Channel</th><th>Margin against the claimed channel</th></tr></thead>
         <tbody>
-          {thresholds.map(([k, v, m]) => (
-            <tr key={k}><td>{k}</td><td className="tabular-nums">{channelValue(v, t.unit)}</td><td className="tabular-nums">{margin(m, kind)}</td></tr>
+          {rows.map(([k, v]) => (
+            <tr key={k}>
+              <th scope="row">{k}</th>
+              <td className="tabular-nums">{v}</td>
+            </tr>
           ))}
         </tbody>
       </table>
-      <p className="text-xs text-ink-soft">{kind === "dB" ? "Margins in dB: threshold minus claimed Eb/N0." : "Margins as ratios: threshold over the claimed channel value (above 1 leaves room)."}</p>
+      <table className="data-table" aria-label="Channel thresholds">
+        <thead>
+          <tr>
+            <th>Threshold</th>
+            <th>Channel</th>
+            <th>Margin against the claimed channel</th>
+          </tr>
+        </thead>
+        <tbody>
+          {thresholds.map(([k, v, m]) => (
+            <tr key={k}>
+              <td>{k}</td>
+              <td className="tabular-nums">{channelValue(v, t.unit)}</td>
+              <td className="tabular-nums">{margin(m, kind)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="text-xs text-ink-soft">
+        {kind === "dB" ? "Margins in dB: threshold minus claimed Eb/N0." : "Margins as ratios: threshold over the claimed channel value (above 1 leaves room)."}
+      </p>
     </section>
   );
 }

@@ -37,8 +37,12 @@ export function useConfirm(): { ask: (request: ConfirmRequest, run: () => void) 
           <h2 id="confirm-title">{request.title}</h2>
           <div className="text-sm">{request.consequences}</div>
           <div className="flex justify-end gap-2">
-            <button type="button" className="btn-quiet" onClick={close}>Go back</button>
-            <button type="button" className="btn" onClick={confirm}>{request.action}</button>
+            <button type="button" className="btn-quiet" onClick={close}>
+              Go back
+            </button>
+            <button type="button" className="btn" onClick={confirm}>
+              {request.action}
+            </button>
           </div>
         </div>
       ) : null}

@@ -68,7 +68,11 @@ const subscribe = (change: () => void) => {
 };
 /** True below the md breakpoint; false on the server, so the first paint matches the server's. */
 function useNarrow() {
-  return useSyncExternalStore(subscribe, () => window.matchMedia(PHONE).matches, () => false);
+  return useSyncExternalStore(
+    subscribe,
+    () => window.matchMedia(PHONE).matches,
+    () => false,
+  );
 }
 
 function unpin<T>(defs: (ColDef<T> | ColGroupDef<T>)[]): (ColDef<T> | ColGroupDef<T>)[] {

@@ -9,8 +9,14 @@ export function FilterForm({ action, label, filtered, children }: { action: stri
   return (
     <form method="get" action={action} className="flex flex-wrap items-end gap-3" aria-label={label}>
       {children}
-      <button type="submit" className="btn-quiet">Show</button>
-      {filtered ? <Link href={action} className="text-sm">Clear the filters</Link> : null}
+      <button type="submit" className="btn-quiet">
+        Show
+      </button>
+      {filtered ? (
+        <Link href={action} className="text-sm">
+          Clear the filters
+        </Link>
+      ) : null}
     </form>
   );
 }
@@ -18,20 +24,42 @@ export function FilterForm({ action, label, filtered, children }: { action: stri
 export function FilterText({ id, name, label, value, maxLength = 200 }: { id: string; name: string; label: string; value?: string; maxLength?: number }) {
   return (
     <div>
-      <label className="label" htmlFor={id}>{label}</label>
+      <label className="label" htmlFor={id}>
+        {label}
+      </label>
       <input id={id} name={name} className="field w-56" defaultValue={value ?? ""} maxLength={maxLength} />
     </div>
   );
 }
 
 /** A choice among options, the first being "any" (no filter). */
-export function FilterSelect({ id, name, label, value, any, options }: { id: string; name: string; label: string; value?: string; any: string; options: [string, string][] }) {
+export function FilterSelect({
+  id,
+  name,
+  label,
+  value,
+  any,
+  options,
+}: {
+  id: string;
+  name: string;
+  label: string;
+  value?: string;
+  any: string;
+  options: [string, string][];
+}) {
   return (
     <div>
-      <label className="label" htmlFor={id}>{label}</label>
+      <label className="label" htmlFor={id}>
+        {label}
+      </label>
       <select id={id} name={name} className="field" defaultValue={value ?? ""}>
         <option value="">{any}</option>
-        {options.map(([v, text]) => <option key={v} value={v}>{text}</option>)}
+        {options.map(([v, text]) => (
+          <option key={v} value={v}>
+            {text}
+          </option>
+        ))}
       </select>
     </div>
   );

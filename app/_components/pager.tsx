@@ -24,9 +24,21 @@ export function Pager({ info, href, noun }: { info: PageInfo; href: (page: numbe
           : `${first.toLocaleString("en-GB")}–${last.toLocaleString("en-GB")} of ${info.total.toLocaleString("en-GB")} ${info.total === 1 ? noun[0] : noun[1]}`}
         {info.pages > 1 ? ` · page ${info.page} of ${info.pages}` : ""}
       </span>
-      {info.page > 1 ? <Link href={href(1)} aria-label="First page">First</Link> : null}
-      {info.page > 1 ? <Link href={href(info.page - 1)} rel="prev">Previous page</Link> : null}
-      {info.hasMore ? <Link href={href(info.page + 1)} rel="next">Next page</Link> : null}
+      {info.page > 1 ? (
+        <Link href={href(1)} aria-label="First page">
+          First
+        </Link>
+      ) : null}
+      {info.page > 1 ? (
+        <Link href={href(info.page - 1)} rel="prev">
+          Previous page
+        </Link>
+      ) : null}
+      {info.hasMore ? (
+        <Link href={href(info.page + 1)} rel="next">
+          Next page
+        </Link>
+      ) : null}
     </nav>
   );
 }

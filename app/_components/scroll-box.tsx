@@ -4,8 +4,13 @@
  */
 export function ScrollBox({ label, className = "", children }: { label: string; className?: string; children: React.ReactNode }) {
   return (
-    // oxlint-disable-next-line jsx-a11y/no-noninteractive-tabindex -- a scrolling region must take focus to scroll by keyboard
-    <div role="region" aria-label={label} tabIndex={0} className={`relative max-w-full overflow-x-auto rounded focus-visible:outline-2 focus-visible:outline-accent ${className}`}>
+    <div
+      role="region"
+      aria-label={label}
+      // oxlint-disable-next-line jsx-a11y/no-noninteractive-tabindex -- a scrolling region must take focus to scroll by keyboard
+      tabIndex={0}
+      className={`relative max-w-full overflow-x-auto rounded focus-visible:outline-2 focus-visible:outline-accent ${className}`}
+    >
       {children}
     </div>
   );

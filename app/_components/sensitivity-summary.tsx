@@ -29,17 +29,28 @@ export function CurveTable({ radio }: { radio: RadioClaim }) {
   return (
     <table className="data-table" aria-label="Curve points">
       <thead>
-        <tr><th>#</th><th>Stated</th><th>Implied Eb/N0</th><th>Limit</th><th>Margin</th><th>Verdict</th></tr>
+        <tr>
+          <th>#</th>
+          <th>Stated</th>
+          <th>Implied Eb/N0</th>
+          <th>Limit</th>
+          <th>Margin</th>
+          <th>Verdict</th>
+        </tr>
       </thead>
       <tbody>
         {radio.curve.map((p, j) => (
           <tr key={j} data-curve-point={j + 1}>
             <td className="tabular-nums">{j + 1}</td>
-            <td className="tabular-nums">{p.x} {p.unit === "dBm" ? "dBm" : "dB Eb/N0"}, {CURVE_METRIC_WORDS[p.metric]} {formatSci(p.value)}</td>
+            <td className="tabular-nums">
+              {p.x} {p.unit === "dBm" ? "dBm" : "dB Eb/N0"}, {CURVE_METRIC_WORDS[p.metric]} {formatSci(p.value)}
+            </td>
             <td className="tabular-nums">{formatDb(p.impliedEbn0Db)}</td>
             <td className="tabular-nums">{formatDb(p.limitEbn0Db)}</td>
             <td className="tabular-nums">{formatMarginDb(p.marginDb)}</td>
-            <td><VerdictBadge verdict={p.verdict} /></td>
+            <td>
+              <VerdictBadge verdict={p.verdict} />
+            </td>
           </tr>
         ))}
       </tbody>

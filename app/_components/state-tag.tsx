@@ -23,7 +23,12 @@ function Dial({ look }: { look: StateLook }) {
 /** A tender's state: its own colour and its own dial, so that the states read apart in grey-scale too. */
 export function StateTag({ state }: { state: string }) {
   const look = STATE_LOOK[state as keyof typeof STATE_LOOK];
-  if (!look) return <span className="inline-block rounded-full border border-ink-faint px-2 py-0.5 text-xs font-medium text-ink-soft" data-state={state}>{state}</span>;
+  if (!look)
+    return (
+      <span className="inline-block rounded-full border border-ink-faint px-2 py-0.5 text-xs font-medium text-ink-soft" data-state={state}>
+        {state}
+      </span>
+    );
   return (
     <span
       className="inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border px-2 py-0.5 text-xs font-medium"

@@ -12,10 +12,7 @@ const LOOK: Record<Verdict, { label: string; glyph: string; className: string }>
 export function VerdictBadge({ verdict }: { verdict: Verdict }) {
   const look = LOOK[verdict];
   return (
-    <span
-      data-verdict={verdict}
-      className={`inline-flex items-center gap-1 rounded-sm border-2 px-1.5 py-0.5 text-xs font-semibold ${look.className}`}
-    >
+    <span data-verdict={verdict} className={`inline-flex items-center gap-1 rounded-sm border-2 px-1.5 py-0.5 text-xs font-semibold ${look.className}`}>
       <span aria-hidden>{look.glyph}</span>
       <span>{look.label}</span>
     </span>

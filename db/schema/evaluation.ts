@@ -26,7 +26,11 @@ export const marks = pgTable(
     markedAt: createdAt(),
   },
   // A claim's current mark is its latest: the queue filters and pages on it.
-  (t) => [index("marks_claim_idx").on(t.claimId), index("marks_claim_latest_idx").on(t.claimId, t.markedAt.desc().nullsFirst(), t.id.desc().nullsFirst()), oneOf("marks_mark_check", t.mark, MARKS)],
+  (t) => [
+    index("marks_claim_idx").on(t.claimId),
+    index("marks_claim_latest_idx").on(t.claimId, t.markedAt.desc().nullsFirst(), t.id.desc().nullsFirst()),
+    oneOf("marks_mark_check", t.mark, MARKS),
+  ],
 );
 
 export const threads = pgTable(

@@ -38,7 +38,10 @@ export const offers = pgTable(
     currency: text("currency").notNull(),
     leadTimeWeeks: integer("lead_time_weeks").notNull(),
     warrantyMonths: integer("warranty_months").notNull(),
-    priceBreaks: jsonb("price_breaks").$type<PriceBreak[]>().notNull().default(sql`'[]'::jsonb`),
+    priceBreaks: jsonb("price_breaks")
+      .$type<PriceBreak[]>()
+      .notNull()
+      .default(sql`'[]'::jsonb`),
     submittedBy: text("submitted_by")
       .notNull()
       .references(() => users.id),
@@ -82,11 +85,7 @@ export const claims = pgTable(
     engineVersion: text("engine_version").notNull(),
     evaluatedAt: timestamp("evaluated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [
-    index("claims_offer_idx").on(t.offerId),
-    index("claims_tender_idx").on(t.tenderId),
-    oneOf("claims_verdict_check", t.verdict, VERDICTS),
-  ],
+  (t) => [index("claims_offer_idx").on(t.offerId), index("claims_tender_idx").on(t.tenderId), oneOf("claims_verdict_check", t.verdict, VERDICTS)],
 );
 
 export const documents = pgTable(

@@ -114,7 +114,10 @@ export const declarations = pgTable(
     userId: text("user_id")
       .notNull()
       .references(() => users.id),
-    conflictedOrgIds: jsonb("conflicted_org_ids").$type<string[]>().notNull().default(sql`'[]'::jsonb`),
+    conflictedOrgIds: jsonb("conflicted_org_ids")
+      .$type<string[]>()
+      .notNull()
+      .default(sql`'[]'::jsonb`),
     statement: text("statement").notNull().default(""),
     createdAt: createdAt(),
   },

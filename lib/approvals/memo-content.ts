@@ -83,7 +83,6 @@ export interface MemoFacts {
   ledgerHead?: Head | null;
 }
 
-
 export function claimWords(c: Pick<MemoFacts["offers"][number]["claims"][number], "metric" | "value" | "ncgOutputBer">): string {
   if (c.metric === "ncg") return `Net coding gain ${c.value} dB at BER ${c.ncgOutputBer === null ? "?" : formatSci(c.ncgOutputBer)}`;
   return `${c.metric.toUpperCase()} ${formatSci(c.value)}`;
@@ -120,7 +119,10 @@ export function reviewWords(c: Pick<MemoFacts["offers"][number]["claims"][number
 export function evidenceWords(model: ChannelModel, runs: MemoFacts["offers"][number]["claims"][number]["runs"]): string {
   if (runs.length === 0) return "No lab run.";
   return runs
-    .map((r) => `${EVIDENCE_LABELS[r.status]}: ${r.errors.toLocaleString("en-GB")} errors in ${r.trials.toLocaleString("en-GB")} ${r.unit} at ${formatCondition(model, r.channelValue)} (upper bound ${formatSci(r.upper)} at ${Math.round(r.confidence * 100)} %)`)
+    .map(
+      (r) =>
+        `${EVIDENCE_LABELS[r.status]}: ${r.errors.toLocaleString("en-GB")} errors in ${r.trials.toLocaleString("en-GB")} ${r.unit} at ${formatCondition(model, r.channelValue)} (upper bound ${formatSci(r.upper)} at ${Math.round(r.confidence * 100)} %)`,
+    )
     .join("; ");
 }
 
@@ -185,13 +187,12 @@ export function memoDocument(f: MemoFacts): MemoDocument {
         name: d.name,
         at: when(d.createdAt, f.zone),
         statement: d.statement,
-        conflicts: d.conflicts === 0 ? "no conflict" : `a conflict with ${d.conflicts} vendor${d.conflicts === 1 ? "" : "s"}, whose offers were hidden from them`,
+        conflicts:
+          d.conflicts === 0 ? "no conflict" : `a conflict with ${d.conflicts} vendor${d.conflicts === 1 ? "" : "s"}, whose offers were hidden from them`,
       })),
     },
-    cautions: [
-      f.safetyRelevant ? SAFETY_CAUTION : null,
-      f.cautions,
-      f.tender.operatingPoints.some((p) => p.sensitivity) ? SENSITIVITY_CAUTION : null,
-    ].filter(Boolean).join(" "),
+    cautions: [f.safetyRelevant ? SAFETY_CAUTION : null, f.cautions, f.tender.operatingPoints.some((p) => p.sensitivity) ? SENSITIVITY_CAUTION : null]
+      .filter(Boolean)
+      .join(" "),
   };
 }

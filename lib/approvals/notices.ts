@@ -109,10 +109,7 @@ export function awardNotice(
  */
 export function regretNotice(t: TenderWords, vendorName: string, own: Standing | null, ranked: number, disclosure: AwardDisclosure): NoticeText {
   const scores = disclosure.mode === "rank-and-scores";
-  const lines = [
-    `Dear ${vendorName},`,
-    `thank you for your offer to tender ${t.reference} "${t.title}". The tender is awarded to ${disclosure.winnerName}.`,
-  ];
+  const lines = [`Dear ${vendorName},`, `thank you for your offer to tender ${t.reference} "${t.title}". The tender is awarded to ${disclosure.winnerName}.`];
   if (!own) {
     lines.push("Your offer was not part of the final ranking.");
   } else {

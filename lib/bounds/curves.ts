@@ -149,9 +149,11 @@ function largestK(n: number, ok: (k: number) => boolean, guess: number): number 
 export function rateCurve({ model, x, targetBler, nMin = 10, nMax = 100_000, points = 40 }: RateCurveOptions): RateCurvePoint[] {
   const lnEps = Math.log(targetBler);
   const cd =
-    model === "biawgn" ? biawgnCapDisp(x)
-    : model === "bsc" ? { capacity: bscCapacity(x), dispersion: bscDispersion(x) }
-    : { capacity: becCapacity(x), dispersion: becDispersion(x) };
+    model === "biawgn"
+      ? biawgnCapDisp(x)
+      : model === "bsc"
+        ? { capacity: bscCapacity(x), dispersion: bscDispersion(x) }
+        : { capacity: becCapacity(x), dispersion: becDispersion(x) };
   const ns = [...new Set(spaced(nMin, nMax, points, true).map(Math.round))];
   return ns.map((n) => {
     const normalRate = normalApproxRate(n, cd.capacity, cd.dispersion, lnEps, model !== "bec");

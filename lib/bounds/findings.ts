@@ -56,18 +56,37 @@ export function achievabilityFinding(op: OperatingPoint, lnAch: number, perfect:
   const got = `${bound} guarantees BLER ${sciLn(lnAch)} at ${fmtCode(op.n as number, op.k as number)} on ${where(op)}`;
   return ok
     ? { code: "within-achievability", severity: "support", message: `The claimed ${metricName(op)} ${sci(op.target)} is achievable: ${got}.`, source }
-    : { code: "beyond-achievability", severity: "gap", message: `The claimed ${metricName(op)} ${sci(op.target)} beats what is guaranteed (${got}), so it needs a code better than a random one, and evidence.`, source };
+    : {
+        code: "beyond-achievability",
+        severity: "gap",
+        message: `The claimed ${metricName(op)} ${sci(op.target)} beats what is guaranteed (${got}), so it needs a code better than a random one, and evidence.`,
+        source,
+      };
 }
 
 export function normalFinding(op: OperatingPoint, lnBler: number, rate: number, deciding: boolean, ok: boolean, unreliable: string | null = null): Finding {
   const text = `At n = ${op.n} the normal approximation expects BLER ${sciLn(lnBler)} at rate ${fmtRate(op.rate)} and a best rate of ${fmtRate(rate)} at ${metricName(op)} ${sci(op.target)}`;
   if (unreliable)
-    return { code: "normal-approximation-unreliable", severity: "info", message: `${text} (an approximation, not a bound, and unreliable here since ${unreliable}).`, source: SOURCES.normal };
-  if (!deciding)
-    return { code: "normal-approximation", severity: "info", message: `${text} (an approximation, not a bound).`, source: SOURCES.normal };
+    return {
+      code: "normal-approximation-unreliable",
+      severity: "info",
+      message: `${text} (an approximation, not a bound, and unreliable here since ${unreliable}).`,
+      source: SOURCES.normal,
+    };
+  if (!deciding) return { code: "normal-approximation", severity: "info", message: `${text} (an approximation, not a bound).`, source: SOURCES.normal };
   return ok
-    ? { code: "within-normal-approximation", severity: "support", message: `${text}, so a good code of this length is expected to do it.`, source: SOURCES.normal }
-    : { code: "beyond-normal-approximation", severity: "gap", message: `${text}, so the claim beats what a good code of this length is expected to do and needs evidence.`, source: SOURCES.normal };
+    ? {
+        code: "within-normal-approximation",
+        severity: "support",
+        message: `${text}, so a good code of this length is expected to do it.`,
+        source: SOURCES.normal,
+      }
+    : {
+        code: "beyond-normal-approximation",
+        severity: "gap",
+        message: `${text}, so the claim beats what a good code of this length is expected to do and needs evidence.`,
+        source: SOURCES.normal,
+      };
 }
 
 export function asymptoticFinding(op: OperatingPoint): Finding {

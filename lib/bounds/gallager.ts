@@ -89,8 +89,7 @@ function brentMin(f: (x: number) => number, a: number, b: number, tol: number, m
 
 export const bscGallagerExponent = (p: number, rate: number) => gallagerExponent((r) => bscE0(r, p), rate);
 export const becGallagerExponent = (e: number, rate: number) => gallagerExponent((r) => becE0(r, e), rate);
-export const biawgnGallagerExponent = (esn0Db: number, rate: number) =>
-  gallagerExponent((r) => biawgnE0(r, esn0Db), rate);
+export const biawgnGallagerExponent = (esn0Db: number, rate: number) => gallagerExponent((r) => biawgnE0(r, esn0Db), rate);
 
 /** ln of Gallager's bound at (n, R): (M - 1)^rho 2^(-n E0(rho)) <= 2^(-n E_r(R)). */
 export function gallagerLogBler(n: number, exponent: number): number {

@@ -64,15 +64,30 @@ export function spherePackingFinding(op: OperatingPoint, lnSp: number, lnAllowed
   const need = threshold === null ? "" : `; it needs Eb/N0 at least ${fmtDb(threshold)} (margin ${margin(r.ebn0Db - threshold)})`;
   const held = op.metric === "ber" ? ` (held to BLER ${sciLn(lnAllowed)})` : "";
   return violated
-    ? { code: "below-sphere-packing", severity: "violation", message: `No code with ${code} can reach ${asked(op)}${held} at Eb/N0 = ${fmtDb(r.ebn0Db)}: Shannon's 1959 bound gives BLER at least ${sciLn(lnSp)}${need}.`, source: RADIO_SOURCES.spherePacking }
-    : { code: "within-sphere-packing", severity: "support", message: `Shannon's 1959 bound allows ${asked(op)}${held} with ${code} at Eb/N0 = ${fmtDb(r.ebn0Db)}: the least possible BLER is ${sciLn(lnSp)}${need}.`, source: RADIO_SOURCES.spherePacking };
+    ? {
+        code: "below-sphere-packing",
+        severity: "violation",
+        message: `No code with ${code} can reach ${asked(op)}${held} at Eb/N0 = ${fmtDb(r.ebn0Db)}: Shannon's 1959 bound gives BLER at least ${sciLn(lnSp)}${need}.`,
+        source: RADIO_SOURCES.spherePacking,
+      }
+    : {
+        code: "within-sphere-packing",
+        severity: "support",
+        message: `Shannon's 1959 bound allows ${asked(op)}${held} with ${code} at Eb/N0 = ${fmtDb(r.ebn0Db)}: the least possible BLER is ${sciLn(lnSp)}${need}.`,
+        source: RADIO_SOURCES.spherePacking,
+      };
 }
 
 export function energyConverseFinding(op: OperatingPoint, k: number, limit: number | null, violated: boolean): Finding {
   const r = op.radio!;
   const what = `Sending k = ${k} bits at ${asked(op)} with any code, modulation and bandwidth needs`;
   if (limit === null)
-    return { code: "within-energy-converse", severity: "support", message: `${what} no energy at all by the converse, so it cannot object.`, source: RADIO_SOURCES.energyConverse };
+    return {
+      code: "within-energy-converse",
+      severity: "support",
+      message: `${what} no energy at all by the converse, so it cannot object.`,
+      source: RADIO_SOURCES.energyConverse,
+    };
   const tail = `Eb/N0 at least ${fmtDb(limit)}; the claim amounts to ${fmtDb(r.ebn0Db)} (margin ${margin(r.ebn0Db - limit)})`;
   return violated
     ? { code: "below-energy-converse", severity: "violation", message: `${what} ${tail}, so it is impossible.`, source: RADIO_SOURCES.energyConverse }
@@ -84,8 +99,18 @@ export function orthogonalFinding(op: OperatingPoint, k: number, limit: number |
   const reach = limit === null ? "at any Eb/N0" : `from Eb/N0 = ${fmtDb(limit)}`;
   const at = `the claim amounts to ${fmtDb(r.realisticEbn0Db)} at a realistic noise figure${limit === null ? "" : ` (margin ${margin(r.realisticEbn0Db - limit)})`}`;
   return ok
-    ? { code: "within-orthogonal", severity: "support", message: `2^${k} orthogonal signals reach ${asked(op)} ${reach}, and ${at}, so the claim is achievable.`, source: RADIO_SOURCES.orthogonal }
-    : { code: "beyond-orthogonal", severity: "gap", message: `2^${k} orthogonal signals reach ${asked(op)} only ${reach}, but ${at}, so the claim needs evidence.`, source: RADIO_SOURCES.orthogonal };
+    ? {
+        code: "within-orthogonal",
+        severity: "support",
+        message: `2^${k} orthogonal signals reach ${asked(op)} ${reach}, and ${at}, so the claim is achievable.`,
+        source: RADIO_SOURCES.orthogonal,
+      }
+    : {
+        code: "beyond-orthogonal",
+        severity: "gap",
+        message: `2^${k} orthogonal signals reach ${asked(op)} only ${reach}, but ${at}, so the claim needs evidence.`,
+        source: RADIO_SOURCES.orthogonal,
+      };
 }
 
 /** Which bound a BI-AWGN verdict with n and k rests on, at the realistic Eb/N0. */
@@ -93,9 +118,24 @@ export function restsOnFinding(op: OperatingPoint, basis: "normal" | "gallager" 
   const at = `at Eb/N0 = ${fmtDb(op.radio!.realisticEbn0Db)}`;
   const g = `Gallager's random-coding bound guarantees some code with n = ${op.n}, k = ${op.k} BLER at most ${sciLn(lnGallager)} ${at}`;
   if (basis === "gallager")
-    return { code: "within-random-coding", severity: "support", message: `${g}, so the claimed ${asked(op)} is achievable (the verdict rests on this rigorous bound).`, source: RADIO_SOURCES.gallager };
+    return {
+      code: "within-random-coding",
+      severity: "support",
+      message: `${g}, so the claimed ${asked(op)} is achievable (the verdict rests on this rigorous bound).`,
+      source: RADIO_SOURCES.gallager,
+    };
   if (basis === "normal")
-    return { code: "rests-on-normal-approximation", severity: "info", message: `The verdict rests on the normal approximation, which is reliable here (BLER at least 1e-6 and above the 1959 converse); ${g}.`, source: RADIO_SOURCES.normal };
+    return {
+      code: "rests-on-normal-approximation",
+      severity: "info",
+      message: `The verdict rests on the normal approximation, which is reliable here (BLER at least 1e-6 and above the 1959 converse); ${g}.`,
+      source: RADIO_SOURCES.normal,
+    };
   const why = normalWhyNot ? `; the normal approximation is not relied on here, since ${normalWhyNot}` : "";
-  return { code: "beyond-random-coding", severity: "gap", message: `${g}, which does not reach the claimed ${asked(op)}, so the claim needs a code better than a random one, and evidence${why}.`, source: RADIO_SOURCES.gallager };
+  return {
+    code: "beyond-random-coding",
+    severity: "gap",
+    message: `${g}, which does not reach the claimed ${asked(op)}, so the claim needs a code better than a random one, and evidence${why}.`,
+    source: RADIO_SOURCES.gallager,
+  };
 }

@@ -71,10 +71,30 @@ export function resolveClaim(claim: ClaimInput): OperatingPoint {
     }
   }
   const base = { n, k, rate, metric: target.metric, target: target.value, kFrom, radio: null };
-  const ch = claim.channel as ClaimInput["channel"] & { p?: number; e?: number; ebn0Db?: number; esn0Db?: number; ncgDb?: number; sensitivityDbm?: number; bitRate?: number; noiseFigureDb?: number; assumedNoiseFigureDb?: number };
+  const ch = claim.channel as ClaimInput["channel"] & {
+    p?: number;
+    e?: number;
+    ebn0Db?: number;
+    esn0Db?: number;
+    ncgDb?: number;
+    sensitivityDbm?: number;
+    bitRate?: number;
+    noiseFigureDb?: number;
+    assumedNoiseFigureDb?: number;
+  };
   if (ch.model === "bec") {
     const e = ch.e as number;
-    return { ...base, model: "bec", x: e, unit: "e", claimed: e, channel: { model: "bec", e }, capacity: becCapacity(e), dispersion: becDispersion(e), logTerm: false };
+    return {
+      ...base,
+      model: "bec",
+      x: e,
+      unit: "e",
+      claimed: e,
+      channel: { model: "bec", e },
+      capacity: becCapacity(e),
+      dispersion: becDispersion(e),
+      logTerm: false,
+    };
   }
   // A net coding gain names the raw BER it implies at the target's output BER (ITU-T G.975.1).
   const ncgP = ch.ncgDb !== undefined ? rawBerForNcg(ch.ncgDb, target.value, rate) : undefined;
@@ -94,17 +114,31 @@ export function resolveClaim(claim: ClaimInput): OperatingPoint {
   const ebn0Db = esn0ToEbn0(esn0Db, rate);
   const cd = biawgnCapDisp(esn0Db);
   const channel = {
-    model: "biawgn" as const, esn0Db, ebn0Db,
+    model: "biawgn" as const,
+    esn0Db,
+    ebn0Db,
     ...(ncgP !== undefined ? { p: ncgP, ncgDb: ch.ncgDb } : {}),
     ...(sens ? sens.channel : {}),
   };
   const modulation = code.modulation ?? "bpsk";
   const radio: Radio = {
-    ebn0Db, realisticEbn0Db: sens ? sens.realisticEbn0Db : ebn0Db, noiseBasis: sens ? sens.basis : null, modulation, dims: n,
+    ebn0Db,
+    realisticEbn0Db: sens ? sens.realisticEbn0Db : ebn0Db,
+    noiseBasis: sens ? sens.basis : null,
+    modulation,
+    dims: n,
   };
   return {
-    ...base, model: "biawgn", x: esn0Db, unit, claimed: unit === "esn0Db" ? esn0Db : ebn0Db, channel,
-    capacity: cd.capacity, dispersion: cd.dispersion, logTerm: true, radio,
+    ...base,
+    model: "biawgn",
+    x: esn0Db,
+    unit,
+    claimed: unit === "esn0Db" ? esn0Db : ebn0Db,
+    channel,
+    capacity: cd.capacity,
+    dispersion: cd.dispersion,
+    logTerm: true,
+    radio,
   };
 }
 
@@ -120,7 +154,8 @@ export function sensitivityOf(ch: ChannelFields) {
   const realisticNf = stated ?? ch.assumedNoiseFigureDb ?? 0;
   const basis = stated !== undefined ? ("stated" as const) : ch.assumedNoiseFigureDb !== undefined ? ("assumed" as const) : ("ideal" as const);
   const channel = {
-    sensitivityDbm: ch.sensitivityDbm, bitRate: ch.bitRate,
+    sensitivityDbm: ch.sensitivityDbm,
+    bitRate: ch.bitRate,
     ...(stated !== undefined ? { noiseFigureDb: stated } : {}),
     ...(ch.assumedNoiseFigureDb !== undefined ? { assumedNoiseFigureDb: ch.assumedNoiseFigureDb } : {}),
   };
@@ -142,12 +177,27 @@ export function resolvePayload(claim: ClaimInput): OperatingPoint {
   const sens = sensitivityOf(ch);
   const ebn0Db = sens ? sens.ebn0Db : (ch.ebn0Db as number);
   const radio: Radio = {
-    ebn0Db, realisticEbn0Db: sens ? sens.realisticEbn0Db : ebn0Db, noiseBasis: sens ? sens.basis : null,
-    modulation: claim.code.modulation ?? "bpsk", dims: null,
+    ebn0Db,
+    realisticEbn0Db: sens ? sens.realisticEbn0Db : ebn0Db,
+    noiseBasis: sens ? sens.basis : null,
+    modulation: claim.code.modulation ?? "bpsk",
+    dims: null,
   };
   return {
-    model: "biawgn", n: null, k: claim.code.k as number, rate: 0, metric: claim.target.metric, target: claim.target.value,
-    x: NaN, unit: "ebn0Db", claimed: ebn0Db, channel: { model: "biawgn", ebn0Db, ...(sens ? sens.channel : {}) },
-    capacity: 0, dispersion: 0, logTerm: true, kFrom: null, radio,
+    model: "biawgn",
+    n: null,
+    k: claim.code.k as number,
+    rate: 0,
+    metric: claim.target.metric,
+    target: claim.target.value,
+    x: NaN,
+    unit: "ebn0Db",
+    claimed: ebn0Db,
+    channel: { model: "biawgn", ebn0Db, ...(sens ? sens.channel : {}) },
+    capacity: 0,
+    dispersion: 0,
+    logTerm: true,
+    kFrom: null,
+    radio,
   };
 }

@@ -38,7 +38,11 @@ const channelSchema = z.discriminatedUnion(
       esn0Db: num(DB_RANGE).min(-50, `must be at least -50 (${DB_RANGE})`).max(50, `must be at most 50 (${DB_RANGE})`).optional(),
       ncgDb: num(NCG_RANGE).min(-20, `must be at least -20 (${NCG_RANGE})`).max(40, `must be at most 40 (${NCG_RANGE})`).optional(),
       sensitivityDbm: num(SENS_RANGE).min(-250, `must be at least -250 (${SENS_RANGE})`).max(30, `must be at most 30 (${SENS_RANGE})`).optional(),
-      bitRate: num(RB_RANGE).gt(0, `must be above 0 (${RB_RANGE})`).min(1e-3, `must be at least 0.001 (${RB_RANGE})`).max(1e12, `must be at most 1e12 (${RB_RANGE})`).optional(),
+      bitRate: num(RB_RANGE)
+        .gt(0, `must be above 0 (${RB_RANGE})`)
+        .min(1e-3, `must be at least 0.001 (${RB_RANGE})`)
+        .max(1e12, `must be at most 1e12 (${RB_RANGE})`)
+        .optional(),
       noiseFigureDb: num(NF_RANGE).min(0, `must be at least 0 (${NF_RANGE})`).max(40, `must be at most 40 (${NF_RANGE})`).optional(),
       assumedNoiseFigureDb: num(NF_RANGE).min(0, `must be at least 0 (${NF_RANGE})`).max(40, `must be at most 40 (${NF_RANGE})`).optional(),
     }),
@@ -64,18 +68,32 @@ function obj(what: string) {
   return { error: (iss: { input?: unknown }) => (iss.input === undefined ? `is required (${what})` : `must be an object (${what})`) };
 }
 
-const codeSchema = z.object({
-  n: nField.optional(),
-  k: num("an integer from 1 to n").int("must be an integer (from 1 to n)").min(1, "must be at least 1 (from 1 to n)").optional(),
-  rate: num("a code rate above 0 and at most 1").gt(0, "must be above 0 (a code rate above 0 and at most 1)").max(1, "must be at most 1 (a code rate above 0 and at most 1)").optional(),
-  overhead: num("an overhead n/k - 1 from 0 to 1000").min(0, "must be at least 0 (an overhead n/k - 1 from 0 to 1000)").max(1000, "must be at most 1000 (an overhead n/k - 1 from 0 to 1000)").optional(),
-  modulation: z.enum(["bpsk", "qpsk"], { error: () => 'must be "bpsk" or "qpsk" (Gray-mapped)' }).optional(),
-}, obj("n and k, or rate, or overhead"));
+const codeSchema = z.object(
+  {
+    n: nField.optional(),
+    k: num("an integer from 1 to n").int("must be an integer (from 1 to n)").min(1, "must be at least 1 (from 1 to n)").optional(),
+    rate: num("a code rate above 0 and at most 1")
+      .gt(0, "must be above 0 (a code rate above 0 and at most 1)")
+      .max(1, "must be at most 1 (a code rate above 0 and at most 1)")
+      .optional(),
+    overhead: num("an overhead n/k - 1 from 0 to 1000")
+      .min(0, "must be at least 0 (an overhead n/k - 1 from 0 to 1000)")
+      .max(1000, "must be at most 1000 (an overhead n/k - 1 from 0 to 1000)")
+      .optional(),
+    modulation: z.enum(["bpsk", "qpsk"], { error: () => 'must be "bpsk" or "qpsk" (Gray-mapped)' }).optional(),
+  },
+  obj("n and k, or rate, or overhead"),
+);
 
-const targetSchema = z.object({
-  metric: z.enum(["bler", "ber"], { error: () => 'must be "bler" or "ber"' }),
-  value: num("a probability strictly between 0 and 1").gt(0, "must be above 0 (strictly between 0 and 1)").lt(1, "must be below 1 (strictly between 0 and 1)"),
-}, obj('metric "bler" or "ber" and value'));
+const targetSchema = z.object(
+  {
+    metric: z.enum(["bler", "ber"], { error: () => 'must be "bler" or "ber"' }),
+    value: num("a probability strictly between 0 and 1")
+      .gt(0, "must be above 0 (strictly between 0 and 1)")
+      .lt(1, "must be below 1 (strictly between 0 and 1)"),
+  },
+  obj('metric "bler" or "ber" and value'),
+);
 
 export const claimSchema = z
   .object({ channel: channelSchema, code: codeSchema, target: targetSchema }, obj("a claim with channel, code and target"))
@@ -83,8 +101,7 @@ export const claimSchema = z
     const ch = c.channel as Record<string, unknown>;
     const given = (keys: string[]) => keys.filter((key) => ch[key] !== undefined);
     const wanted = c.channel.model === "bsc" ? ["p", "ncgDb"] : c.channel.model === "biawgn" ? ["ebn0Db", "esn0Db", "ncgDb", "sensitivityDbm"] : ["e"];
-    if (given(wanted).length !== 1)
-      ctx.addIssue({ code: "custom", path: ["channel", wanted[0]], message: `give exactly one of ${wanted.join(", ")}` });
+    if (given(wanted).length !== 1) ctx.addIssue({ code: "custom", path: ["channel", wanted[0]], message: `give exactly one of ${wanted.join(", ")}` });
     const sensitivity = ch.sensitivityDbm !== undefined;
     if (sensitivity && ch.bitRate === undefined)
       ctx.addIssue({ code: "custom", path: ["channel", "bitRate"], message: `is required with sensitivityDbm (${RB_RANGE}: the payload bits per second)` });
@@ -92,7 +109,11 @@ export const claimSchema = z
       const s = ch.sensitivityDbm as number;
       const ebn0 = (nf: unknown) => s - THERMAL_DBM_PER_HZ - 10 * Math.log10(ch.bitRate as number) - ((nf as number | undefined) ?? 0);
       if ([ebn0(ch.noiseFigureDb), ebn0(ch.assumedNoiseFigureDb)].some((x) => x < -100 || x > 100))
-        ctx.addIssue({ code: "custom", path: ["channel", "sensitivityDbm"], message: "with this bit rate and noise figure implies an Eb/N0 outside -100 to 100 dB; check the units (dBm, information bits per second)" });
+        ctx.addIssue({
+          code: "custom",
+          path: ["channel", "sensitivityDbm"],
+          message: "with this bit rate and noise figure implies an Eb/N0 outside -100 to 100 dB; check the units (dBm, information bits per second)",
+        });
     }
     for (const key of ["bitRate", "noiseFigureDb", "assumedNoiseFigureDb"])
       if (!sensitivity && ch[key] !== undefined)
@@ -100,15 +121,21 @@ export const claimSchema = z
     if (c.code.modulation !== undefined && c.channel.model !== "biawgn")
       ctx.addIssue({ code: "custom", path: ["code", "modulation"], message: 'applies only to the "biawgn" channel' });
     if (ch.ncgDb !== undefined && c.target.value >= 0.5)
-      ctx.addIssue({ code: "custom", path: ["target", "value"], message: "must be below 0.5 with a net coding gain (the coding gain is defined at an output BER below 0.5)" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["target", "value"],
+        message: "must be below 0.5 with a net coding gain (the coding gain is defined at an output BER below 0.5)",
+      });
     const { n, k, rate, overhead } = c.code;
     const forms = [k !== undefined, rate !== undefined, overhead !== undefined].filter(Boolean).length;
-    if (forms !== 1)
-      ctx.addIssue({ code: "custom", path: ["code"], message: "give exactly one of k (with n), rate or overhead" });
+    if (forms !== 1) ctx.addIssue({ code: "custom", path: ["code"], message: "give exactly one of k (with n), rate or overhead" });
     else if (k !== undefined && n === undefined && !(ch.ebn0Db !== undefined || sensitivity))
-      ctx.addIssue({ code: "custom", path: ["code", "n"], message: `is required with k (${N_RANGE}), except for a BI-AWGN claim in ebn0Db or sensitivityDbm, where k alone is a payload` });
-    else if (k !== undefined && n !== undefined && k > n)
-      ctx.addIssue({ code: "custom", path: ["code", "k"], message: `must be at most n (${n})` });
+      ctx.addIssue({
+        code: "custom",
+        path: ["code", "n"],
+        message: `is required with k (${N_RANGE}), except for a BI-AWGN claim in ebn0Db or sensitivityDbm, where k alone is a payload`,
+      });
+    else if (k !== undefined && n !== undefined && k > n) ctx.addIssue({ code: "custom", path: ["code", "k"], message: `must be at most n (${n})` });
     else if (n !== undefined && k === undefined) {
       const r = rate ?? 1 / (1 + (overhead ?? 0));
       if (n * r < 1)
@@ -122,7 +149,5 @@ export { claimResultSchema, type ClaimResult } from "./result";
 
 /** One line naming each offending field, e.g. "code.k: must be at most n (1944)". */
 export function formatClaimError(error: z.ZodError): string {
-  return error.issues
-    .map((iss) => `${iss.path.length ? iss.path.map(String).join(".") : "claim"}: ${iss.message}`)
-    .join("; ");
+  return error.issues.map((iss) => `${iss.path.length ? iss.path.map(String).join(".") : "claim"}: ${iss.message}`).join("; ");
 }

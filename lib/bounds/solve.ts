@@ -6,13 +6,7 @@
  * bracket always shrinks at least as fast as plain bisection every other step.
  * Returns the left end of the final bracket: a point where f <= 0.
  */
-export function solveIncreasing(
-  f: (x: number) => number,
-  lo: number,
-  hi: number,
-  tol = 1e-12,
-  maxIter = 200,
-): number {
+export function solveIncreasing(f: (x: number) => number, lo: number, hi: number, tol = 1e-12, maxIter = 200): number {
   let flo = f(lo);
   let fhi = f(hi);
   let side = 0;
@@ -56,13 +50,7 @@ export function toLogit(x: number): number {
  * channel satisfies it, 0 when no representable channel does. A guess (e.g. from the normal
  * approximation) lets it gallop to a tight bracket first, so a dozen bound evaluations suffice.
  */
-export function channelThreshold(
-  logBound: (x: number) => number,
-  logTarget: number,
-  uMin: number,
-  uMax: number,
-  guess?: number,
-): number {
+export function channelThreshold(logBound: (x: number) => number, logTarget: number, uMin: number, uMax: number, guess?: number): number {
   const f = (u: number) => logBound(fromLogit(u)) - logTarget;
   let lo = uMin;
   let hi = uMax;

@@ -25,12 +25,7 @@ export function logSumConcave(f: (t: number) => number, a: number, b: number, gu
 }
 
 /** The window [lo, hi] of logSumConcave, and the starting term `top` (see the argument above). */
-export function concaveWindow(
-  f: (t: number) => number,
-  a: number,
-  b: number,
-  guess: number,
-): { lo: number; hi: number; top: number } {
+export function concaveWindow(f: (t: number) => number, a: number, b: number, guess: number): { lo: number; hi: number; top: number } {
   const m = Math.min(b, Math.max(a, Math.round(guess)));
   const top = f(m);
   const floor = top - DROP_NATS - Math.log(b - a + 1);

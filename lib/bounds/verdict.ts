@@ -21,9 +21,7 @@ const bound = (ln: number) => ({ log10Bler: toLog10(ln), bler: Math.exp(ln) });
 
 function gallager(op: OperatingPoint) {
   const r =
-    op.model === "bsc" ? bscGallagerExponent(op.x, op.rate)
-    : op.model === "bec" ? becGallagerExponent(op.x, op.rate)
-    : biawgnGallagerExponent(op.x, op.rate);
+    op.model === "bsc" ? bscGallagerExponent(op.x, op.rate) : op.model === "bec" ? becGallagerExponent(op.x, op.rate) : biawgnGallagerExponent(op.x, op.rate);
   return r.exponent;
 }
 
@@ -32,8 +30,7 @@ function channelMargins(op: OperatingPoint, t: Thresholds, radio: RadioOutcome |
   const db = op.model === "biawgn";
   // A ratio over a subnormal claimed p or e can overflow: no margin is shown then, rather than infinity.
   const finite = (x: number) => (Number.isFinite(x) ? x : null);
-  const m = (th: number | null) =>
-    th === null ? null : db ? finite(th - op.claimed) : op.claimed > 0 ? finite(th / op.claimed) : null;
+  const m = (th: number | null) => (th === null ? null : db ? finite(th - op.claimed) : op.claimed > 0 ? finite(th / op.claimed) : null);
   return {
     channelKind: db ? ("dB" as const) : ("ratio" as const),
     channel: {

@@ -52,9 +52,7 @@ async function start(options: LocalServicesOptions): Promise<LocalServices> {
   const settings = env();
   try {
     if (!settings.SMTP_URL) {
-      const smtp = await onPreferredOrFreePort(options.smtpPort ?? DEFAULT_SMTP_PORT, (port) =>
-        startFakeSmtp({ port, host: "127.0.0.1" }),
-      );
+      const smtp = await onPreferredOrFreePort(options.smtpPort ?? DEFAULT_SMTP_PORT, (port) => startFakeSmtp({ port, host: "127.0.0.1" }));
       stops.push(smtp.stop);
       started.smtp = true;
       recordLocalEndpoints({ smtpUrl: smtp.url, mailCaptureFile: path.join(options.dataDir, "mailroom.json") });

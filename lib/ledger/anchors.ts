@@ -46,7 +46,8 @@ export function checkpointProblem(key: string, checkpoint: Checkpoint, found: st
   const at = `the checkpoint signed at entry #${checkpoint.seq} (${checkpoint.at})`;
   if (!signatureHolds(key, checkpoint)) return `${at} has a signature that does not match: it was forged or edited`;
   if (found === checkpoint.hash) return null;
-  if (found !== undefined) return `entry #${checkpoint.seq} no longer has the hash signed at ${at}: entries up to it were rewritten and their hashes recomputed`;
+  if (found !== undefined)
+    return `entry #${checkpoint.seq} no longer has the hash signed at ${at}: entries up to it were rewritten and their hashes recomputed`;
   if (checkpoint.seq > end) return `the ledger ends at entry #${end}, but ${at} shows it reached that far: the newest entries were removed`;
   return `entry #${checkpoint.seq}, signed at ${at}, is missing: entries were removed`;
 }

@@ -51,9 +51,7 @@ export function bodyOf(row: LedgerRow): LedgerBody {
   };
 }
 
-export type ChainReport =
-  | { ok: true; entries: number }
-  | { ok: false; entries: number; brokenAt: number; position: number; reason: string };
+export type ChainReport = { ok: true; entries: number } | { ok: false; entries: number; brokenAt: number; position: number; reason: string };
 
 /** Why one entry breaks the chain, given the hash of the entry before it; null when it holds. */
 export function entryProblem(row: LedgerRow, prevHash: string): string | null {

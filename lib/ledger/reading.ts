@@ -35,10 +35,19 @@ const GUARDS: Record<string, Guard> = {
   "thread.message": { subject: "Thread", record: (e, c) => ({ ...vendorPart(e, c), id: e.subjectId ?? "" }) },
   "declaration.made": { subject: "Declaration", record: (e, c) => ({ tenderId: c.tenderId, userId: e.actorId ?? "" }) },
   "tender.technical-signed": { subject: "TechnicalSignoff", record: (_, c) => ({ tenderId: c.tenderId }) },
-  "recommendation.submitted": { subject: "Recommendation", record: (e, c) => ({ tenderId: c.tenderId, preparedBy: e.actorId ?? "", value: numberOr(e.data.value, 0) }) },
+  "recommendation.submitted": {
+    subject: "Recommendation",
+    record: (e, c) => ({ tenderId: c.tenderId, preparedBy: e.actorId ?? "", value: numberOr(e.data.value, 0) }),
+  },
   "tender.awarded": { subject: "Recommendation", record: (e, c) => ({ tenderId: c.tenderId, preparedBy: "", value: numberOr(e.data.value, 0) }) },
-  "approval.given": { subject: "Approval", record: (e, c) => ({ tenderId: c.tenderId, recommendationPreparedBy: "", value: numberOr(e.data.value, 0), tenderCreatedBy: c.tenderCreatedBy }) },
-  "recommendation.returned": { subject: "Approval", record: (_, c) => ({ tenderId: c.tenderId, recommendationPreparedBy: "", value: 0, tenderCreatedBy: c.tenderCreatedBy }) },
+  "approval.given": {
+    subject: "Approval",
+    record: (e, c) => ({ tenderId: c.tenderId, recommendationPreparedBy: "", value: numberOr(e.data.value, 0), tenderCreatedBy: c.tenderCreatedBy }),
+  },
+  "recommendation.returned": {
+    subject: "Approval",
+    record: (_, c) => ({ tenderId: c.tenderId, recommendationPreparedBy: "", value: 0, tenderCreatedBy: c.tenderCreatedBy }),
+  },
   "objection.lodged": { subject: "Objection", record: (e, c) => ({ tenderId: c.tenderId, vendorOrgId: c.vendorOrgId }) },
   "objection.answered": { subject: "Objection", record: (e, c) => ({ tenderId: c.tenderId, vendorOrgId: c.vendorOrgId }) },
   "addendum.published": { subject: "Addendum", record: (_, c) => ({ tenderId: c.tenderId, invitedOrgIds: c.invitedOrgIds }) },

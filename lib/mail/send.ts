@@ -93,9 +93,7 @@ async function deliver(message: MailMessage, retry: RetryPolicy): Promise<void> 
         return;
       }
       const delay = retry.backoffMs * 2 ** (attempt - 1);
-      console.warn(
-        `[mail] ${label} failed (attempt ${attempt}/${retry.attempts}), retrying in ${delay} ms: ${reasonOf(error)}`,
-      );
+      console.warn(`[mail] ${label} failed (attempt ${attempt}/${retry.attempts}), retrying in ${delay} ms: ${reasonOf(error)}`);
       await sleep(delay);
     }
   }

@@ -104,7 +104,9 @@ function stored(outcome: EngineOutcome): ClaimResult | UnfinishedResult {
   return "engineError" in outcome
     ? {
         verdict: "needs-evidence",
-        findings: [{ code: "engine-unfinished", severity: "gap", message: outcome.engineError, source: "Ratecourt: the bounds engine's time limit per request" }],
+        findings: [
+          { code: "engine-unfinished", severity: "gap", message: outcome.engineError, source: "Ratecourt: the bounds engine's time limit per request" },
+        ],
         engineError: outcome.engineError,
         engineVersion: ENGINE_VERSION,
       }
@@ -138,5 +140,14 @@ export function evaluatedClaim({ claim, point, radio }: PreparedClaim, outcome: 
 export function evaluateOffer(tender: TenderTerms, input: OfferTerms): Evaluation {
   const prepared = prepareOffer(tender, input);
   if (!prepared.ok) return prepared;
-  return { ok: true, claims: prepared.claims.map((item) => evaluatedClaim(item, evaluateClaim(item.input), (item.radio?.curve ?? []).map((c) => evaluateClaim(c)))) };
+  return {
+    ok: true,
+    claims: prepared.claims.map((item) =>
+      evaluatedClaim(
+        item,
+        evaluateClaim(item.input),
+        (item.radio?.curve ?? []).map((c) => evaluateClaim(c)),
+      ),
+    ),
+  };
 }

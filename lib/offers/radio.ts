@@ -116,7 +116,7 @@ export function limitEbn0Db(result: Pick<ClaimResult, "energy" | "thresholds">):
 /** Verdict, implied Eb/N0, limit and margin of one engine result (an unfinished one has no numbers). */
 export function judgement(result: ClaimResult | { verdict: VerdictName }): PointJudgement {
   if (!("thresholds" in result)) return { verdict: result.verdict, impliedEbn0Db: null, limitEbn0Db: null, marginDb: null };
-  const implied = result.implied?.ebn0Db ?? (result.channel.ebn0Db ?? null);
+  const implied = result.implied?.ebn0Db ?? result.channel.ebn0Db ?? null;
   const limit = limitEbn0Db(result);
   return { verdict: result.verdict, impliedEbn0Db: implied, limitEbn0Db: limit, marginDb: implied !== null && limit !== null ? implied - limit : null };
 }
@@ -142,7 +142,11 @@ export function radioClaim(
   curveResults: readonly (ClaimResult | { verdict: VerdictName })[],
 ): RadioClaim {
   const line = judgement(lineResult as ClaimResult);
-  const curve = (s.curve ?? []).map((p, i) => ({ ...p, ...judgement(curveResults[i] as ClaimResult), result: curveResults[i] as unknown as JudgedCurvePoint["result"] }));
+  const curve = (s.curve ?? []).map((p, i) => ({
+    ...p,
+    ...judgement(curveResults[i] as ClaimResult),
+    result: curveResults[i] as unknown as JudgedCurvePoint["result"],
+  }));
   return {
     ...terms,
     sensitivityDbm: s.dbm,
@@ -159,7 +163,8 @@ export function radioClaim(
 /** A sensitivity claim meets the buyer's point when its level is at or below the required one at a PER no worse than the target. */
 export function meetsSensitivity(radio: Pick<RadioClaim, "sensitivityDbm" | "requiredDbm" | "targetPer">, per: number): { meets: boolean; note: string } {
   if (per > radio.targetPer) return { meets: false, note: `Stated at PER ${per}, worse than the required ${radio.targetPer}.` };
-  if (radio.sensitivityDbm > radio.requiredDbm) return { meets: false, note: `Sensitivity ${radio.sensitivityDbm} dBm is above the required ${radio.requiredDbm} dBm.` };
+  if (radio.sensitivityDbm > radio.requiredDbm)
+    return { meets: false, note: `Sensitivity ${radio.sensitivityDbm} dBm is above the required ${radio.requiredDbm} dBm.` };
   return { meets: true, note: "" };
 }
 
@@ -199,7 +204,11 @@ export function parseCurveCsv(text: string): CurveCsvReport {
   const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ""), {
     header: true,
     skipEmptyLines: "greedy",
-    transformHeader: (h) => h.trim().toLowerCase().replace(/[\s/-]+/g, "_"),
+    transformHeader: (h) =>
+      h
+        .trim()
+        .toLowerCase()
+        .replace(/[\s/-]+/g, "_"),
   });
   const fields = parsed.meta.fields ?? [];
   const xCol = fields.find((f) => f in X_COLUMNS);
@@ -222,7 +231,11 @@ export function parseCurveCsv(text: string): CurveCsvReport {
 }
 
 /** "Sensitivity -133 dBm at PER 1.0e-2, NF 4 dB, BPSK, (320, 160)": the line as the vendor stated it. */
-export function describeSensitivity(radio: Pick<RadioClaim, "sensitivityDbm" | "noiseFigureDb" | "modulation" | "n" | "k">, per: number, sci: (x: number) => string): string {
+export function describeSensitivity(
+  radio: Pick<RadioClaim, "sensitivityDbm" | "noiseFigureDb" | "modulation" | "n" | "k">,
+  per: number,
+  sci: (x: number) => string,
+): string {
   const parts = [`Sensitivity ${radio.sensitivityDbm} dBm at PER ${sci(per)}`];
   parts.push(radio.noiseFigureDb !== null ? `NF ${radio.noiseFigureDb} dB` : "no NF stated");
   if (radio.modulation) parts.push(radio.modulation.toUpperCase());

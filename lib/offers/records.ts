@@ -6,10 +6,7 @@ export interface OfferTenderState extends SealFacts {
 }
 
 /** An offer row as the Offer subject: its own fields plus the tender facts the rules read. */
-export function offerRecord<R extends { id: string; tenderId: string; vendorOrgId: string }>(
-  row: R,
-  tender: OfferTenderState,
-): R & OfferRecord {
+export function offerRecord<R extends { id: string; tenderId: string; vendorOrgId: string }>(row: R, tender: OfferTenderState): R & OfferRecord {
   return { ...row, tenderState: recordTenderState(tender), envelopeOpened: tender.envelopesOpenedAt !== null };
 }
 

@@ -48,9 +48,15 @@ export function termsErrors(tender: TenderTerms, input: SubmittedTerms): Record<
   input.claims.forEach((claim, i) => {
     const point = tender.operatingPoints[claim.pointIndex];
     if (point?.sensitivity && !claim.sensitivity) {
-      add(`claims.${i}.sensitivity.dbm`, `The point "${point.label}" is stated as an input level: give your receiver sensitivity in dBm at ${point.sensitivity.bitRate} bit/s and a ${point.sensitivity.payloadBits}-bit payload.`);
+      add(
+        `claims.${i}.sensitivity.dbm`,
+        `The point "${point.label}" is stated as an input level: give your receiver sensitivity in dBm at ${point.sensitivity.bitRate} bit/s and a ${point.sensitivity.payloadBits}-bit payload.`,
+      );
     } else if (point && !point.sensitivity && claim.sensitivity) {
-      add(`claims.${i}.sensitivity`, `The point "${point.label}" is stated in ${tender.channelModel === "biawgn" ? "Eb/N0" : "its channel condition"}, not as an input level: claim a BER or BLER there, without a sensitivity.`);
+      add(
+        `claims.${i}.sensitivity`,
+        `The point "${point.label}" is stated in ${tender.channelModel === "biawgn" ? "Eb/N0" : "its channel condition"}, not as an input level: claim a BER or BLER there, without a sensitivity.`,
+      );
     }
     if (claim.metric === "ncg" && tender.channelModel === "bec") {
       add(`claims.${i}.metric`, "A net coding gain is not stated on an erasure channel: claim a BER or BLER.");

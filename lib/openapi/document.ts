@@ -13,12 +13,24 @@ const errorResponse = (description: string) => ({ description, content: { "appli
 
 function operation(route: ApiRoute) {
   const params = [...route.path.matchAll(/\{(\w+)\}/g)].map(([, name]) => ({ name, in: "path", required: true, schema: { type: "string" } }));
-  const query = route.query ? Object.entries((schemaOf(route.query) as { properties?: Record<string, unknown> }).properties ?? {}).map(([name, schema]) => ({ name, in: "query", required: false, schema })) : [];
+  const query = route.query
+    ? Object.entries((schemaOf(route.query) as { properties?: Record<string, unknown> }).properties ?? {}).map(([name, schema]) => ({
+        name,
+        in: "query",
+        required: false,
+        schema,
+      }))
+    : [];
   const content: Record<string, unknown> = {};
   if (route.body) content["application/json"] = { schema: schemaOf(route.body) };
   if (route.upload) {
     content["multipart/form-data"] = {
-      schema: { type: "object", properties: Object.fromEntries(Object.entries(route.upload).map(([k, d]) => [k, { type: "string", format: k === "file" ? "binary" : undefined, description: d }])) },
+      schema: {
+        type: "object",
+        properties: Object.fromEntries(
+          Object.entries(route.upload).map(([k, d]) => [k, { type: "string", format: k === "file" ? "binary" : undefined, description: d }]),
+        ),
+      },
     };
   }
   const success = route.produces
@@ -53,7 +65,8 @@ export function openApiDocument(serverUrl = "/api/v1") {
     info: {
       title: "Ratecourt API",
       version: "1.0.0",
-      description: "Tenders for radio modules with every coding claim judged against the limits of channel coding. Sign in through /api/auth/sign-in/email; send the session cookie, and with every write an Origin header equal to the app's address (403 otherwise).",
+      description:
+        "Tenders for radio modules with every coding claim judged against the limits of channel coding. Sign in through /api/auth/sign-in/email; send the session cookie, and with every write an Origin header equal to the app's address (403 otherwise).",
     },
     servers: [{ url: serverUrl }],
     components: {

@@ -65,19 +65,25 @@ function verdictTable(w: PageWriter, memo: MemoDocument): void {
     w.ensure(60);
     w.text(`${offer.vendorName}: ${offer.module}`, { bold: true, size: 10, gap: 0 });
     w.text(offer.code, { soft: true, size: 8.5, gap: 3 });
-    w.row([
-      { text: "Operating point", x: 0, width: 120, bold: true },
-      { text: "Claim", x: 125, width: 150, bold: true },
-      { text: "Verdict", x: 280, width: 100, bold: true },
-      { text: "Review", x: 385, width: w.contentWidth - 385, bold: true },
-    ], 8.5);
+    w.row(
+      [
+        { text: "Operating point", x: 0, width: 120, bold: true },
+        { text: "Claim", x: 125, width: 150, bold: true },
+        { text: "Verdict", x: 280, width: 100, bold: true },
+        { text: "Review", x: 385, width: w.contentWidth - 385, bold: true },
+      ],
+      8.5,
+    );
     for (const claim of offer.claims) {
-      const { top } = w.row([
-        { text: claim.point, x: 0, width: 120 },
-        { text: claim.claim, x: 125, width: 150 },
-        { text: VERDICT_WORDS[claim.verdict], x: 293, width: 90 },
-        { text: claim.review, x: 385, width: w.contentWidth - 385 },
-      ], 8.5);
+      const { top } = w.row(
+        [
+          { text: claim.point, x: 0, width: 120 },
+          { text: claim.claim, x: 125, width: 150 },
+          { text: VERDICT_WORDS[claim.verdict], x: 293, width: 90 },
+          { text: claim.review, x: 385, width: w.contentWidth - 385 },
+        ],
+        8.5,
+      );
       drawVerdictShape(w.page, claim.verdict, MARGIN + 284, top - 6.3);
       if (claim.sensitivity) w.text(claim.sensitivity, { soft: true, size: 8, indent: 12, gap: 2 });
       w.text(`Lab evidence: ${claim.evidence}`, { soft: true, size: 8, indent: 12, gap: 2 });
@@ -140,12 +146,19 @@ export async function renderMemo(memo: MemoDocument): Promise<Uint8Array> {
   w.text(memo.tender.buyerOrganisation, { soft: true, size: 9 });
   w.text(`Award memo ${memo.identifier}`, { bold: true, size: 17, gap: 1 });
   w.text(`${memo.tender.reference}: ${memo.tender.title}`, { bold: true, size: 12.5 });
-  w.text(memo.draft ? `Preview of ${memo.issuedAtText}: not approved, not an award.` : `Issued ${memo.issuedAtText}`, { soft: true, gap: memo.ledgerLine ? 0 : undefined });
+  w.text(memo.draft ? `Preview of ${memo.issuedAtText}: not approved, not an award.` : `Issued ${memo.issuedAtText}`, {
+    soft: true,
+    gap: memo.ledgerLine ? 0 : undefined,
+  });
   if (memo.ledgerLine) w.text(memo.ledgerLine, { soft: true, size: 8.5 });
 
   w.heading("Requirements");
   if (memo.tender.description) w.text(memo.tender.description, { gap: 4 });
-  for (const fact of memo.tender.facts) w.row([{ text: fact.label, x: 0, width: 150, soft: true }, { text: fact.value, x: 155, width: w.contentWidth - 155 }]);
+  for (const fact of memo.tender.facts)
+    w.row([
+      { text: fact.label, x: 0, width: 150, soft: true },
+      { text: fact.value, x: 155, width: w.contentWidth - 155 },
+    ]);
   w.text("Operating points", { soft: true, gap: 0 });
   for (const point of memo.tender.operatingPoints) w.text(point, { indent: 12, gap: 0 });
 

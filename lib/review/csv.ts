@@ -73,9 +73,7 @@ function findClaim(raw: Record<string, string>, claims: readonly CsvClaim[], fal
   const point = raw.point?.trim();
   if (vendor || point) {
     if (!vendor || !point) return "Give both vendor and point, or a claim_id.";
-    const match = claims.filter(
-      (c) => norm(c.vendorName) === norm(vendor) && (norm(c.pointLabel) === norm(point) || String(c.pointIndex + 1) === point),
-    );
+    const match = claims.filter((c) => norm(c.vendorName) === norm(vendor) && (norm(c.pointLabel) === norm(point) || String(c.pointIndex + 1) === point));
     if (match.length === 1) return match[0];
     return match.length === 0 ? `No claim of ${vendor} at point "${point}".` : `Several claims of ${vendor} match "${point}".`;
   }
@@ -83,11 +81,7 @@ function findClaim(raw: Record<string, string>, claims: readonly CsvClaim[], fal
 }
 
 /** Checks every row; valid rows carry their Clopper-Pearson assessment, rejected rows every reason. */
-export function validateEvidenceRows(
-  text: string,
-  claims: readonly CsvClaim[],
-  fallbackClaimId: string | null,
-): CsvReport {
+export function validateEvidenceRows(text: string, claims: readonly CsvClaim[], fallbackClaimId: string | null): CsvReport {
   const { rows, fields, errors } = parseEvidenceCsv(text);
   const fileErrors = [...errors];
   const unknown = fields.filter((f) => f && !(CSV_COLUMNS as readonly string[]).includes(f));

@@ -39,7 +39,12 @@ export function channelSide(model: ChannelModel, run: number, claim: number): Ch
  * one (the code held up in worse conditions), and contradicts only at the claim's channel or a
  * milder one (it failed in conditions no worse). Otherwise it decides nothing: inconclusive.
  */
-export function countedStatus(model: ChannelModel, runChannel: number, claimChannel: number, measured: EvidenceStatus): { status: EvidenceStatus; finding: string } {
+export function countedStatus(
+  model: ChannelModel,
+  runChannel: number,
+  claimChannel: number,
+  measured: EvidenceStatus,
+): { status: EvidenceStatus; finding: string } {
   const side = channelSide(model, runChannel, claimChannel);
   const at = formatCondition(model, runChannel);
   const claimAt = formatCondition(model, claimChannel);
@@ -92,7 +97,11 @@ export function assessRun(
   const measured = assessEvidence({ errors: run.errors, trials: run.trials, claimed, confidence: run.confidence });
   const counted = countedStatus(claim.channelModel, run.channelValue, claim.channelValue, measured.status);
   const changed = counted.status !== measured.status;
-  return { ok: true, finding: counted.finding, result: { ...measured, status: counted.status, additionalTrialsNeeded: changed ? null : measured.additionalTrialsNeeded } };
+  return {
+    ok: true,
+    finding: counted.finding,
+    result: { ...measured, status: counted.status, additionalTrialsNeeded: changed ? null : measured.additionalTrialsNeeded },
+  };
 }
 
 /**

@@ -67,13 +67,19 @@ export function checkSignoff(input: {
   }
   const reasons: string[] = [];
   if (final < total) {
-    reasons.push(`${plural(total - final, "claim has", "claims have")} no final mark yet: accept each claim or reject it as impossible (a request for evidence or clarification is not final).`);
+    reasons.push(
+      `${plural(total - final, "claim has", "claims have")} no final mark yet: accept each claim or reject it as impossible (a request for evidence or clarification is not final).`,
+    );
   }
   if (input.openThreads > 0) {
-    reasons.push(`${plural(input.openThreads, "question to a vendor is", "questions to vendors are")} neither answered nor closed: wait for the answer or close the question with a reason.`);
+    reasons.push(
+      `${plural(input.openThreads, "question to a vendor is", "questions to vendors are")} neither answered nor closed: wait for the answer or close the question with a reason.`,
+    );
   }
   if (unverified > 0) {
-    reasons.push(`This tender is safety-relevant: ${plural(unverified, "accepted claim has", "accepted claims have")} no lab run that verifies it. Record a verifying run at the claim's channel or a harsher one.`);
+    reasons.push(
+      `This tender is safety-relevant: ${plural(unverified, "accepted claim has", "accepted claims have")} no lab run that verifies it. Record a verifying run at the claim's channel or a harsher one.`,
+    );
   }
   if (reasons.length > 0) return refuse(reasons.join(" "));
   return { ok: true, ...facts, reason: null, status: null };

@@ -85,7 +85,8 @@ export function checkBackup(source: string): BackupManifest {
   if (manifest.format !== BACKUP_FORMAT) throw new BackupError(`${source} is a backup in format "${manifest.format}", not ${BACKUP_FORMAT}.`);
   for (const file of manifest.files) {
     const at = path.join(source, file.path);
-    if (!fs.existsSync(at) || sha256Of(at) !== file.sha256) throw new BackupError(`The backup's file ${file.path} is missing or changed since the backup was made.`);
+    if (!fs.existsSync(at) || sha256Of(at) !== file.sha256)
+      throw new BackupError(`The backup's file ${file.path} is missing or changed since the backup was made.`);
   }
   return manifest;
 }

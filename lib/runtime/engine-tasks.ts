@@ -15,8 +15,7 @@ export const engineTasks = {
   /** The Bound explorer's verdict and charts. */
   charts: (view: BoundView) => buildBoundCharts(view),
   /** A lab's CSV file checked row by row, each run assessed against its claim. */
-  csv: (input: { csv: string; claims: CsvClaim[]; fallbackId: string | null }) =>
-    validateEvidenceRows(input.csv, input.claims, input.fallbackId),
+  csv: (input: { csv: string; claims: CsvClaim[]; fallbackId: string | null }) => validateEvidenceRows(input.csv, input.claims, input.fallbackId),
 };
 
 export type EngineTasks = typeof engineTasks;
@@ -27,7 +26,4 @@ export type EngineOutput<K extends EngineKind> = ReturnType<EngineTasks[K]>;
 /** What the pool sends a worker, and what comes back. */
 export type EngineJob = { id: number; kind: EngineKind; input: unknown; spinMs: number };
 export type EngineReply =
-  | { ready: true }
-  | { id: number; progress: number }
-  | { id: number; ok: true; value: unknown }
-  | { id: number; ok: false; message: string };
+  { ready: true } | { id: number; progress: number } | { id: number; ok: true; value: unknown } | { id: number; ok: false; message: string };

@@ -39,7 +39,10 @@ export function residualInTargetMetric(claim: Pick<ScoringClaim, "metric" | "val
  *              clamp(0.5 + 0.5 * (threshold - claimed) / CHANNEL_DB_FULL) for Eb/N0 (dB),
  *   f = 1 plausible, 0.5 needs evidence. Larger margins never lower the score (monotone).
  */
-export function pointScore(claim: ScoringClaim | undefined, tender: Pick<ScoringTender, "targetMetric" | "targetValue">): { score: number; meets: boolean; note: string } {
+export function pointScore(
+  claim: ScoringClaim | undefined,
+  tender: Pick<ScoringTender, "targetMetric" | "targetValue">,
+): { score: number; meets: boolean; note: string } {
   if (!claim) return { score: 0, meets: false, note: "No claim at this point." };
   if (claim.sensitivity && !claim.sensitivity.meets) return { score: 0, meets: false, note: claim.sensitivity.note };
   // A sensitivity claim is held to its point's own PER (checked above), not to the tender-wide residual error.

@@ -33,7 +33,8 @@ export interface ComparisonRow {
 }
 
 export function formatMargin(claim: ScoringClaim | undefined): string {
-  if (claim?.sensitivity) return claim.sensitivity.marginDb === null ? "–" : `${formatMarginDb(claim.sensitivity.marginDb)} (worst: ${claim.sensitivity.place})`;
+  if (claim?.sensitivity)
+    return claim.sensitivity.marginDb === null ? "–" : `${formatMarginDb(claim.sensitivity.marginDb)} (worst: ${claim.sensitivity.place})`;
   if (!claim || claim.channelMargin === null) return "–";
   if (claim.channelKind === "dB") return `${claim.channelMargin >= 0 ? "+" : ""}${claim.channelMargin.toFixed(2)} dB`;
   return `×${formatSci(claim.channelMargin, 2)}`;

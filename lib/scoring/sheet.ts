@@ -1,17 +1,17 @@
 // The score sheet: every offer's criteria, weighted, penalised or disqualified, and ranked.
 // Pure, so the server computes it on every read and the what-if panel recomputes it in the browser.
+import { clamp, evidenceScore, leadTimeScore, pointScore, priceScore, technicalScore, totalPriceAt, unitPriceAt, warrantyScore } from "./criteria";
 import {
-  clamp,
-  evidenceScore,
-  leadTimeScore,
-  pointScore,
-  priceScore,
-  technicalScore,
-  totalPriceAt,
-  unitPriceAt,
-  warrantyScore,
-} from "./criteria";
-import { CRITERIA, type Criterion, type OfferScore, type ScoreLine, type ScoreSheet, type ScoringClaim, type ScoringInput, type ScoringOffer, type ScoringWeights } from "./types";
+  CRITERIA,
+  type Criterion,
+  type OfferScore,
+  type ScoreLine,
+  type ScoreSheet,
+  type ScoringClaim,
+  type ScoringInput,
+  type ScoringOffer,
+  type ScoringWeights,
+} from "./types";
 import { formatMoney } from "@/lib/format";
 import { acceptedAgainstImpossible } from "@/lib/review/marks";
 
@@ -38,7 +38,9 @@ export function confirmedImpossible(claims: readonly ScoringClaim[], pointLabels
 export function acceptedImpossibleFlags(claims: readonly ScoringClaim[], pointLabels: readonly string[]): string[] {
   return claims
     .filter(acceptedAgainstImpossible)
-    .map((c) => `Accepted although the engine found it impossible (${pointLabels[c.pointIndex] ?? `point ${c.pointIndex + 1}`}): see the engineer's justification`);
+    .map(
+      (c) => `Accepted although the engine found it impossible (${pointLabels[c.pointIndex] ?? `point ${c.pointIndex + 1}`}): see the engineer's justification`,
+    );
 }
 
 const comparable = (o: ScoringOffer, currency: string) => o.envelope !== null && o.envelope.currency === currency;
@@ -106,7 +108,12 @@ export function buildScoreSheet(input: ScoringInput, weights: ScoringWeights = i
         ? line("price", null, sealedText, null)
         : needsConversion
           ? line("price", null, `Offered in ${env.currency}: needs conversion to ${tender.currency}`, null)
-          : line("price", total, `${formatMoney(total!, tender.currency)} (${units.format(tender.quantity)} × ${formatMoney(unit!, tender.currency)})`, priceScore(total!, lowest ?? total!)),
+          : line(
+              "price",
+              total,
+              `${formatMoney(total!, tender.currency)} (${units.format(tender.quantity)} × ${formatMoney(unit!, tender.currency)})`,
+              priceScore(total!, lowest ?? total!),
+            ),
       !env
         ? line("leadTime", null, sealedText, null)
         : line("leadTime", env.leadTimeWeeks, `${env.leadTimeWeeks} weeks`, leadTimeScore(env.leadTimeWeeks, shortest ?? env.leadTimeWeeks)),

@@ -62,8 +62,10 @@ export interface Envelope {
 }
 
 /** The offer's own fields as stored, with its vendor's name and the envelope as the viewer may read it. */
-export interface ScoringOffer
-  extends Pick<typeof offers.$inferSelect, "id" | "vendorOrgId" | "moduleName" | "partNumber" | "codeFamily" | "decision" | "n" | "k" | "rate"> {
+export interface ScoringOffer extends Pick<
+  typeof offers.$inferSelect,
+  "id" | "vendorOrgId" | "moduleName" | "partNumber" | "codeFamily" | "decision" | "n" | "k" | "rate"
+> {
   vendorName: string;
   envelope: Envelope | null;
   claims: ScoringClaim[];

@@ -77,9 +77,19 @@ export function computedField(expression: SQL): (operator: string, value: unknow
       case "ne":
         return sql`${expression} <> ${value}`;
       case "in":
-        return list.length ? sql`${expression} in (${sql.join(list.map((v) => sql`${v}`), sql`, `)})` : FALSE;
+        return list.length
+          ? sql`${expression} in (${sql.join(
+              list.map((v) => sql`${v}`),
+              sql`, `,
+            )})`
+          : FALSE;
       case "nin":
-        return list.length ? sql`${expression} not in (${sql.join(list.map((v) => sql`${v}`), sql`, `)})` : TRUE;
+        return list.length
+          ? sql`${expression} not in (${sql.join(
+              list.map((v) => sql`${v}`),
+              sql`, `,
+            )})`
+          : TRUE;
       default:
         throw new Error(`The policy operator "${operator}" has no SQL form on a computed field.`);
     }

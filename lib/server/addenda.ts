@@ -16,7 +16,12 @@ const addendumSubject = (tender: TenderWithInvites) => asSubject("Addendum", { t
 async function addendaOf(db: Queryable, tenderId: string) {
   const rows = await db.select().from(addenda).where(eq(addenda.tenderId, tenderId));
   const acks = await db
-    .select({ addendumId: addendumAcknowledgements.addendumId, vendorOrgId: addendumAcknowledgements.vendorOrgId, vendorName: organisations.name, at: addendumAcknowledgements.acknowledgedAt })
+    .select({
+      addendumId: addendumAcknowledgements.addendumId,
+      vendorOrgId: addendumAcknowledgements.vendorOrgId,
+      vendorName: organisations.name,
+      at: addendumAcknowledgements.acknowledgedAt,
+    })
     .from(addendumAcknowledgements)
     .innerJoin(addenda, eq(addenda.id, addendumAcknowledgements.addendumId))
     .innerJoin(organisations, eq(organisations.id, addendumAcknowledgements.vendorOrgId))
@@ -55,11 +60,17 @@ export async function publishAddendum(viewer: Viewer, tenderId: string, input: A
   authorize(viewer, "create", addendumSubject(tender), "Declare on this tender before you publish an addendum to it.");
   const db = await getDb();
   if (input.threadId) {
-    const [thread] = await db.select({ id: threads.id }).from(threads).where(and(eq(threads.id, input.threadId), eq(threads.tenderId, tenderId)));
+    const [thread] = await db
+      .select({ id: threads.id })
+      .from(threads)
+      .where(and(eq(threads.id, input.threadId), eq(threads.tenderId, tenderId)));
     if (!thread) throw new InputError("That clarification thread is not one of this tender's.", { threadId: ["Choose a thread of this tender, or none."] });
   }
   const row = await db.transaction(async (tx) => {
-    const [inserted] = await tx.insert(addenda).values({ tenderId, threadId: input.threadId ?? null, title: input.title, body: input.body, publishedBy: viewer.actor.id }).returning();
+    const [inserted] = await tx
+      .insert(addenda)
+      .values({ tenderId, threadId: input.threadId ?? null, title: input.title, body: input.body, publishedBy: viewer.actor.id })
+      .returning();
     await appendLedger(tx, {
       tenderId,
       actor: ledgerActor(viewer),
@@ -89,9 +100,20 @@ export async function acknowledgeAddendum(viewer: Viewer, addendumId: string) {
   authorize(viewer, "acknowledge", addendumSubject(tender), "Only an invited vendor acknowledges an addendum.");
   const vendorOrgId = viewer.actor.organisationId;
   await db.transaction(async (tx) => {
-    const added = await tx.insert(addendumAcknowledgements).values({ addendumId, vendorOrgId, acknowledgedBy: viewer.actor.id }).onConflictDoNothing().returning();
+    const added = await tx
+      .insert(addendumAcknowledgements)
+      .values({ addendumId, vendorOrgId, acknowledgedBy: viewer.actor.id })
+      .onConflictDoNothing()
+      .returning();
     if (added.length === 0) return;
-    await appendLedger(tx, { tenderId: row.tenderId, actor: ledgerActor(viewer), action: "addendum.acknowledged", subjectType: "Addendum", subjectId: addendumId, data: { title: row.title, vendor: viewer.organisationName, vendorOrgId } });
+    await appendLedger(tx, {
+      tenderId: row.tenderId,
+      actor: ledgerActor(viewer),
+      action: "addendum.acknowledged",
+      subjectType: "Addendum",
+      subjectId: addendumId,
+      data: { title: row.title, vendor: viewer.organisationName, vendorOrgId },
+    });
   });
   return { addendumId, acknowledged: true };
 }

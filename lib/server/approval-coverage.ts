@@ -66,9 +66,16 @@ export async function recommendationCoverage(
   rule: BandRule,
   candidates?: Candidate[],
 ): Promise<Coverage<Candidate>> {
-  const conflicted = (await db.select().from(declarations).where(eq(declarations.tenderId, tender.id))).filter((d) => d.conflictedOrgIds.length > 0).map((d) => d.userId);
+  const conflicted = (await db.select().from(declarations).where(eq(declarations.tenderId, tender.id)))
+    .filter((d) => d.conflictedOrgIds.length > 0)
+    .map((d) => d.userId);
   const approvedBy = rec.id
-    ? (await db.select({ id: approvals.approverId }).from(approvals).where(and(eq(approvals.recommendationId, rec.id), eq(approvals.decision, "approved")))).map((a) => a.id)
+    ? (
+        await db
+          .select({ id: approvals.approverId })
+          .from(approvals)
+          .where(and(eq(approvals.recommendationId, rec.id), eq(approvals.decision, "approved")))
+      ).map((a) => a.id)
     : [];
   return coverage(candidates ?? (await approverCandidates(db)), {
     value: governingValue(rec),
@@ -102,7 +109,9 @@ export async function stuckRecommendations(db: Queryable): Promise<{ tenderId: s
   const stuck: { tenderId: string; problem: string }[] = [];
   for (const { tender, rec } of await pendingRecommendations(db)) {
     const rule = await ruleFor(db, rec).catch((error: unknown) => (error instanceof ConflictError ? null : Promise.reject(error)));
-    const problem = rule ? pendingShortfall(await recommendationCoverage(db, tender, rec, rule)) : "No approval band covers its value: an admin must add one on the Approval limits page, or the buyer can withdraw it.";
+    const problem = rule
+      ? pendingShortfall(await recommendationCoverage(db, tender, rec, rule))
+      : "No approval band covers its value: an admin must add one on the Approval limits page, or the buyer can withdraw it.";
     if (problem) stuck.push({ tenderId: tender.id, problem });
   }
   return stuck;
@@ -122,7 +131,10 @@ export interface PersonChange {
  */
 export async function strandProblem(db: Queryable, change: PersonChange): Promise<string | null> {
   const before = await approverCandidates(db);
-  const [row] = await db.select({ id: users.id, name: users.name, email: users.email, approvalLimit: users.approvalLimit, active: users.active }).from(users).where(eq(users.id, change.userId));
+  const [row] = await db
+    .select({ id: users.id, name: users.name, email: users.email, approvalLimit: users.approvalLimit, active: users.active })
+    .from(users)
+    .where(eq(users.id, change.userId));
   if (!row) return null;
   const roles = change.roles ?? (await db.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, change.userId))).map((r) => r.role);
   const stays = (change.active ?? row.active) && roles.includes("approver");
@@ -149,4 +161,3 @@ export async function bandWarnings(db: Queryable, bands: readonly Band[]): Promi
   const limits = (await approverCandidates(db)).map((c) => c.approvalLimit);
   return bands.map((band) => bandWarning(band, limits)).filter((w): w is string => w !== null);
 }
-

@@ -43,9 +43,7 @@ const isUniqueViolation = (error: unknown): boolean =>
   error instanceof Error && (/approvals_once_idx|duplicate key/.test(error.message) || isUniqueViolation(error.cause));
 
 type Outcome =
-  | { kind: "returned"; comment: string }
-  | { kind: "approved"; given: number; needed: number; approvedBy: string[] }
-  | { kind: "awarded"; memo: MemoRow };
+  { kind: "returned"; comment: string } | { kind: "approved"; given: number; needed: number; approvedBy: string[] } | { kind: "awarded"; memo: MemoRow };
 
 /**
  * Approves or returns the recommendation awaiting approval. Refusals (403: limits, segregation of
@@ -83,7 +81,11 @@ export async function decideRecommendation(viewer: Viewer, tenderId: string, inp
       if (input.decision === "return") {
         await tx.update(recommendations).set({ status: "returned" }).where(eq(recommendations.id, rec.id));
         await tx.update(tenders).set({ state: "commercial" }).where(eq(tenders.id, tenderId));
-        await appendLedger(tx, { ...base, action: "recommendation.returned", data: { recommendationId: rec.id, from: "approval", to: "commercial", comment: input.comment } });
+        await appendLedger(tx, {
+          ...base,
+          action: "recommendation.returned",
+          data: { recommendationId: rec.id, from: "approval", to: "commercial", comment: input.comment },
+        });
         return { kind: "returned", comment: input.comment };
       }
       const given = approvedBy.length + 1;
@@ -103,12 +105,22 @@ export async function decideRecommendation(viewer: Viewer, tenderId: string, inp
         action: "tender.awarded",
         subjectType: "Tender",
         subjectId: tenderId,
-        data: { from: "approval", to: "awarded", recommendationId: rec.id, offerId: rec.offerId, value: rec.value, currency: rec.currency, memo: memo.identifier, sha256: memo.sha256 },
+        data: {
+          from: "approval",
+          to: "awarded",
+          recommendationId: rec.id,
+          offerId: rec.offerId,
+          value: rec.value,
+          currency: rec.currency,
+          memo: memo.identifier,
+          sha256: memo.sha256,
+        },
       });
       return { kind: "awarded", memo };
     })
     .catch((error: unknown) => {
-      if (isUniqueViolation(error)) throw new ConflictError("You have already decided on this recommendation; the same person cannot give two of the approvals its band needs.");
+      if (isUniqueViolation(error))
+        throw new ConflictError("You have already decided on this recommendation; the same person cannot give two of the approvals its band needs.");
       throw error;
     });
 
@@ -119,7 +131,10 @@ export async function decideRecommendation(viewer: Viewer, tenderId: string, inp
 }
 
 async function emailOf(db: Queryable, userId: string): Promise<string[]> {
-  const [u] = await db.select({ email: users.email }).from(users).where(and(eq(users.id, userId), eq(users.active, true)));
+  const [u] = await db
+    .select({ email: users.email })
+    .from(users)
+    .where(and(eq(users.id, userId), eq(users.active, true)));
   return u ? [u.email] : [];
 }
 
@@ -148,12 +163,21 @@ export async function awardNotices(db: Queryable, tender: TenderRow, rec: Recomm
   const standings = standingsOf(rec.scoreSheet);
   const disclosure = awardDisclosure(tender, winner.vendorName, standings.find((x) => x.offerId === rec.offerId) ?? null, memo.createdAt);
   const notices: Notice[] = [
-    { to: await emailOf(db, rec.preparedBy), ...words.awardedNotice(tender, winner.vendorName, formatMoney(rec.value, rec.currency), memo.identifier, memo.sha256) },
-    { to: await addressesOf(db, [winner.vendorOrgId], "vendor"), ...words.awardNotice(tender, { ...winner, quantity: rec.quantity, value: rec.value, currency: rec.currency }, memo.identifier, disclosure) },
+    {
+      to: await emailOf(db, rec.preparedBy),
+      ...words.awardedNotice(tender, winner.vendorName, formatMoney(rec.value, rec.currency), memo.identifier, memo.sha256),
+    },
+    {
+      to: await addressesOf(db, [winner.vendorOrgId], "vendor"),
+      ...words.awardNotice(tender, { ...winner, quantity: rec.quantity, value: rec.value, currency: rec.currency }, memo.identifier, disclosure),
+    },
   ];
   for (const other of current.filter((o) => o.vendorOrgId !== winner.vendorOrgId)) {
     const own = standings.find((s) => s.offerId === other.offerId) ?? null;
-    notices.push({ to: await addressesOf(db, [other.vendorOrgId], "vendor"), ...words.regretNotice(tender, other.vendorName, own, rankedCount(standings), disclosure) });
+    notices.push({
+      to: await addressesOf(db, [other.vendorOrgId], "vendor"),
+      ...words.regretNotice(tender, other.vendorName, own, rankedCount(standings), disclosure),
+    });
   }
   return notices;
 }

@@ -26,7 +26,16 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
   const db = await getDb();
   const declared = viewer.actor.declarations.some((d) => d.tenderId === tenderId);
   const canDeclare = !declared && viewer.ability.can("declare", tenderSubject(tender)) && viewer.actor.roles.includes("approver");
-  const summary = { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, currency: tender.currency, zone: tender.closesZone, awardedAt: tender.awardedAt, safetyRelevant: tender.safetyRelevant };
+  const summary = {
+    id: tender.id,
+    reference: tender.reference,
+    title: tender.title,
+    state: tender.state,
+    currency: tender.currency,
+    zone: tender.closesZone,
+    awardedAt: tender.awardedAt,
+    safetyRelevant: tender.safetyRelevant,
+  };
   const rec = await getCurrentRecommendation(db, tenderId);
   const readsRec = rec !== null && viewer.ability.can("read", asSubject("Recommendation", { tenderId, preparedBy: rec.preparedBy, value: rec.value }));
   if (!rec || !readsRec) return { tender: summary, declared, canDeclare, recommendation: null };
@@ -39,15 +48,30 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
     .innerJoin(users, eq(users.id, rec.preparedBy))
     .where(eq(offers.id, rec.offerId));
   const offerList = (await currentOffersWithClaims(db, tender)).filter((o) =>
-    viewer.ability.can("read", asSubject("Offer", { id: o.id, tenderId, vendorOrgId: o.vendorOrgId, tenderState: recordTenderState(tender), envelopeOpened: tender.envelopesOpenedAt !== null })),
+    viewer.ability.can(
+      "read",
+      asSubject("Offer", {
+        id: o.id,
+        tenderId,
+        vendorOrgId: o.vendorOrgId,
+        tenderState: recordTenderState(tender),
+        envelopeOpened: tender.envelopesOpenedAt !== null,
+      }),
+    ),
   );
-  const readsMark = (c: { id: string; vendorOrgId: string }) => viewer.ability.can("read", asSubject("Mark", { claimId: c.id, tenderId, vendorOrgId: c.vendorOrgId }));
+  const readsMark = (c: { id: string; vendorOrgId: string }) =>
+    viewer.ability.can("read", asSubject("Mark", { claimId: c.id, tenderId, vendorOrgId: c.vendorOrgId }));
   const { decisions, earlier } = await decisionsByRecommendation(db, tenderId, rec.id);
   const covered = rule ? await recommendationCoverage(db, tender, rec, rule) : null;
   const given = await approvalsGiven(db, rec.id);
   const mayAct = viewer.actor.roles.includes("approver");
   const refusal = !mayAct ? null : rule ? refusalFor(viewer, tender, rec, rule) : "No approval band covers this value yet.";
-  const problem = decisionProblem({ tenderState: tender.state, pending: rec.status === "pending", approverId: viewer.actor.id, approvedBy: given.map((g) => g.approverId) });
+  const problem = decisionProblem({
+    tenderState: tender.state,
+    pending: rec.status === "pending",
+    approverId: viewer.actor.id,
+    approvedBy: given.map((g) => g.approverId),
+  });
   const allowed = mayAct && !refusal && !problem && viewer.ability.can("approve", asSubject("Approval", approvalRecord(tender, rec)));
   const [memo] = await db.select().from(memos).where(eq(memos.tenderId, tenderId));
   const readsMemo = viewer.ability.can("read", asSubject("Memo", { tenderId }));
@@ -84,7 +108,12 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
       claims: o.claims
         .filter((c) => viewer.ability.can("read", asSubject("Claim", { id: c.id, offerId: o.id, tenderId, vendorOrgId: c.vendorOrgId })))
         .map((c) => ({
-          id: c.id, point: c.pointLabel, metric: c.metric, value: c.value, ncgOutputBer: c.ncgOutputBer, verdict: c.verdict,
+          id: c.id,
+          point: c.pointLabel,
+          metric: c.metric,
+          value: c.value,
+          ncgOutputBer: c.ncgOutputBer,
+          verdict: c.verdict,
           ...(readsMark(c) ? { mark: c.mark, markComment: c.markComment } : { mark: null, markComment: "" }),
         })),
     })),
@@ -92,9 +121,22 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
     earlier,
     routedTo: covered ? covered.eligible.map((u) => u.name) : [],
     /** Why nobody can finish approving it (pending only), or null. */
-    stuck: rec.status !== "pending" ? null : covered ? pendingShortfall(covered) : "No approval band covers its value: an admin must add one on the Approval limits page.",
-    canWithdraw: rec.status === "pending" && tender.state === "approval" && viewer.ability.can("withdraw", asSubject("Recommendation", { tenderId, preparedBy: rec.preparedBy, value: rec.value })),
-    me: { mayAct, allowed, reason: refusal ?? (mayAct ? problem : null), awardsIfApproved: allowed && rule !== null && isFullyApproved(given.length + 1, rule) },
+    stuck:
+      rec.status !== "pending"
+        ? null
+        : covered
+          ? pendingShortfall(covered)
+          : "No approval band covers its value: an admin must add one on the Approval limits page.",
+    canWithdraw:
+      rec.status === "pending" &&
+      tender.state === "approval" &&
+      viewer.ability.can("withdraw", asSubject("Recommendation", { tenderId, preparedBy: rec.preparedBy, value: rec.value })),
+    me: {
+      mayAct,
+      allowed,
+      reason: refusal ?? (mayAct ? problem : null),
+      awardsIfApproved: allowed && rule !== null && isFullyApproved(given.length + 1, rule),
+    },
     memo: memo && readsMemo ? { identifier: memo.identifier, sha256: memo.sha256, size: memo.size, createdAt: memo.createdAt } : null,
     canPreview: readsMemo,
   };
@@ -106,7 +148,14 @@ export async function getAwardSignOff(viewer: Viewer, tenderId: string) {
  */
 async function decisionsByRecommendation(db: Queryable, tenderId: string, currentId: string) {
   const rows = await db
-    .select({ id: approvals.id, recommendationId: approvals.recommendationId, name: users.name, decision: approvals.decision, comment: approvals.comment, decidedAt: approvals.decidedAt })
+    .select({
+      id: approvals.id,
+      recommendationId: approvals.recommendationId,
+      name: users.name,
+      decision: approvals.decision,
+      comment: approvals.comment,
+      decidedAt: approvals.decidedAt,
+    })
     .from(approvals)
     .innerJoin(users, eq(users.id, approvals.approverId))
     .where(eq(approvals.tenderId, tenderId))

@@ -47,7 +47,12 @@ async function marginsOf(db: Queryable, rows: { id: string; evaluatedAt: string 
         k: sql<number | null>`(${claims.result}->>'k')::float8`,
       })
       .from(claims)
-      .where(inArray(claims.id, missing.map((r) => r.id)));
+      .where(
+        inArray(
+          claims.id,
+          missing.map((r) => r.id),
+        ),
+      );
     if (marginCache.size + read.length > MARGIN_CACHE_LIMIT) marginCache.clear();
     for (const r of read) marginCache.set(key(r), { ...scoringMargins(r.margins), k: r.k });
   }
@@ -98,7 +103,12 @@ async function loadClaims(db: Queryable, viewer: Viewer, tender: Pick<TenderRow,
           .where(eq(marks.tenderId, tenderId))
           .orderBy(marks.claimId, desc(marks.markedAt), desc(marks.id))
       : [],
-    ability.can("read", "EvidenceRun") ? db.select({ claimId: evidenceRuns.claimId, channelValue: evidenceRuns.channelValue, status: evidenceRuns.status }).from(evidenceRuns).where(eq(evidenceRuns.tenderId, tenderId)) : [],
+    ability.can("read", "EvidenceRun")
+      ? db
+          .select({ claimId: evidenceRuns.claimId, channelValue: evidenceRuns.channelValue, status: evidenceRuns.status })
+          .from(evidenceRuns)
+          .where(eq(evidenceRuns.tenderId, tenderId))
+      : [],
   ]);
   const visible = rows.filter((c) => offerIds.has(c.offerId) && readsClaim(c.vendorOrgId));
   const margins = await marginsOf(db, visible);
@@ -118,7 +128,9 @@ async function loadClaims(db: Queryable, viewer: Viewer, tender: Pick<TenderRow,
         verdict: c.verdict,
         ...margins.get(c.id)!,
         // A sensitivity claim is scored on its worst point's margin in dB (line or curve).
-        ...(c.radio ? { channelMargin: c.radio.worst.marginDb, channelKind: "dB" as const, rateGapFraction: null, sensitivity: sensitivityScoring(c.radio, c.value) } : {}),
+        ...(c.radio
+          ? { channelMargin: c.radio.worst.marginDb, channelKind: "dB" as const, rateGapFraction: null, sensitivity: sensitivityScoring(c.radio, c.value) }
+          : {}),
         mark: mark ? (mark.mark as MarkKind) : null,
         evidence: readsRuns(c.vendorOrgId) ? summariseRuns(tender.channelModel, c.channelValue, runs.get(c.id) ?? []) : ("none" as const),
       },
@@ -140,14 +152,23 @@ export async function loadScoringInput(db: Queryable, viewer: Viewer, tender: Te
     .orderBy(asc(organisations.name));
   const envelopeOpened = tender.envelopesOpenedAt !== null;
   const readable = rows.filter(({ offer }) =>
-    viewer.ability.can("read", asSubject("Offer", { id: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId, tenderState: recordTenderState(tender), envelopeOpened })),
+    viewer.ability.can(
+      "read",
+      asSubject("Offer", { id: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId, tenderState: recordTenderState(tender), envelopeOpened }),
+    ),
   );
   const claimRows = await loadClaims(db, viewer, tender, new Set(readable.map((r) => r.offer.id)));
   const scoringOffers = readable.map(({ offer, vendorName }): ScoringOffer => {
     const visible = offerFor(viewer, offer, tender);
     const envelope: Envelope | null =
       visible.unitPrice !== undefined && visible.currency !== undefined && visible.leadTimeWeeks !== undefined && visible.warrantyMonths !== undefined
-        ? { unitPrice: visible.unitPrice, currency: visible.currency, leadTimeWeeks: visible.leadTimeWeeks, warrantyMonths: visible.warrantyMonths, priceBreaks: visible.priceBreaks ?? [] }
+        ? {
+            unitPrice: visible.unitPrice,
+            currency: visible.currency,
+            leadTimeWeeks: visible.leadTimeWeeks,
+            warrantyMonths: visible.warrantyMonths,
+            priceBreaks: visible.priceBreaks ?? [],
+          }
         : null;
     return {
       id: offer.id,

@@ -25,7 +25,7 @@ async function explainFirstAdmin(db: Db) {
   if (row.n > 0) return;
   console.log(
     "Ratecourt has no accounts yet. Create the first administrator with\n" +
-      "  npm run admin:create -- --email you@example.org --name \"Your Name\" --organisation \"Your organisation\"\n" +
+      '  npm run admin:create -- --email you@example.org --name "Your Name" --organisation "Your organisation"\n' +
       "(with the embedded database, stop the server first). It prints a one-time password to change at first sign-in.",
   );
 }

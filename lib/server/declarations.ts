@@ -57,10 +57,7 @@ export async function createDeclaration(viewer: Viewer, tenderId: string, input:
       .from(declarations)
       .where(and(eq(declarations.tenderId, tenderId), eq(declarations.userId, viewer.actor.id)));
     if (existing) throw new ConflictError("You have already declared on this tender; a declaration cannot be changed.");
-    const [row] = await tx
-      .insert(declarations)
-      .values({ tenderId, userId: viewer.actor.id, conflictedOrgIds: named, statement: input.statement })
-      .returning();
+    const [row] = await tx.insert(declarations).values({ tenderId, userId: viewer.actor.id, conflictedOrgIds: named, statement: input.statement }).returning();
     await appendLedger(tx, {
       tenderId,
       actor: ledgerActor(viewer),

@@ -66,22 +66,53 @@ export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
   if (roles.includes("admin")) sections.push(await objectionsSection(visible));
   else if (roles.includes("buyer")) sections.push(await objectionsSection(visible.filter((t) => t.createdBy === viewer.actor.id)));
   if (roles.includes("buyer")) {
-    sections.push(capped({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id), tab: "" }, ["draft"]));
+    sections.push(
+      capped({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id), tab: "" }, [
+        "draft",
+      ]),
+    );
     sections.push(capped({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open"), tab: "" }, ["open"]));
-    sections.push(capped({ title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tenders: inState("commercial"), tab: "comparison" }, ["commercial"]));
+    sections.push(
+      capped({ title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tenders: inState("commercial"), tab: "comparison" }, ["commercial"]),
+    );
   }
   if (roles.includes("engineer")) {
-    sections.push(capped({ title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tenders: inState("technical"), tab: "review" }, ["technical"]));
+    sections.push(
+      capped({ title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tenders: inState("technical"), tab: "review" }, [
+        "technical",
+      ]),
+    );
   }
   if (roles.includes("approver")) {
-    sections.push(capped({ title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tenders: inState("approval"), tab: "sign-off" }, ["approval"]));
+    sections.push(
+      capped({ title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tenders: inState("approval"), tab: "sign-off" }, [
+        "approval",
+      ]),
+    );
   }
   if (roles.includes("vendor")) {
     sections.push(capped({ title: "Tenders you are invited to", empty: "No open invitation.", tenders: inState("open"), tab: "offer" }, ["open"]));
-    sections.push(capped({ title: "Under evaluation or decided", empty: "Nothing under evaluation.", tenders: inState("technical", "commercial", "approval", "awarded"), tab: "" }, ["technical", "commercial", "approval", "awarded"]));
+    sections.push(
+      capped(
+        {
+          title: "Under evaluation or decided",
+          empty: "Nothing under evaluation.",
+          tenders: inState("technical", "commercial", "approval", "awarded"),
+          tab: "",
+        },
+        ["technical", "commercial", "approval", "awarded"],
+      ),
+    );
   }
   if (roles.includes("admin")) {
-    sections.push(capped({ title: "Tenders in progress", empty: "No tender in progress.", tenders: inState("open", "technical", "commercial", "approval"), tab: "" }, ["open", "technical", "commercial", "approval"]));
+    sections.push(
+      capped({ title: "Tenders in progress", empty: "No tender in progress.", tenders: inState("open", "technical", "commercial", "approval"), tab: "" }, [
+        "open",
+        "technical",
+        "commercial",
+        "approval",
+      ]),
+    );
   }
   return sections;
 }

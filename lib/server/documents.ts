@@ -61,7 +61,8 @@ async function readPdfUpload(request: Request): Promise<{ kind: DocumentKind; fi
   if (!check.ok) {
     if (check.reason === "empty") throw new InputError("The file is empty.", { file: ["The file is empty."] });
     if (check.reason === "too-large") throw tooLarge();
-    if (check.reason === "executable") throw notPdf(`This file is a program or archive (${check.kind}), not a PDF, whatever its name says; upload the PDF itself.`);
+    if (check.reason === "executable")
+      throw notPdf(`This file is a program or archive (${check.kind}), not a PDF, whatever its name says; upload the PDF itself.`);
     throw notPdf("Only PDF files are accepted, and this file does not start like a PDF.");
   }
   return { kind: kind.data, fileName: pdfFileName(file.name), bytes };
@@ -90,7 +91,18 @@ export async function uploadDocument(viewer: Viewer, offerId: string, request: R
     const row = await db.transaction(async (tx) => {
       const [inserted] = await tx
         .insert(documents)
-        .values({ offerId: offer.id, tenderId: offer.tenderId, vendorOrgId: offer.vendorOrgId, kind: upload.kind, fileName: upload.fileName, contentType: "application/pdf", size: upload.bytes.length, sha256, storageKey, uploadedBy: viewer.actor.id })
+        .values({
+          offerId: offer.id,
+          tenderId: offer.tenderId,
+          vendorOrgId: offer.vendorOrgId,
+          kind: upload.kind,
+          fileName: upload.fileName,
+          contentType: "application/pdf",
+          size: upload.bytes.length,
+          sha256,
+          storageKey,
+          uploadedBy: viewer.actor.id,
+        })
         .returning();
       await appendLedger(tx, {
         tenderId: offer.tenderId,
@@ -113,7 +125,11 @@ export async function uploadDocument(viewer: Viewer, offerId: string, request: R
 /** A document's bytes for download, after the policy check. */
 export async function getDocumentFile(viewer: Viewer, documentId: string) {
   const db = await getDb();
-  const [found] = await db.select({ row: documents, tender: { state: tenders.state, cancelledSealed: tenders.cancelledSealed } }).from(documents).innerJoin(tenders, eq(tenders.id, documents.tenderId)).where(eq(documents.id, documentId));
+  const [found] = await db
+    .select({ row: documents, tender: { state: tenders.state, cancelledSealed: tenders.cancelledSealed } })
+    .from(documents)
+    .innerJoin(tenders, eq(tenders.id, documents.tenderId))
+    .where(eq(documents.id, documentId));
   if (!found) throw new NotFoundError("No such document.");
   const { row } = found;
   authorize(viewer, "read", asSubject("Document", documentRecord(row, recordTenderState(found.tender))), "This document is not yours to read.");

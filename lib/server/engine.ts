@@ -21,10 +21,13 @@ export function describeClaim({ channel, code, target }: ClaimInput): string {
     channel.model === "bec"
       ? `BEC e = ${channel.e}`
       : channel.model === "bsc"
-        ? channel.p !== undefined ? `BSC p = ${channel.p}` : `BSC, ${db("net coding gain", channel.ncgDb!)}`
+        ? channel.p !== undefined
+          ? `BSC p = ${channel.p}`
+          : `BSC, ${db("net coding gain", channel.ncgDb!)}`
         : soft();
   const length = code.n !== undefined ? `n = ${code.n}` : null;
-  const form = code.k !== undefined ? `k = ${code.k}` : code.rate !== undefined ? `rate ${code.rate}` : code.overhead !== undefined ? `overhead ${code.overhead}` : null;
+  const form =
+    code.k !== undefined ? `k = ${code.k}` : code.rate !== undefined ? `rate ${code.rate}` : code.overhead !== undefined ? `overhead ${code.overhead}` : null;
   return `${where}; ${[length, form].filter(Boolean).join(", ")}; ${target.metric.toUpperCase()} ${target.value}`;
 }
 
@@ -39,7 +42,12 @@ export function unfinishedMessage(error: EngineDeadlineError, what: string): str
  * Runs engine work in the worker pool. Past the deadline it answers 422 (this work itself ran too
  * long: `refusal` says what to do) or 503 (it waited for a busy engine: try again shortly).
  */
-export async function inEngine<K extends EngineKind>(kind: K, input: EngineInput<K>, what: (error: EngineDeadlineError) => string, refusal: string): Promise<EngineOutput<K>> {
+export async function inEngine<K extends EngineKind>(
+  kind: K,
+  input: EngineInput<K>,
+  what: (error: EngineDeadlineError) => string,
+  refusal: string,
+): Promise<EngineOutput<K>> {
   try {
     return await runEngine(kind, input);
   } catch (error) {

@@ -16,7 +16,12 @@ export async function evaluateClaims(viewer: Viewer, body: unknown): Promise<Cla
   if (!Array.isArray(body)) {
     const parsed = claimSchema.safeParse(body);
     if (!parsed.success) throw new InputError(formatClaimError(parsed.error), fieldErrorsOf(parsed.error));
-    const [result] = await inEngine("claims", [parsed.data], () => `this claim (${describeClaim(parsed.data)})`, "It has no verdict: check its values for an extreme channel value, block length or target.");
+    const [result] = await inEngine(
+      "claims",
+      [parsed.data],
+      () => `this claim (${describeClaim(parsed.data)})`,
+      "It has no verdict: check its values for an extreme channel value, block length or target.",
+    );
     return result;
   }
   if (body.length === 0) throw new InputError("Send one claim, or an array of 1 to 1000 claims.");

@@ -46,7 +46,16 @@ export async function recordEvidence(viewer: Viewer, claimId: string, input: Evi
       action: "evidence.recorded",
       subjectType: "EvidenceRun",
       subjectId: run.id,
-      data: { claimId, channel: input.channelValue, unit: input.unit, trials: input.trials, errors: input.errors, confidence: input.confidence, status: run.status, finding: run.finding },
+      data: {
+        claimId,
+        channel: input.channelValue,
+        unit: input.unit,
+        trials: input.trials,
+        errors: input.errors,
+        confidence: input.confidence,
+        status: run.status,
+        finding: run.finding,
+      },
     });
     return run;
   });
@@ -80,26 +89,41 @@ export async function importEvidence(viewer: Viewer, claimId: string, csv: strin
   const recordable: CsvClaim[] = rows
     .filter((r) => viewer.ability.can("record", runSubject(r.claim)))
     .map(({ claim: c, vendorName, tender }) => ({ ...c, vendorName, channelModel: tender.channelModel }));
-  const report = await inEngine("csv", { csv, claims: recordable, fallbackId: claimId }, () => "checking this lab file", "Nothing was stored: split the file into smaller ones and import them one by one.");
+  const report = await inEngine(
+    "csv",
+    { csv, claims: recordable, fallbackId: claimId },
+    () => "checking this lab file",
+    "Nothing was stored: split the file into smaller ones and import them one by one.",
+  );
   if (report.fileErrors.length > 0) throw new InputError(report.fileErrors.join(" "), { csv: report.fileErrors });
-  const outcome = (row: ValidRow, id: string | null): ImportedRow => ({ line: row.line, id, claimId: row.claimId, status: row.result.status, upper: row.result.upper, finding: row.finding });
+  const outcome = (row: ValidRow, id: string | null): ImportedRow => ({
+    line: row.line,
+    id,
+    claimId: row.claimId,
+    status: row.result.status,
+    upper: row.result.upper,
+    finding: row.finding,
+  });
   if (options.preview) return { preview: true, stored: report.valid.map((row) => outcome(row, null)), rejected: report.rejected, fileErrors: [] };
   const byId = new Map(rows.map((r) => [r.claim.id, r.claim]));
-  const stored = report.valid.length === 0 ? [] : await db.transaction(async (tx) => {
-    const out: ImportedRow[] = [];
-    for (const row of report.valid) {
-      const run = await insertEvidenceRun(tx, byId.get(row.claimId)!, row, row, { userId: viewer.actor.id, source: "csv" });
-      out.push(outcome(row, run.id));
-    }
-    await appendLedger(tx, {
-      tenderId: claim.tenderId,
-      actor: ledgerActor(viewer),
-      action: "evidence.imported",
-      subjectType: "EvidenceRun",
-      subjectId: null,
-      data: { stored: out.length, rejected: report.rejected.length, claims: [...new Set(out.map((r) => r.claimId))] },
-    });
-    return out;
-  });
+  const stored =
+    report.valid.length === 0
+      ? []
+      : await db.transaction(async (tx) => {
+          const out: ImportedRow[] = [];
+          for (const row of report.valid) {
+            const run = await insertEvidenceRun(tx, byId.get(row.claimId)!, row, row, { userId: viewer.actor.id, source: "csv" });
+            out.push(outcome(row, run.id));
+          }
+          await appendLedger(tx, {
+            tenderId: claim.tenderId,
+            actor: ledgerActor(viewer),
+            action: "evidence.imported",
+            subjectType: "EvidenceRun",
+            subjectId: null,
+            data: { stored: out.length, rejected: report.rejected.length, claims: [...new Set(out.map((r) => r.claimId))] },
+          });
+          return out;
+        });
   return { preview: false, stored, rejected: report.rejected, fileErrors: [] };
 }

@@ -56,13 +56,19 @@ export async function checkLinks(db: Queryable, from: Head, through: number, lim
 export async function checkAnchors(db: Queryable, after: number, fresh = false): Promise<{ problem: Break | null; anchors: Anchors }> {
   const anchors = await anchorsAfter(db, after, fresh);
   if (anchors.unreadable > 0) {
-    return { anchors, problem: { seq: after, reason: `${anchors.unreadable} line(s) of the checkpoint file outside the database are not checkpoints: it was edited` } };
+    return {
+      anchors,
+      problem: { seq: after, reason: `${anchors.unreadable} line(s) of the checkpoint file outside the database are not checkpoints: it was edited` },
+    };
   }
   const end = (await currentHead(db))?.seq ?? 0;
   const seqs = [...new Set(anchors.due.map((c) => c.seq))];
   const found = new Map<number, string>();
   for (let i = 0; i < seqs.length; i += CHECK_BATCH) {
-    const rows = await db.select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash }).from(ledgerEntries).where(inArray(ledgerEntries.seq, seqs.slice(i, i + CHECK_BATCH)));
+    const rows = await db
+      .select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash })
+      .from(ledgerEntries)
+      .where(inArray(ledgerEntries.seq, seqs.slice(i, i + CHECK_BATCH)));
     for (const row of rows) found.set(row.seq, row.hash);
   }
   const key = ledgerKey();
@@ -81,7 +87,10 @@ async function readState(db: Queryable) {
 /** Records the newest verified head, or a break (which stays until a full check finds the chain intact). */
 export async function saveState(db: Queryable, head: Head, broken: Break | null) {
   const values = { seq: head.seq, hash: head.hash, verifiedAt: new Date(), brokenAt: broken?.seq ?? null, reason: broken?.reason ?? null };
-  await db.insert(ledgerVerification).values({ id: STATE_ID, ...values }).onConflictDoUpdate({ target: ledgerVerification.id, set: values });
+  await db
+    .insert(ledgerVerification)
+    .values({ id: STATE_ID, ...values })
+    .onConflictDoUpdate({ target: ledgerVerification.id, set: values });
 }
 
 function report(verified: Head, verifiedAt: Date, checkedNow: number, broken: Break | null, anchors: Anchors): ChainCheck {
@@ -102,7 +111,8 @@ async function headProblem(db: Queryable, head: Head): Promise<Break | null> {
   if (head.seq === 0) return null;
   const [row] = await db.select({ hash: ledgerEntries.hash }).from(ledgerEntries).where(eq(ledgerEntries.seq, head.seq));
   if (!row) return { seq: head.seq, reason: `entry #${head.seq}, verified earlier, is gone: entries were removed` };
-  if (row.hash !== head.hash) return { seq: head.seq, reason: `entry #${head.seq} no longer has the hash it was verified with: entries up to it were rewritten` };
+  if (row.hash !== head.hash)
+    return { seq: head.seq, reason: `entry #${head.seq} no longer has the hash it was verified with: entries up to it were rewritten` };
   return null;
 }
 
@@ -158,7 +168,8 @@ export async function issuedHead(db: Queryable, head: Head): Promise<IssuedHead>
   let inVerifiedChain = false;
   if (!row) standing = `${entry} is no longer in the ledger: entries were removed.`;
   else if (row.hash !== head.hash) standing = `${entry} no longer has the hash it had at issue: the ledger was rewritten.`;
-  else if (check.brokenAt !== undefined && check.brokenAt <= head.seq) standing = `The ledger is broken at entry #${check.brokenAt}, at or before this one: ${check.reason}.`;
+  else if (check.brokenAt !== undefined && check.brokenAt <= head.seq)
+    standing = `The ledger is broken at entry #${check.brokenAt}, at or before this one: ${check.reason}.`;
   else {
     inVerifiedChain = true;
     standing =

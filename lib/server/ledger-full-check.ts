@@ -39,7 +39,10 @@ export async function startFullCheck(viewer: Viewer): Promise<FullCheck> {
 /** The end of a check: all signed checkpoints against the chain, then the verified head. */
 async function finish(db: Queryable, check: FullCheck, last: { seq: number; hash: string }): Promise<Break | null> {
   if (last.seq < check.throughSeq) {
-    return { seq: last.seq + 1, reason: `the ledger reached entry #${check.throughSeq} when this check started, and now ends at entry #${last.seq}: entries were removed` };
+    return {
+      seq: last.seq + 1,
+      reason: `the ledger reached entry #${check.throughSeq} when this check started, and now ends at entry #${last.seq}: entries were removed`,
+    };
   }
   const { problem } = await checkAnchors(db, 0, true);
   if (problem) return problem;

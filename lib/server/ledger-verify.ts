@@ -36,7 +36,10 @@ export async function verifyTenderLedger(viewer: Viewer, tenderId: string): Prom
   const db = await getDb();
   const check = await verifyNew(db);
   const ofTender = (upTo?: number) =>
-    db.select({ n: count() }).from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, tenderId), upTo === undefined ? undefined : lte(ledgerEntries.seq, upTo)));
+    db
+      .select({ n: count() })
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, tenderId), upTo === undefined ? undefined : lte(ledgerEntries.seq, upTo)));
   const [[{ n: entries }], broken] = await Promise.all([
     ofTender(),
     check.brokenAt === undefined ? null : db.select({ tenderId: ledgerEntries.tenderId }).from(ledgerEntries).where(eq(ledgerEntries.seq, check.brokenAt)),

@@ -22,11 +22,7 @@ const appendedIn = new WeakSet<Queryable>();
 /** Takes the append lock and returns the head to chain onto, signing a checkpoint first when one is due. */
 async function lockHead(tx: Queryable) {
   await tx.execute(sql`select pg_advisory_xact_lock(${ADVISORY_LOCKS.ledgerAppend})`);
-  const [last] = await tx
-    .select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash })
-    .from(ledgerEntries)
-    .orderBy(desc(ledgerEntries.seq))
-    .limit(1);
+  const [last] = await tx.select({ seq: ledgerEntries.seq, hash: ledgerEntries.hash }).from(ledgerEntries).orderBy(desc(ledgerEntries.seq)).limit(1);
   await checkpointIfDue(tx, last ?? null, appendedIn.has(tx));
   appendedIn.add(tx);
   return last?.hash ?? GENESIS_HASH;
@@ -49,7 +45,10 @@ function chained(prevHash: string, input: LedgerInput) {
 
 /** Appends one entry. Call it inside the transaction that makes the change it records. */
 export async function appendLedger(tx: Queryable, input: LedgerInput) {
-  const [row] = await tx.insert(ledgerEntries).values(chained(await lockHead(tx), input)).returning();
+  const [row] = await tx
+    .insert(ledgerEntries)
+    .values(chained(await lockHead(tx), input))
+    .returning();
   return row;
 }
 

@@ -2,7 +2,20 @@ import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import { asSubject, defineAbilityFor } from "@/policies";
 import { getDb, type Queryable } from "./database";
-import { approvals, claims, declarations, evidenceRuns, marks, memoPreviews, memos, offers, organisations, technicalSignoffs, tenders, users } from "@/db/schema";
+import {
+  approvals,
+  claims,
+  declarations,
+  evidenceRuns,
+  marks,
+  memoPreviews,
+  memos,
+  offers,
+  organisations,
+  technicalSignoffs,
+  tenders,
+  users,
+} from "@/db/schema";
 import { CAUTIONS } from "@/lib/cautions";
 import { memoDocument, type MemoFacts } from "@/lib/approvals/memo-content";
 import { memoIdentifier } from "@/lib/approvals/routing";
@@ -47,7 +60,9 @@ export async function currentOffersWithClaims(db: Queryable, tender: Pick<Tender
   const claimRows = ids.length ? await db.select().from(claims).where(inArray(claims.offerId, ids)).orderBy(asc(claims.pointIndex)) : [];
   const claimIds = claimRows.map((c) => c.id);
   const latest = latestMarks(claimIds.length ? await db.select().from(marks).where(inArray(marks.claimId, claimIds)) : []);
-  const runRows = claimIds.length ? await db.select().from(evidenceRuns).where(inArray(evidenceRuns.claimId, claimIds)).orderBy(asc(evidenceRuns.recordedAt)) : [];
+  const runRows = claimIds.length
+    ? await db.select().from(evidenceRuns).where(inArray(evidenceRuns.claimId, claimIds)).orderBy(asc(evidenceRuns.recordedAt))
+    : [];
   const runsOf = (c: (typeof claimRows)[number]) =>
     runRows
       .filter((r) => r.claimId === c.id)
@@ -110,7 +125,13 @@ async function memoFactsFor(db: Queryable, tender: TenderRow, rec: Recommendatio
     tender,
     offers: offerList,
     scoreSheet: rec.scoreSheet,
-    recommendation: { ...rec, vendorName: chosen?.vendorName ?? "", moduleName: chosen?.moduleName ?? "", preparedBy: preparer?.name ?? "", preparedAt: rec.preparedAt },
+    recommendation: {
+      ...rec,
+      vendorName: chosen?.vendorName ?? "",
+      moduleName: chosen?.moduleName ?? "",
+      preparedBy: preparer?.name ?? "",
+      preparedAt: rec.preparedAt,
+    },
     approvals: options.approvals,
     approvalsNeeded: rec.approvalsNeeded ?? options.approvals.length,
     safetyRelevant: tender.safetyRelevant,
@@ -259,10 +280,10 @@ export async function checkMemo(viewer: Viewer | null, input: { bytes: Uint8Arra
     tender: { reference: row.reference, title: row.title },
     awardedAt: (row.awardedAt ?? row.memo.createdAt).toISOString(),
     approvedBy: given.map((a) => ({ name: a.name, at: a.decidedAt.toISOString() })),
-    ledgerHead: row.memo.ledgerSeq === null || row.memo.ledgerHash === null ? null : await issuedHead(db, { seq: row.memo.ledgerSeq, hash: row.memo.ledgerHash }),
+    ledgerHead:
+      row.memo.ledgerSeq === null || row.memo.ledgerHash === null ? null : await issuedHead(db, { seq: row.memo.ledgerSeq, hash: row.memo.ledgerHash }),
   };
 }
-
 
 /** A PDF response; inline for the preview, attachment for the download. */
 export function pdfResponse(bytes: Uint8Array, fileName: string, disposition: "inline" | "attachment", extra: Record<string, string> = {}): Response {

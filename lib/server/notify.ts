@@ -32,10 +32,7 @@ export function notify(notices: Notice | Notice[]): void {
 /** E-mail addresses of the active members of some organisations (all of them, or those with a role). */
 export async function addressesOf(db: Queryable, organisationIds: string[], role?: string): Promise<string[]> {
   if (organisationIds.length === 0) return [];
-  const base = db
-    .selectDistinct({ email: users.email })
-    .from(users)
-    .innerJoin(userRoles, eq(userRoles.userId, users.id));
+  const base = db.selectDistinct({ email: users.email }).from(users).innerJoin(userRoles, eq(userRoles.userId, users.id));
   const rows = await base.where(
     and(inArray(users.organisationId, organisationIds), eq(users.active, true), role ? eq(userRoles.role, role as never) : undefined),
   );

@@ -58,7 +58,10 @@ export async function waitingObjections(tenderIds: string[], now = new Date()): 
   if (tenderIds.length === 0) return waiting;
   const db = await getDb();
   const rows = await db
-    .select({ answeredAt: objections.answeredAt, tender: { id: tenders.id, state: tenders.state, awardedAt: tenders.awardedAt, standstillDays: tenders.standstillDays } })
+    .select({
+      answeredAt: objections.answeredAt,
+      tender: { id: tenders.id, state: tenders.state, awardedAt: tenders.awardedAt, standstillDays: tenders.standstillDays },
+    })
     .from(objections)
     .innerJoin(tenders, eq(tenders.id, objections.tenderId))
     .where(and(inArray(objections.tenderId, tenderIds), isNull(objections.answeredAt)));

@@ -29,19 +29,40 @@ export async function writeOfferVersion(tx: Queryable, v: OfferVersionInput): Pr
   const { input } = v;
   const mine = and(eq(offers.tenderId, v.tender.id), eq(offers.vendorOrgId, v.vendorOrgId));
   const version = nextVersion(await tx.select({ version: offers.version }).from(offers).where(mine));
-  await tx.update(offers).set({ status: "superseded" }).where(and(mine, eq(offers.status, "submitted")));
+  await tx
+    .update(offers)
+    .set({ status: "superseded" })
+    .where(and(mine, eq(offers.status, "submitted")));
   const [row] = await tx
     .insert(offers)
     .values({
-      tenderId: v.tender.id, vendorOrgId: v.vendorOrgId, version, status: "submitted",
-      moduleName: input.moduleName, partNumber: input.partNumber,
-      codeFamily: input.code.family, decision: input.code.decision,
-      n: input.code.n ?? null, k: input.code.k ?? null, rate: input.code.rate ?? null, overhead: input.code.overhead ?? null,
-      ...input.envelope, submittedBy: v.actor.id, submittedAt: v.at,
+      tenderId: v.tender.id,
+      vendorOrgId: v.vendorOrgId,
+      version,
+      status: "submitted",
+      moduleName: input.moduleName,
+      partNumber: input.partNumber,
+      codeFamily: input.code.family,
+      decision: input.code.decision,
+      n: input.code.n ?? null,
+      k: input.code.k ?? null,
+      rate: input.code.rate ?? null,
+      overhead: input.code.overhead ?? null,
+      ...input.envelope,
+      submittedBy: v.actor.id,
+      submittedAt: v.at,
     })
     .returning();
   await tx.insert(claims).values(
-    v.claims.map((c) => ({ ...c, result: c.result as unknown as Record<string, unknown>, radio: c.radio, offerId: row.id, tenderId: v.tender.id, vendorOrgId: v.vendorOrgId, evaluatedAt: v.at })),
+    v.claims.map((c) => ({
+      ...c,
+      result: c.result as unknown as Record<string, unknown>,
+      radio: c.radio,
+      offerId: row.id,
+      tenderId: v.tender.id,
+      vendorOrgId: v.vendorOrgId,
+      evaluatedAt: v.at,
+    })),
   );
   await appendLedger(tx, {
     tenderId: v.tender.id,
@@ -54,7 +75,9 @@ export async function writeOfferVersion(tx: Queryable, v: OfferVersionInput): Pr
       vendorOrgId: v.vendorOrgId,
       module: `${input.moduleName} (${input.partNumber})`,
       verdicts: v.claims.map((c) => ({
-        point: c.pointLabel, metric: c.metric, verdict: c.verdict,
+        point: c.pointLabel,
+        metric: c.metric,
+        verdict: c.verdict,
         ...(c.radio ? { sensitivityDbm: c.radio.sensitivityDbm, curvePoints: c.radio.curve.length, worstMarginDb: c.radio.worst.marginDb } : {}),
       })),
       summary: verdictSummary(v.claims.map((c) => c.verdict)),

@@ -4,7 +4,19 @@ import { asSubject, offersSealed, pickPermitted, recordTenderState } from "@/pol
 import { getDb, type Queryable } from "./database";
 import { claims, offers, organisations } from "@/db/schema";
 import type { ClaimResult } from "@/lib/bounds";
-import { currentVersion, documentRecord, evaluatedClaim, keyFinding, offerRecord, prepareOffer, submissionRefusal, verdictSummary, type EvaluatedClaim, type OfferTenderState, type PreparedClaim } from "@/lib/offers";
+import {
+  currentVersion,
+  documentRecord,
+  evaluatedClaim,
+  keyFinding,
+  offerRecord,
+  prepareOffer,
+  submissionRefusal,
+  verdictSummary,
+  type EvaluatedClaim,
+  type OfferTenderState,
+  type PreparedClaim,
+} from "@/lib/offers";
 import { isEngineDeadline, runEngine } from "@/lib/runtime/engine-pool";
 import type { OfferInput } from "@/lib/validation/offer";
 import { requireAddendaAcknowledged } from "./addenda";
@@ -50,7 +62,15 @@ async function assemble(viewer: Viewer, tender: TenderWithInvites, rows: OfferRo
   const vendorIds = [...new Set(rows.map((r) => r.vendorOrgId))];
   const [orgRows, claimRows, docs] = await Promise.all([
     db.select({ id: organisations.id, name: organisations.name }).from(organisations).where(inArray(organisations.id, vendorIds)),
-    db.select().from(claims).where(inArray(claims.offerId, rows.map((r) => r.id))),
+    db
+      .select()
+      .from(claims)
+      .where(
+        inArray(
+          claims.offerId,
+          rows.map((r) => r.id),
+        ),
+      ),
     documentsFor(db, tender.id, vendorIds),
   ]);
   const names = new Map(orgRows.map((o) => [o.id, o.name]));
@@ -58,7 +78,11 @@ async function assemble(viewer: Viewer, tender: TenderWithInvites, rows: OfferRo
 }
 
 async function versionsOf(db: Queryable, tenderId: string, vendorOrgId: string): Promise<OfferRow[]> {
-  return db.select().from(offers).where(and(eq(offers.tenderId, tenderId), eq(offers.vendorOrgId, vendorOrgId))).orderBy(asc(offers.version));
+  return db
+    .select()
+    .from(offers)
+    .where(and(eq(offers.tenderId, tenderId), eq(offers.vendorOrgId, vendorOrgId)))
+    .orderBy(asc(offers.version));
 }
 
 /** The current version of each vendor's offer that the viewer may read, with claims, verdicts and documents. */
@@ -70,7 +94,11 @@ export async function listOffers(viewer: Viewer, tenderId: string): Promise<Offe
   const byVendor = new Map<string, OfferRow[]>();
   for (const r of rows) byVendor.set(r.vendorOrgId, [...(byVendor.get(r.vendorOrgId) ?? []), r]);
   const current = [...byVendor.values()].map((versions) => currentVersion(versions)).filter((r): r is OfferRow => r !== null);
-  return assemble(viewer, tender, current.filter((r) => viewer.ability.can("read", offerSubject(r, tender))));
+  return assemble(
+    viewer,
+    tender,
+    current.filter((r) => viewer.ability.can("read", offerSubject(r, tender))),
+  );
 }
 
 async function loadOffer(viewer: Viewer, offerId: string) {
@@ -119,7 +147,11 @@ async function evaluateClaimsOf(prepared: PreparedClaim[]): Promise<EvaluatedCla
         if (!isEngineDeadline(error)) throw error;
         const what = `the claim at ${item.point.label}${curve.length ? ` and its ${curve.length} curve points` : ""}`;
         const unfinished = { engineError: `${unfinishedMessage(error, what)} It is stored without a verdict of its own and needs evidence.` };
-        return evaluatedClaim(item, unfinished, curve.map(() => unfinished));
+        return evaluatedClaim(
+          item,
+          unfinished,
+          curve.map(() => unfinished),
+        );
       }
     }),
   );
@@ -140,15 +172,15 @@ export async function submitOffer(viewer: Viewer, tenderId: string, input: Offer
 
   const db = await getDb();
   await requireAddendaAcknowledged(db, tenderId, vendorOrgId);
-  const row = await db.transaction((tx) =>
-    writeOfferVersion(tx, { tender, vendorOrgId, actor: ledgerActor(viewer), input, claims: evaluated, at: now }),
-  );
+  const row = await db.transaction((tx) => writeOfferVersion(tx, { tender, vendorOrgId, actor: ledgerActor(viewer), input, claims: evaluated, at: now }));
   const summary = verdictSummary(evaluated.map((c) => c.verdict));
-  notify(await withLedgerHead(db, {
-    to: await addressesOf(db, [vendorOrgId]),
-    subject: `${tender.reference}: offer version ${row.version} received`,
-    text: `Your offer to ${tender.reference} "${tender.title}" was received as version ${row.version}.\nVerdicts: ${summary.plausible} plausible, ${summary["needs-evidence"]} needing evidence, ${summary.impossible} impossible.\nYou may correct and resubmit it until the tender closes.`,
-  }));
+  notify(
+    await withLedgerHead(db, {
+      to: await addressesOf(db, [vendorOrgId]),
+      subject: `${tender.reference}: offer version ${row.version} received`,
+      text: `Your offer to ${tender.reference} "${tender.title}" was received as version ${row.version}.\nVerdicts: ${summary.plausible} plausible, ${summary["needs-evidence"]} needing evidence, ${summary.impossible} impossible.\nYou may correct and resubmit it until the tender closes.`,
+    }),
+  );
   const [view] = await assemble(viewer, tender, [row]);
   return view;
 }
@@ -164,16 +196,29 @@ export async function withdrawOffer(viewer: Viewer, offerId: string, now = new D
   authorize(viewer, "withdraw", offerSubject(row, tender), "This offer is not yours to withdraw.");
   const db = await getDb();
   const updated = await db.transaction(async (tx) => {
-    const [changed] = await tx.update(offers).set({ status: "withdrawn", withdrawnAt: now }).where(and(eq(offers.id, row.id), eq(offers.status, "submitted"))).returning();
+    const [changed] = await tx
+      .update(offers)
+      .set({ status: "withdrawn", withdrawnAt: now })
+      .where(and(eq(offers.id, row.id), eq(offers.status, "submitted")))
+      .returning();
     if (!changed) throw new ConflictError("This offer changed meanwhile; reload it.");
-    await appendLedger(tx, { tenderId: row.tenderId, actor: ledgerActor(viewer), action: "offer.withdrawn", subjectType: "Offer", subjectId: row.id, data: { version: row.version, vendorOrgId: row.vendorOrgId } });
+    await appendLedger(tx, {
+      tenderId: row.tenderId,
+      actor: ledgerActor(viewer),
+      action: "offer.withdrawn",
+      subjectType: "Offer",
+      subjectId: row.id,
+      data: { version: row.version, vendorOrgId: row.vendorOrgId },
+    });
     return changed;
   });
-  notify(await withLedgerHead(db, {
-    to: await addressesOf(db, [row.vendorOrgId]),
-    subject: `${tender.reference}: offer withdrawn`,
-    text: `Version ${row.version} of your offer to ${tender.reference} "${tender.title}" was withdrawn by ${viewer.name}. You may submit again until the tender closes.`,
-  }));
+  notify(
+    await withLedgerHead(db, {
+      to: await addressesOf(db, [row.vendorOrgId]),
+      subject: `${tender.reference}: offer withdrawn`,
+      text: `Version ${row.version} of your offer to ${tender.reference} "${tender.title}" was withdrawn by ${viewer.name}. You may submit again until the tender closes.`,
+    }),
+  );
   const [view] = await assemble(viewer, tender, [updated]);
   return view;
 }

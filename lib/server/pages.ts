@@ -41,7 +41,9 @@ export async function orPage<T>(work: Promise<T>): Promise<T> {
  * does not fail the page: the list shows with the defaults, and `problem` says what was wrong.
  */
 export function pageQuery<T>(searchParams: Record<string, string | string[] | undefined>, schema: ZodType<T>): { query: T; problem: string | null } {
-  const flat = Object.fromEntries(Object.entries(searchParams).flatMap(([k, v]) => (typeof v === "string" ? [[k, v]] : Array.isArray(v) && v.length ? [[k, v[0]]] : [])));
+  const flat = Object.fromEntries(
+    Object.entries(searchParams).flatMap(([k, v]) => (typeof v === "string" ? [[k, v]] : Array.isArray(v) && v.length ? [[k, v[0]]] : [])),
+  );
   const parsed = schema.safeParse(flat);
   if (parsed.success) return { query: parsed.data, problem: null };
   return { query: schema.parse({}), problem: `${describeZodError(parsed.error)} Showing the first page without filters instead.` };

@@ -45,8 +45,12 @@ export async function loadUser(db: Queryable, userId: string) {
     .select({
       user: users,
       organisation: organisations,
-      roles: sql<RoleName[]>`coalesce((select array_agg(${userRoles.role} order by ${userRoles.role}) from ${userRoles} where ${userRoles.userId} = ${users.id}), '{}')`,
-      declarations: sql<{ tenderId: string; conflictedOrgIds: string[] }[]>`coalesce((select json_agg(json_build_object('tenderId', ${declarations.tenderId}, 'conflictedOrgIds', ${declarations.conflictedOrgIds})) from ${declarations} where ${declarations.userId} = ${users.id}), '[]'::json)`,
+      roles: sql<
+        RoleName[]
+      >`coalesce((select array_agg(${userRoles.role} order by ${userRoles.role}) from ${userRoles} where ${userRoles.userId} = ${users.id}), '{}')`,
+      declarations: sql<
+        { tenderId: string; conflictedOrgIds: string[] }[]
+      >`coalesce((select json_agg(json_build_object('tenderId', ${declarations.tenderId}, 'conflictedOrgIds', ${declarations.conflictedOrgIds})) from ${declarations} where ${declarations.userId} = ${users.id}), '[]'::json)`,
     })
     .from(users)
     .innerJoin(organisations, eq(organisations.id, users.organisationId))

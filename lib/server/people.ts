@@ -47,7 +47,10 @@ export async function listPeople(viewer: Viewer, query: PeopleFilters & PagingIn
           .orderBy(asc(organisations.name), asc(users.name), asc(users.id))
           .limit(window.pageSize)
           .offset(window.offset);
-  const roles = await rolesByUser(db, rows.map((r) => r.id));
+  const roles = await rolesByUser(
+    db,
+    rows.map((r) => r.id),
+  );
   return { users: rows.map((r) => ({ ...r, roles: roles.get(r.id) ?? [] })), ...pageInfo(window) };
 }
 
@@ -63,7 +66,11 @@ export async function getOrganisation(viewer: Viewer, id: string) {
   if (!org) throw new NotFoundError("No such organisation.");
   authorize(viewer, "read", asSubject("Organisation", { id: org.id, kind: org.kind }), "This organisation's record is not yours to see.");
   const members = viewer.ability.can("manage", "User")
-    ? await db.select({ id: users.id, name: users.name, email: users.email, active: users.active }).from(users).where(eq(users.organisationId, id)).orderBy(asc(users.name))
+    ? await db
+        .select({ id: users.id, name: users.name, email: users.email, active: users.active })
+        .from(users)
+        .where(eq(users.organisationId, id))
+        .orderBy(asc(users.name))
     : [];
   return { ...org, members };
 }
@@ -130,17 +137,35 @@ export async function updateUser(viewer: Viewer, userId: string, input: UpdateUs
       const roles = [...new Set(input.roles)].sort();
       await tx.delete(userRoles).where(eq(userRoles.userId, userId));
       await tx.insert(userRoles).values(roles.map((role) => ({ userId, role })));
-      await appendLedger(tx, { actor, action: "user.roles-changed", subjectType: "User", subjectId: userId, data: { email: target.email, from: target.roles, to: roles } });
+      await appendLedger(tx, {
+        actor,
+        action: "user.roles-changed",
+        subjectType: "User",
+        subjectId: userId,
+        data: { email: target.email, from: target.roles, to: roles },
+      });
     }
     if (input.active !== undefined && input.active !== target.active) {
       await tx.update(users).set({ active: input.active }).where(eq(users.id, userId));
       // A deactivated account loses its open sessions at once.
       if (!input.active) await tx.delete(sessions).where(eq(sessions.userId, userId));
-      await appendLedger(tx, { actor, action: input.active ? "user.reactivated" : "user.deactivated", subjectType: "User", subjectId: userId, data: { email: target.email } });
+      await appendLedger(tx, {
+        actor,
+        action: input.active ? "user.reactivated" : "user.deactivated",
+        subjectType: "User",
+        subjectId: userId,
+        data: { email: target.email },
+      });
     }
     if (input.approvalLimit !== undefined && input.approvalLimit !== target.approvalLimit) {
       await tx.update(users).set({ approvalLimit: input.approvalLimit }).where(eq(users.id, userId));
-      await appendLedger(tx, { actor, action: "user.approval-limit-changed", subjectType: "User", subjectId: userId, data: { email: target.email, from: target.approvalLimit, to: input.approvalLimit } });
+      await appendLedger(tx, {
+        actor,
+        action: "user.approval-limit-changed",
+        subjectType: "User",
+        subjectId: userId,
+        data: { email: target.email, from: target.approvalLimit, to: input.approvalLimit },
+      });
     }
   });
   return loadUser(db, userId);
@@ -152,8 +177,17 @@ export async function createOrganisation(viewer: Viewer, input: { name: string; 
   const [taken] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, input.name));
   if (taken) throw new InputError("An organisation of that name exists.", { name: ["Already in use."] });
   return db.transaction(async (tx) => {
-    const [org] = await tx.insert(organisations).values({ name: input.name, kind: "vendor", country: input.country ?? null }).returning();
-    await appendLedger(tx, { actor: ledgerActor(viewer), action: "organisation.created", subjectType: "Organisation", subjectId: org.id, data: { name: org.name } });
+    const [org] = await tx
+      .insert(organisations)
+      .values({ name: input.name, kind: "vendor", country: input.country ?? null })
+      .returning();
+    await appendLedger(tx, {
+      actor: ledgerActor(viewer),
+      action: "organisation.created",
+      subjectType: "Organisation",
+      subjectId: org.id,
+      data: { name: org.name },
+    });
     return org;
   });
 }

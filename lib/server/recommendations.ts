@@ -24,12 +24,7 @@ export type { RecommendationRow };
 
 /** The latest recommendation of a tender (pending, returned, approved...), or null. No access check: callers authorise. */
 export async function getCurrentRecommendation(db: Queryable, tenderId: string): Promise<RecommendationRow | null> {
-  const [row] = await db
-    .select()
-    .from(recommendations)
-    .where(eq(recommendations.tenderId, tenderId))
-    .orderBy(desc(recommendations.preparedAt))
-    .limit(1);
+  const [row] = await db.select().from(recommendations).where(eq(recommendations.tenderId, tenderId)).orderBy(desc(recommendations.preparedAt)).limit(1);
   return row ?? null;
 }
 
@@ -62,7 +57,13 @@ export async function listRecommendations(viewer: Viewer, tenderId: string) {
 }
 
 /** Moves the tender to data.to with the recommendation's ledger entry, in the caller's transaction. */
-async function moveWithEntry(tx: Queryable, viewer: Viewer, recId: string, action: string, e: { tenderId: string; data: { to: TenderState } & Record<string, unknown> }) {
+async function moveWithEntry(
+  tx: Queryable,
+  viewer: Viewer,
+  recId: string,
+  action: string,
+  e: { tenderId: string; data: { to: TenderState } & Record<string, unknown> },
+) {
   await tx.update(tenders).set({ state: e.data.to }).where(eq(tenders.id, e.tenderId));
   await appendLedger(tx, { tenderId: e.tenderId, actor: ledgerActor(viewer), action, subjectType: "Recommendation", subjectId: recId, data: e.data });
 }
@@ -73,16 +74,29 @@ async function moveWithEntry(tx: Queryable, viewer: Viewer, recId: string, actio
  */
 async function checkAwardValue(db: Queryable, viewer: Viewer, tender: TenderWithInvites, envelope: Envelope | null, input: RecommendationInput) {
   if (!envelope) throw new ConflictError("The offer's prices are not readable yet: open the envelopes before recommending an award.");
-  const facts = { ...input, computedValue: totalPriceAt(envelope.unitPrice, envelope.priceBreaks, input.quantity), tenderQuantity: tender.quantity, currency: tender.currency };
+  const facts = {
+    ...input,
+    computedValue: totalPriceAt(envelope.unitPrice, envelope.priceBreaks, input.quantity),
+    tenderQuantity: tender.quantity,
+    currency: tender.currency,
+  };
   const problems = awardValueProblems(facts);
   if (Object.keys(problems).length) throw new InputError(Object.values(problems).flat().join(" "), problems);
   const candidate = { id: null, preparedBy: viewer.actor.id, value: input.value, computedValue: facts.computedValue, currency: tender.currency };
   const governing = governingValue(candidate);
   const band = await bandRuleFor(db, governing, tender.currency);
   if (!band) {
-    throw new ConflictError(`No approval band covers ${formatMoney(governing, tender.currency)}, so nobody could approve this award. Nothing was submitted: ask an admin to add a band on the Approval limits page.`);
+    throw new ConflictError(
+      `No approval band covers ${formatMoney(governing, tender.currency)}, so nobody could approve this award. Nothing was submitted: ask an admin to add a band on the Approval limits page.`,
+    );
   }
-  const shortfall = submissionShortfall(await recommendationCoverage(db, tender, candidate, band), { value: governing, currency: tender.currency, rule: band, excluded: new Set(), approvedBy: [] });
+  const shortfall = submissionShortfall(await recommendationCoverage(db, tender, candidate, band), {
+    value: governing,
+    currency: tender.currency,
+    rule: band,
+    excluded: new Set(),
+    approvedBy: [],
+  });
   if (shortfall) throw new ConflictError(shortfall);
   return { computedValue: facts.computedValue, reasons: keptReasons(facts), governing, band };
 }
@@ -153,13 +167,16 @@ export async function submitRecommendation(viewer: Viewer, tenderId: string, inp
   });
   const notice = awaitingApprovalNotice(tender, 0, band.approvalsNeeded, formatMoney(input.value, tender.currency));
   notify(
-    await withLedgerHead(db, withSafetyCaution(
-      tender,
-      await approvalRequestNotices(db, tender, row, band, {
-        subject: notice.subject,
-        text: `${viewer.name} recommends awarding ${tender.reference} to ${scored.vendorName}: ${input.quantity.toLocaleString("en-GB")} units.\n\nJustification: ${input.justification}\n\n${notice.text}`,
-      }),
-    )),
+    await withLedgerHead(
+      db,
+      withSafetyCaution(
+        tender,
+        await approvalRequestNotices(db, tender, row, band, {
+          subject: notice.subject,
+          text: `${viewer.name} recommends awarding ${tender.reference} to ${scored.vendorName}: ${input.quantity.toLocaleString("en-GB")} units.\n\nJustification: ${input.justification}\n\n${notice.text}`,
+        }),
+      ),
+    ),
   );
   return row;
 }
@@ -186,7 +203,10 @@ export async function withdrawRecommendation(viewer: Viewer, tenderId: string, i
       .where(and(eq(recommendations.id, rec.id), eq(recommendations.status, "pending")))
       .returning();
     if (!withdrawn || locked.state !== "approval") throw new ConflictError(nothing);
-    await moveWithEntry(tx, viewer, rec.id, "recommendation.withdrawn", { tenderId, data: { recommendationId: rec.id, from: "approval", to: "commercial", reason: input.reason } });
+    await moveWithEntry(tx, viewer, rec.id, "recommendation.withdrawn", {
+      tenderId,
+      data: { recommendationId: rec.id, from: "approval", to: "commercial", reason: input.reason },
+    });
     return withdrawn;
   });
   const approvedBy = await db

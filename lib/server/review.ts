@@ -72,7 +72,16 @@ async function reviewState(
   const evidence = new Map<string, EvidenceSummary | null>();
   for (const { claim: c, tender } of claimRows) {
     const seesRuns = viewer.ability.can("read", asSubject("EvidenceRun", { claimId: c.id, tenderId: c.tenderId, vendorOrgId: c.vendorOrgId }));
-    evidence.set(c.id, seesRuns ? summariseRuns(tender.channelModel, c.channelValue, runRows.filter((r) => r.claimId === c.id)) : null);
+    evidence.set(
+      c.id,
+      seesRuns
+        ? summariseRuns(
+            tender.channelModel,
+            c.channelValue,
+            runRows.filter((r) => r.claimId === c.id),
+          )
+        : null,
+    );
   }
   return { latest, evidence };
 }
@@ -108,8 +117,12 @@ const CLAIM_FIELDS: FieldMap = {
 };
 
 /** A claim's current mark is its latest (ties: the later id), picked by the database so that it can filter and page. */
-const currentMark = sql<string | null>`(select ${marks.mark} from ${marks} where ${marks.claimId} = ${claims.id} order by ${marks.markedAt} desc, ${marks.id} desc limit 1)`;
-const currentMarkAt = sql<string | null>`(select ${marks.markedAt}::text from ${marks} where ${marks.claimId} = ${claims.id} order by ${marks.markedAt} desc, ${marks.id} desc limit 1)`;
+const currentMark = sql<
+  string | null
+>`(select ${marks.mark} from ${marks} where ${marks.claimId} = ${claims.id} order by ${marks.markedAt} desc, ${marks.id} desc limit 1)`;
+const currentMarkAt = sql<
+  string | null
+>`(select ${marks.markedAt}::text from ${marks} where ${marks.claimId} = ${claims.id} order by ${marks.markedAt} desc, ${marks.id} desc limit 1)`;
 
 export interface ClaimQueuePage extends PageInfo {
   claims: QueueRow[];
@@ -205,12 +218,12 @@ export async function listTendersForReview(viewer: Viewer) {
   const visible = viewer.ability.can("read", "Tender") ? await listTenders(viewer, eq(tenders.state, "technical")) : [];
   const access = tenderAccess(viewer.actor.declarations);
   return visible.map((t) => ({
-      id: t.id,
-      reference: t.reference,
-      title: t.title,
-      declared: access.declared.includes(t.id),
-      conflicts: access.conflicts.get(t.id)?.length ?? 0,
-    }));
+    id: t.id,
+    reference: t.reference,
+    title: t.title,
+    declared: access.declared.includes(t.id),
+    conflicts: access.conflicts.get(t.id)?.length ?? 0,
+  }));
 }
 
 /** Everything the claim page shows, each part authorised on its own. */
@@ -233,9 +246,18 @@ export async function getClaimDetail(viewer: Viewer, claimId: string) {
     claim,
     vendorName: row.vendorName,
     offer: offerFor(viewer, row.offer, tender),
-    tender: { id: tender.id, reference: tender.reference, title: tender.title, state: tender.state, channelModel: tender.channelModel, safetyRelevant: tender.safetyRelevant },
+    tender: {
+      id: tender.id,
+      reference: tender.reference,
+      title: tender.title,
+      state: tender.state,
+      channelModel: tender.channelModel,
+      safetyRelevant: tender.safetyRelevant,
+    },
     documents: docs
-      .filter((d) => viewer.ability.can("read", asSubject("Document", { id: d.id, offerId: d.offerId ?? "", tenderId: d.tenderId, vendorOrgId: d.vendorOrgId })))
+      .filter((d) =>
+        viewer.ability.can("read", asSubject("Document", { id: d.id, offerId: d.offerId ?? "", tenderId: d.tenderId, vendorOrgId: d.vendorOrgId })),
+      )
       .map(({ storageKey: _key, ...d }) => d),
     marks: viewer.ability.can("read", asSubject("Mark", ref)) ? markRows : [],
     evidenceStatus: evidence.get(claim.id) ?? null,

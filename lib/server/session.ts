@@ -42,12 +42,7 @@ export async function requireViewer(requestHeaders?: Headers): Promise<Viewer> {
 }
 
 /** The one gate: throws ForbiddenError unless the viewer's abilities allow the action on the subject. */
-export function authorize(
-  viewer: Viewer,
-  action: Parameters<AppAbility["can"]>[0],
-  subject: Parameters<AppAbility["can"]>[1],
-  message?: string,
-): void {
+export function authorize(viewer: Viewer, action: Parameters<AppAbility["can"]>[0], subject: Parameters<AppAbility["can"]>[1], message?: string): void {
   if (viewer.ability.can(action, subject)) return;
   // The policy's own reason, where a rule gives one, tells the person why.
   const reason = viewer.ability.relevantRuleFor(action, subject)?.reason;

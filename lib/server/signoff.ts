@@ -25,24 +25,39 @@ async function reviewedClaims(db: Queryable, tender: Pick<TenderRow, "id" | "cha
   const ids = rows.map((r) => r.id);
   if (ids.length === 0) return [];
   const latest = latestMarks(await db.select().from(marks).where(inArray(marks.claimId, ids)));
-  const runs = await db.select({ claimId: evidenceRuns.claimId, channelValue: evidenceRuns.channelValue, status: evidenceRuns.status }).from(evidenceRuns).where(inArray(evidenceRuns.claimId, ids));
+  const runs = await db
+    .select({ claimId: evidenceRuns.claimId, channelValue: evidenceRuns.channelValue, status: evidenceRuns.status })
+    .from(evidenceRuns)
+    .where(inArray(evidenceRuns.claimId, ids));
   return rows.map((c) => ({
     id: c.id,
     mark: latest.get(c.id)?.mark ?? null,
-    evidence: summariseRuns(tender.channelModel, c.channelValue, runs.filter((r) => r.claimId === c.id)),
+    evidence: summariseRuns(
+      tender.channelModel,
+      c.channelValue,
+      runs.filter((r) => r.claimId === c.id),
+    ),
   }));
 }
 
 /** Questions to vendors still waiting: not closed, and the last word is the evaluators'. */
 export async function countOpenThreads(db: Queryable, tenderId: string): Promise<number> {
-  const open = await db.select({ id: threads.id }).from(threads).where(and(eq(threads.tenderId, tenderId), isNull(threads.closedAt)));
+  const open = await db
+    .select({ id: threads.id })
+    .from(threads)
+    .where(and(eq(threads.tenderId, tenderId), isNull(threads.closedAt)));
   if (open.length === 0) return 0;
   const messages = await db
     .select({ threadId: threadMessages.threadId, kind: organisations.kind })
     .from(threadMessages)
     .innerJoin(users, eq(users.id, threadMessages.authorId))
     .innerJoin(organisations, eq(organisations.id, users.organisationId))
-    .where(inArray(threadMessages.threadId, open.map((t) => t.id)))
+    .where(
+      inArray(
+        threadMessages.threadId,
+        open.map((t) => t.id),
+      ),
+    )
     .orderBy(asc(threadMessages.createdAt), asc(threadMessages.id));
   const lastWord = new Map(messages.map((m) => [m.threadId, m.kind]));
   return open.filter((t) => lastWord.get(t.id) !== "vendor").length;
@@ -78,7 +93,13 @@ export async function getSignoffState(viewer: Viewer, tenderId: string) {
     signerId: viewer.actor.id,
     ...(await progress(db, tender)),
   });
-  return { signatures: signed, complete: signed.length >= signaturesNeeded(tender.safetyRelevant), safetyRelevant: tender.safetyRelevant, check, maySign: viewer.ability.can("sign", subject) };
+  return {
+    signatures: signed,
+    complete: signed.length >= signaturesNeeded(tender.safetyRelevant),
+    safetyRelevant: tender.safetyRelevant,
+    check,
+    maySign: viewer.ability.can("sign", subject),
+  };
 }
 
 /**
@@ -93,8 +114,16 @@ export async function signTechnical(viewer: Viewer, tenderId: string, input: Sig
   const signedAt = new Date();
   const outcome = await db.transaction(async (tx) => {
     const [locked] = await tx.select({ state: tenders.state }).from(tenders).where(eq(tenders.id, tenderId)).for("update");
-    const signedBy = (await tx.select({ signedBy: technicalSignoffs.signedBy }).from(technicalSignoffs).where(eq(technicalSignoffs.tenderId, tenderId))).map((s) => s.signedBy);
-    const check = checkSignoff({ tenderState: locked.state, safetyRelevant: tender.safetyRelevant, signedBy, signerId: viewer.actor.id, ...(await progress(tx, tender)) });
+    const signedBy = (await tx.select({ signedBy: technicalSignoffs.signedBy }).from(technicalSignoffs).where(eq(technicalSignoffs.tenderId, tenderId))).map(
+      (s) => s.signedBy,
+    );
+    const check = checkSignoff({
+      tenderState: locked.state,
+      safetyRelevant: tender.safetyRelevant,
+      signedBy,
+      signerId: viewer.actor.id,
+      ...(await progress(tx, tender)),
+    });
     if (!check.ok) throw new ConflictError(check.reason!);
     const [row] = await tx.insert(technicalSignoffs).values({ tenderId, signedBy: viewer.actor.id, statement: input.statement, signedAt }).returning();
     const complete = signedBy.length + 1 >= check.signaturesNeeded;
@@ -105,17 +134,29 @@ export async function signTechnical(viewer: Viewer, tenderId: string, input: Sig
       action: complete ? "tender.technical-signed" : "tender.technical-signature",
       subjectType: "Tender",
       subjectId: tenderId,
-      data: { ...(complete ? { from: "technical", to: "commercial" } : {}), claims: check.total, signature: signedBy.length + 1, of: check.signaturesNeeded, statement: input.statement },
+      data: {
+        ...(complete ? { from: "technical", to: "commercial" } : {}),
+        claims: check.total,
+        signature: signedBy.length + 1,
+        of: check.signaturesNeeded,
+        statement: input.statement,
+      },
     });
     return { row, complete };
   });
   if (outcome.complete) {
-    notify(await withLedgerHead(db, withSafetyCaution(tender, [{
-      to: await addressesWithRole(db, "buyer"),
-      subject: `${tender.reference}: technical evaluation signed`,
-      text: `${viewer.name} signed the technical evaluation of ${tender.reference} ${tender.title}. The commercial envelopes can now be opened.\n\nStatement: ${input.statement}\n\n/tenders/${tenderId}`,
-    }])));
+    notify(
+      await withLedgerHead(
+        db,
+        withSafetyCaution(tender, [
+          {
+            to: await addressesWithRole(db, "buyer"),
+            subject: `${tender.reference}: technical evaluation signed`,
+            text: `${viewer.name} signed the technical evaluation of ${tender.reference} ${tender.title}. The commercial envelopes can now be opened.\n\nStatement: ${input.statement}\n\n/tenders/${tenderId}`,
+          },
+        ]),
+      ),
+    );
   }
   return { ...outcome.row, complete: outcome.complete };
 }
-

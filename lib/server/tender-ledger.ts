@@ -16,7 +16,10 @@ async function vendorsOfRecords(tenderId: string, ids: string[]): Promise<Map<st
   const db = await getDb();
   const lists = await Promise.all(
     [offers, claims, documents, threads].map((table) =>
-      db.select({ id: table.id, vendorOrgId: table.vendorOrgId }).from(table).where(and(eq(table.tenderId, tenderId), inArray(table.id, ids))),
+      db
+        .select({ id: table.id, vendorOrgId: table.vendorOrgId })
+        .from(table)
+        .where(and(eq(table.tenderId, tenderId), inArray(table.id, ids))),
     ),
   );
   return new Map(lists.flat().map((r) => [r.id, r.vendorOrgId]));

@@ -57,9 +57,18 @@ export async function createTender(viewer: Viewer, input: TenderInput): Promise<
   const id = await db.transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(${ADVISORY_LOCKS.tenderReference})`);
     const year = new Date().getUTCFullYear();
-    const taken = await tx.select({ reference: tenders.reference }).from(tenders).where(like(tenders.reference, `RC-${year}-%`));
-    const reference = nextReference(taken.map((t) => t.reference), year);
-    const [row] = await tx.insert(tenders).values({ ...draftValues(input), reference, state: "draft", createdBy: viewer.actor.id }).returning();
+    const taken = await tx
+      .select({ reference: tenders.reference })
+      .from(tenders)
+      .where(like(tenders.reference, `RC-${year}-%`));
+    const reference = nextReference(
+      taken.map((t) => t.reference),
+      year,
+    );
+    const [row] = await tx
+      .insert(tenders)
+      .values({ ...draftValues(input), reference, state: "draft", createdBy: viewer.actor.id })
+      .returning();
     if (input.invitedOrgIds.length) {
       await tx.insert(tenderInvitations).values(input.invitedOrgIds.map((organisationId) => ({ tenderId: row.id, organisationId })));
     }
@@ -150,7 +159,12 @@ export async function openTender(viewer: Viewer, id: string): Promise<TenderWith
 
   const addresses = await addressesOf(db, tender.invitedOrgIds);
   const notice = invitationNotice(opened, appUrl());
-  notify(await withLedgerHead(db, addresses.map((address) => ({ to: [address], ...notice }))));
+  notify(
+    await withLedgerHead(
+      db,
+      addresses.map((address) => ({ to: [address], ...notice })),
+    ),
+  );
   return reload(db, id);
 }
 
@@ -183,6 +197,11 @@ export async function cancelTender(viewer: Viewer, id: string, input: CancelTend
   const vendors = tender.state === "draft" ? [] : await addressesOf(db, tender.invitedOrgIds);
   const team = await addressesWithRole(db, "buyer");
   const notice = cancellationNotice(cancelled, input.reason, appUrl());
-  notify(await withLedgerHead(db, [...new Set([...vendors, ...team])].map((address) => ({ to: [address], ...notice }))));
+  notify(
+    await withLedgerHead(
+      db,
+      [...new Set([...vendors, ...team])].map((address) => ({ to: [address], ...notice })),
+    ),
+  );
   return reload(db, id);
 }

@@ -15,15 +15,13 @@ export type TenderWithInvites = TenderRow & { invitedOrgIds: string[] };
 /** A tender as it leaves the server: invitations only of organisations the viewer may read. */
 export type TenderView = TenderWithInvites & { invited: { id: string; name: string }[] };
 
-const invitedOrgIds = sql<string[]>`coalesce((select array_agg(${tenderInvitations.organisationId} order by ${tenderInvitations.organisationId}) from ${tenderInvitations} where ${tenderInvitations.tenderId} = ${tenders.id}), '{}')`;
+const invitedOrgIds = sql<
+  string[]
+>`coalesce((select array_agg(${tenderInvitations.organisationId} order by ${tenderInvitations.organisationId}) from ${tenderInvitations} where ${tenderInvitations.tenderId} = ${tenders.id}), '{}')`;
 
 /** Tenders with their invited organisations, in one query (every tender page and route starts here). */
 export async function tendersWhere(db: Queryable, where?: SQL, window?: { limit: number; offset: number }): Promise<TenderWithInvites[]> {
-  const query = db
-    .select({ tender: tenders, invitedOrgIds })
-    .from(tenders)
-    .where(where)
-    .orderBy(desc(tenders.createdAt), asc(tenders.reference));
+  const query = db.select({ tender: tenders, invitedOrgIds }).from(tenders).where(where).orderBy(desc(tenders.createdAt), asc(tenders.reference));
   const rows = window ? await query.limit(window.limit).offset(window.offset) : await query;
   return rows.map((r) => ({ ...r.tender, invitedOrgIds: r.invitedOrgIds }));
 }
@@ -65,7 +63,10 @@ export async function closeDueTenders(db: Queryable, now = new Date()): Promise<
         data: { reference: t.reference, closesAt: t.closesAt.toISOString(), closesZone: t.closesZone, to: "technical" },
       });
       // From here the buying side reads the technical offers; the commercial envelopes stay shut until opened.
-      const current = await tx.select({ n: count() }).from(offers).where(and(eq(offers.tenderId, t.id), eq(offers.status, "submitted")));
+      const current = await tx
+        .select({ n: count() })
+        .from(offers)
+        .where(and(eq(offers.tenderId, t.id), eq(offers.status, "submitted")));
       await appendLedger(tx, { ...entry, action: "offers.unsealed", data: { reference: t.reference, offers: current[0].n, envelopes: "sealed until opened" } });
     }
     return closed.length;
@@ -120,7 +121,11 @@ const ledgerHeadOf = sql<number>`(select coalesce(max(${ledgerEntries.seq}), 0) 
 export async function getTenderWithHead(viewer: Viewer, id: string): Promise<{ tender: TenderWithInvites; head: number }> {
   const db = await getDb();
   const now = new Date();
-  const read = () => db.select({ tender: tenders, invitedOrgIds, head: ledgerHeadOf, due: anyDue(now) }).from(tenders).where(eq(tenders.id, id));
+  const read = () =>
+    db
+      .select({ tender: tenders, invitedOrgIds, head: ledgerHeadOf, due: anyDue(now) })
+      .from(tenders)
+      .where(eq(tenders.id, id));
   let [row] = await read();
   if (row?.due) {
     await closeDueTenders(db, now);
@@ -137,11 +142,7 @@ async function viewsOf(viewer: Viewer, list: TenderWithInvites[]): Promise<Tende
   const ids = [...new Set(list.flatMap((t) => t.invitedOrgIds))];
   const db = await getDb();
   const orgs = ids.length ? await db.select().from(organisations).where(inArray(organisations.id, ids)) : [];
-  const readable = new Map(
-    orgs
-      .filter((o) => viewer.ability.can("read", asSubject("Organisation", { id: o.id, kind: o.kind })))
-      .map((o) => [o.id, o.name]),
-  );
+  const readable = new Map(orgs.filter((o) => viewer.ability.can("read", asSubject("Organisation", { id: o.id, kind: o.kind }))).map((o) => [o.id, o.name]));
   return list.map((t) => {
     const invited = t.invitedOrgIds
       .filter((id) => readable.has(id))

@@ -49,7 +49,14 @@ export async function insertThread(tx: Queryable, viewer: Viewer, claim: ClaimRo
  * The e-mail for a new message: to the vendor's users, or, when the vendor answers, to the engineers
  * who may read this thread (declared on the tender, no conflict with this vendor).
  */
-export async function threadNotice(db: Queryable, tender: TenderRow, thread: ThreadRow, viewer: Viewer, body: string, audience: "vendor" | "engineers"): Promise<Notice> {
+export async function threadNotice(
+  db: Queryable,
+  tender: TenderRow,
+  thread: ThreadRow,
+  viewer: Viewer,
+  body: string,
+  audience: "vendor" | "engineers",
+): Promise<Notice> {
   const toVendor = audience === "vendor";
   const link = toVendor || !thread.claimId ? `/tenders/${tender.id}/review` : `/review/claims/${thread.claimId}`;
   const subject = threadSubject({ ...thread, tenderState: recordTenderState(tender) });
@@ -63,7 +70,12 @@ export async function threadNotice(db: Queryable, tender: TenderRow, thread: Thr
 /** An engineer opens a clarification thread on a claim without marking it. */
 export async function openThread(viewer: Viewer, claimId: string, input: ThreadInput) {
   const { claim, tender } = await loadClaim(viewer, claimId);
-  authorize(viewer, "create", threadSubject({ id: "", tenderId: claim.tenderId, vendorOrgId: claim.vendorOrgId }), "Only an engineer who has declared on this tender asks vendors questions.");
+  authorize(
+    viewer,
+    "create",
+    threadSubject({ id: "", tenderId: claim.tenderId, vendorOrgId: claim.vendorOrgId }),
+    "Only an engineer who has declared on this tender asks vendors questions.",
+  );
   if (tender.state !== "technical") throw new ConflictError("Questions are asked only during technical evaluation.");
   const db = await getDb();
   const thread = await db.transaction((tx) => insertThread(tx, viewer, claim, input));
@@ -73,7 +85,11 @@ export async function openThread(viewer: Viewer, claimId: string, input: ThreadI
 
 async function loadThread(viewer: Viewer, threadId: string) {
   const db = await getDb();
-  const [row] = await db.select({ thread: threads, tender: tenders }).from(threads).innerJoin(tenders, eq(tenders.id, threads.tenderId)).where(eq(threads.id, threadId));
+  const [row] = await db
+    .select({ thread: threads, tender: tenders })
+    .from(threads)
+    .innerJoin(tenders, eq(tenders.id, threads.tenderId))
+    .where(eq(threads.id, threadId));
   if (!row) throw new NotFoundError("No such thread.");
   if (!viewer.ability.can("read", threadSubject(row.thread))) {
     // Another vendor's thread, or one hidden by a declared conflict, does not exist for this viewer.
@@ -120,7 +136,10 @@ export async function listThreads(viewer: Viewer, where: { tenderId?: string; cl
     .where(and(where.tenderId ? eq(threads.tenderId, where.tenderId) : undefined, where.claimId ? eq(threads.claimId, where.claimId) : undefined))
     .orderBy(asc(threads.createdAt));
   const visible = rows.filter((r) => viewer.ability.can("list", threadSubject(r.thread)));
-  const messages = await messagesOf(db, visible.map((r) => r.thread.id));
+  const messages = await messagesOf(
+    db,
+    visible.map((r) => r.thread.id),
+  );
   return visible.map(({ thread, tender }) => ({
     ...thread,
     tenderReference: tender.reference,
@@ -138,7 +157,10 @@ export async function postMessage(viewer: Viewer, threadId: string, input: Messa
   const db = await getDb();
   const fromVendor = viewer.actor.organisationKind === "vendor";
   const message = await db.transaction(async (tx) => {
-    const [row] = await tx.insert(threadMessages).values({ threadId, authorId: viewer.actor.id, authorLabel: authorLabel(viewer), body: input.body }).returning();
+    const [row] = await tx
+      .insert(threadMessages)
+      .values({ threadId, authorId: viewer.actor.id, authorLabel: authorLabel(viewer), body: input.body })
+      .returning();
     await appendLedger(tx, {
       tenderId: thread.tenderId,
       actor: ledgerActor(viewer),
@@ -164,9 +186,20 @@ export async function closeThread(viewer: Viewer, threadId: string, input: Close
   if (thread.closedAt) throw new ConflictError("This question is already closed.");
   const db = await getDb();
   const closed = await db.transaction(async (tx) => {
-    const [row] = await tx.update(threads).set({ closedAt: new Date(), closedBy: viewer.actor.id, closeReason: input.reason }).where(and(eq(threads.id, threadId), isNull(threads.closedAt))).returning();
+    const [row] = await tx
+      .update(threads)
+      .set({ closedAt: new Date(), closedBy: viewer.actor.id, closeReason: input.reason })
+      .where(and(eq(threads.id, threadId), isNull(threads.closedAt)))
+      .returning();
     if (!row) throw new ConflictError("This question was closed meanwhile.");
-    await appendLedger(tx, { tenderId: thread.tenderId, actor: ledgerActor(viewer), action: "thread.closed", subjectType: "Thread", subjectId: threadId, data: { reason: input.reason } });
+    await appendLedger(tx, {
+      tenderId: thread.tenderId,
+      actor: ledgerActor(viewer),
+      action: "thread.closed",
+      subjectType: "Thread",
+      subjectId: threadId,
+      data: { reason: input.reason },
+    });
     return row;
   });
   notify(await threadNotice(db, tender, thread, viewer, `The question was closed: ${input.reason}`, "vendor"));

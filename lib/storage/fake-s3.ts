@@ -50,21 +50,14 @@ export function objectStoreCredentials(file: string): KeyPair {
   }
 }
 
-const refusalXml = (message: string) =>
-  `<?xml version="1.0" encoding="UTF-8"?>\n<Error><Code>AccessDenied</Code><Message>${message}</Message></Error>`;
+const refusalXml = (message: string) => `<?xml version="1.0" encoding="UTF-8"?>\n<Error><Code>AccessDenied</Code><Message>${message}</Message></Error>`;
 
 /**
  * A local S3-compatible server keeping objects as files under `directory`, with the bucket already
  * created. It answers only requests signed with `credentials` (s3rver's well-known default key is
  * revoked). Port 0 picks a free port.
  */
-export async function startFakeS3(options: {
-  port: number;
-  directory: string;
-  credentials: KeyPair;
-  host?: string;
-  bucket?: string;
-}): Promise<FakeS3> {
+export async function startFakeS3(options: { port: number; directory: string; credentials: KeyPair; host?: string; bucket?: string }): Promise<FakeS3> {
   const host = options.host ?? "127.0.0.1";
   const bucket = options.bucket ?? DEFAULT_S3_BUCKET;
   const { credentials } = options;

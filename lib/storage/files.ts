@@ -40,9 +40,7 @@ export function sniffPdf(bytes: Uint8Array): boolean {
 }
 
 export type PdfUploadCheck =
-  | { ok: true }
-  | { ok: false; reason: "empty" | "too-large" | "not-pdf" }
-  | { ok: false; reason: "executable"; kind: ExecutableKind };
+  { ok: true } | { ok: false; reason: "empty" | "too-large" | "not-pdf" } | { ok: false; reason: "executable"; kind: ExecutableKind };
 
 /** The whole gate for an uploaded PDF, so route handlers can map each reason to a message. */
 export function checkPdfUpload(bytes: Uint8Array): PdfUploadCheck {
@@ -77,7 +75,11 @@ function truncate(name: string): string {
  * no control characters, no leading dots, at most 120 characters, never empty.
  */
 export function sanitizeFileName(name: string): string {
-  const lastSegment = name.split(/[/\\]/).filter((part) => part.length > 0).pop() ?? "";
+  const lastSegment =
+    name
+      .split(/[/\\]/)
+      .filter((part) => part.length > 0)
+      .pop() ?? "";
   const cleaned = lastSegment
     .normalize("NFC")
     .replace(INVISIBLE, "")

@@ -1,11 +1,4 @@
-import {
-  CreateBucketCommand,
-  DeleteObjectCommand,
-  GetObjectCommand,
-  HeadBucketCommand,
-  PutObjectCommand,
-  S3Client,
-} from "@aws-sdk/client-s3";
+import { CreateBucketCommand, DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { env } from "../env";
 import { localEndpoints } from "../runtime/local-endpoints";
 import { sha256Hex } from "./files";
@@ -129,11 +122,7 @@ async function createBucketIfMissing(config: StorageConfig): Promise<void> {
   }
 }
 
-export async function putObject(
-  key: string,
-  bytes: Uint8Array,
-  contentType: string,
-): Promise<{ key: string; size: number; sha256: string }> {
+export async function putObject(key: string, bytes: Uint8Array, contentType: string): Promise<{ key: string; size: number; sha256: string }> {
   assertKey(key);
   await ensureBucket();
   const config = getStorageConfig();
@@ -154,9 +143,7 @@ export async function getObject(key: string): Promise<Uint8Array> {
   assertKey(key);
   const config = getStorageConfig();
   try {
-    const response = await clientFor(config).send(
-      new GetObjectCommand({ Bucket: config.bucket, Key: key }),
-    );
+    const response = await clientFor(config).send(new GetObjectCommand({ Bucket: config.bucket, Key: key }));
     if (!response.Body) throw new ObjectNotFoundError(key);
     return await response.Body.transformToByteArray();
   } catch (error) {

@@ -22,8 +22,7 @@ interface AwardState {
 }
 
 /** Whether the award is final (awarded, and the standstill period is over). */
-export const awardIsFinal = (t: AwardState, now: Date) =>
-  t.state === "awarded" && t.awardedAt !== null && now >= standstillEnd(t.awardedAt, t.standstillDays);
+export const awardIsFinal = (t: AwardState, now: Date) => t.state === "awarded" && t.awardedAt !== null && now >= standstillEnd(t.awardedAt, t.standstillDays);
 
 /**
  * Whether an objection still waits for the buying team: not answered, and the standstill period

@@ -7,10 +7,24 @@ type TenderRow = typeof tenders.$inferSelect;
 /** The columns a buyer writes in a draft. */
 export type DraftValues = Pick<
   TenderRow,
-  | "title" | "description" | "channelModel" | "operatingPoints" | "targetMetric" | "targetValue" | "maxFrameBits"
+  | "title"
+  | "description"
+  | "channelModel"
+  | "operatingPoints"
+  | "targetMetric"
+  | "targetValue"
+  | "maxFrameBits"
   | "assumedNoiseFigureDb"
-  | "quantity" | "currency" | "weights" | "impossibleRule" | "impossiblePenalty" | "safetyRelevant" | "closesAt" | "closesZone"
-  | "noticeDisclosure" | "standstillDays"
+  | "quantity"
+  | "currency"
+  | "weights"
+  | "impossibleRule"
+  | "impossiblePenalty"
+  | "safetyRelevant"
+  | "closesAt"
+  | "closesZone"
+  | "noticeDisclosure"
+  | "standstillDays"
 >;
 
 type Shared = Omit<DraftValues, "maxFrameBits" | "impossiblePenalty" | "closesAt" | "closesZone">;
@@ -21,7 +35,9 @@ function shared(from: Shared): Shared {
     title: from.title,
     description: from.description,
     channelModel: from.channelModel,
-    operatingPoints: from.operatingPoints.map((p) => (p.sensitivity ? { label: p.label, value: p.value, sensitivity: { ...p.sensitivity } } : { label: p.label, value: p.value })),
+    operatingPoints: from.operatingPoints.map((p) =>
+      p.sensitivity ? { label: p.label, value: p.value, sensitivity: { ...p.sensitivity } } : { label: p.label, value: p.value },
+    ),
     targetMetric: from.targetMetric,
     targetValue: from.targetValue,
     assumedNoiseFigureDb: from.assumedNoiseFigureDb,
@@ -86,8 +102,7 @@ export function blankDraftInput(now: Date): TenderInput {
 
 // Invitations are a set; jsonb reorders object keys: neither counts as a change.
 const isStringList = (value: unknown): value is string[] => Array.isArray(value) && value.every((v) => typeof v === "string");
-const comparable = (value: unknown): string =>
-  value instanceof Date ? value.toISOString() : canonicalJson(isStringList(value) ? [...value].sort() : value);
+const comparable = (value: unknown): string => (value instanceof Date ? value.toISOString() : canonicalJson(isStringList(value) ? [...value].sort() : value));
 
 /** The fields whose value differs, each with its old and new value, for the ledger. */
 export function changedFields<T extends object>(before: T, after: T): Partial<Record<keyof T, { from: unknown; to: unknown }>> {

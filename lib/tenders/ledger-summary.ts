@@ -21,11 +21,13 @@ function short(value: unknown): string {
  * the full entry stays in the ledger (and in its hash).
  */
 export function ledgerDetails(data: Record<string, unknown>): { key: string; text: string }[] {
-  return Object.entries(data)
-    // The reference is in the sentence; ids are for machines (names sit beside them).
-    .filter(([key]) => key !== "reference" && !key.endsWith("Ids") && !key.endsWith("Id"))
-    .map(([key, value]) => {
-      const text = short(value);
-      return { key, text: text.length > MAX_LENGTH ? `${text.slice(0, MAX_LENGTH - 1)}…` : text };
-    });
+  return (
+    Object.entries(data)
+      // The reference is in the sentence; ids are for machines (names sit beside them).
+      .filter(([key]) => key !== "reference" && !key.endsWith("Ids") && !key.endsWith("Id"))
+      .map(([key, value]) => {
+        const text = short(value);
+        return { key, text: text.length > MAX_LENGTH ? `${text.slice(0, MAX_LENGTH - 1)}…` : text };
+      })
+  );
 }

@@ -3,7 +3,9 @@ import { typedCount, typedDecimal } from "./numbers";
 
 const amount = (what: string) =>
   z
-    .number({ error: (iss) => (iss.input === undefined || iss.input === null ? `Enter ${what}.` : `${what[0].toUpperCase()}${what.slice(1)} must be a number.`) })
+    .number({
+      error: (iss) => (iss.input === undefined || iss.input === null ? `Enter ${what}.` : `${what[0].toUpperCase()}${what.slice(1)} must be a number.`),
+    })
     .nonnegative("Must be zero or more.")
     .max(1e13, "Too large.");
 /** An amount as typed ("1 250,5" too). */
@@ -41,7 +43,11 @@ export const decisionSchema = z.discriminatedUnion(
     z.object({ decision: z.literal("approve"), comment: z.string().trim().max(2000, "At most 2,000 characters.").default("") }),
     z.object({
       decision: z.literal("return"),
-      comment: z.string({ error: () => "Say why you return it." }).trim().min(3, "Say why you return it (a comment is required).").max(2000, "At most 2,000 characters."),
+      comment: z
+        .string({ error: () => "Say why you return it." })
+        .trim()
+        .min(3, "Say why you return it (a comment is required).")
+        .max(2000, "At most 2,000 characters."),
     }),
   ],
   { error: () => 'Choose "approve" or "return".' },

@@ -5,11 +5,7 @@ import { weightsSchema } from "./tender";
 export const JUSTIFICATION_MIN = 20;
 
 /** A reason for a deviation from the offer or the tender: optional here, required by the rule when it applies. */
-const reason = z
-  .string()
-  .trim()
-  .max(2000, "At most 2,000 characters.")
-  .optional();
+const reason = z.string().trim().max(2000, "At most 2,000 characters.").optional();
 
 /** The buyer's recommendation of an award, as the form and POST /api/v1/tenders/[id]/recommendation send it. */
 export const recommendationSchema = z.object({
@@ -45,6 +41,10 @@ export const whatIfWeightsSchema = weightsSchema;
 
 /** The buyer withdraws a recommendation awaiting approval, saying why. */
 export const withdrawalSchema = z.object({
-  reason: z.string({ error: "Say why you withdraw it." }).trim().min(10, "Say why you withdraw it (at least 10 characters).").max(2000, "At most 2,000 characters."),
+  reason: z
+    .string({ error: "Say why you withdraw it." })
+    .trim()
+    .min(10, "Say why you withdraw it (at least 10 characters).")
+    .max(2000, "At most 2,000 characters."),
 });
 export type WithdrawalInput = z.infer<typeof withdrawalSchema>;

@@ -28,7 +28,10 @@ export type CurveMetric = (typeof CURVE_METRICS)[number];
  * first bad one, what is wrong with it in words.
  */
 export function parseCurveText(text: string): { points: { ebn0Db: number; value: number }[] } | { error: string } {
-  const parts = text.split(/[;,]/).map((p) => p.trim()).filter((p) => p !== "");
+  const parts = text
+    .split(/[;,]/)
+    .map((p) => p.trim())
+    .filter((p) => p !== "");
   if (parts.length > CURVE_MAX_POINTS) return { error: `the vendor curve may have at most ${CURVE_MAX_POINTS} points` };
   const points: { ebn0Db: number; value: number }[] = [];
   for (const [i, part] of parts.entries()) {
@@ -85,7 +88,14 @@ export const sensitivitySchema = z
     payload: countIn("the payload"),
     per: numberIn("the target PER"),
   })
-  .transform((v) => ({ level: v.level ?? (v.ebn0 === undefined ? -120 : undefined), ebn0: v.ebn0, rb: v.rb ?? 1200, nf: v.nf ?? 0, payload: v.payload ?? 160, per: v.per ?? 1e-2 }))
+  .transform((v) => ({
+    level: v.level ?? (v.ebn0 === undefined ? -120 : undefined),
+    ebn0: v.ebn0,
+    rb: v.rb ?? 1200,
+    nf: v.nf ?? 0,
+    payload: v.payload ?? 160,
+    per: v.per ?? 1e-2,
+  }))
   .superRefine((v, ctx) => {
     const issue = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
     if (v.level !== undefined && !(v.level >= -250 && v.level <= 30)) issue("level", "the input level must be from -250 to 30 dBm");
@@ -93,7 +103,8 @@ export const sensitivitySchema = z
     if (v.level !== undefined && v.ebn0 !== undefined) issue("level", "give either the input level or Eb/N0, not both");
     if (!(v.rb >= 1e-3 && v.rb <= 1e12)) issue("rb", "the information bit rate must be from 0.001 to 10^12 bit/s");
     if (!(v.nf >= 0 && v.nf <= 40)) issue("nf", "the noise figure must be from 0 to 40 dB");
-    if (!Number.isInteger(v.payload) || v.payload < 1 || v.payload > 10_000_000) issue("payload", "the payload must be a whole number of bits from 1 to 10,000,000");
+    if (!Number.isInteger(v.payload) || v.payload < 1 || v.payload > 10_000_000)
+      issue("payload", "the payload must be a whole number of bits from 1 to 10,000,000");
     if (!(v.per > 0 && v.per < 0.5)) issue("per", "the target PER must be above 0 and below 0.5");
   });
 export type SensitivityView = z.output<typeof sensitivitySchema>;

@@ -12,7 +12,5 @@ export function fieldErrorsOf(error: ZodError): Record<string, string[]> {
 
 /** One sentence naming every field that is wrong. */
 export function describeZodError(error: ZodError): string {
-  return error.issues
-    .map((issue) => (issue.path.length ? `${issue.path.join(".")}: ${issue.message}` : issue.message))
-    .join("; ");
+  return error.issues.map((issue) => (issue.path.length ? `${issue.path.join(".")}: ${issue.message}` : issue.message)).join("; ");
 }

@@ -1,7 +1,11 @@
 import { z } from "zod";
 
 const words = (what: string, min: number, max: number) =>
-  z.string({ error: `Write ${what}.` }).trim().min(min, `Write ${what} of at least ${min} characters.`).max(max, `At most ${max} characters.`);
+  z
+    .string({ error: `Write ${what}.` })
+    .trim()
+    .min(min, `Write ${what} of at least ${min} characters.`)
+    .max(max, `At most ${max} characters.`);
 
 /** A vendor's written objection to an award. */
 export const objectionSchema = z.object({ body: words("the objection", 20, 8000) });
@@ -20,4 +24,6 @@ export const addendumSchema = z.object({
 export type AddendumInput = z.infer<typeof addendumSchema>;
 
 /** A page of a tender's ledger, from 1 (newest entries first). */
-export const ledgerPageSchema = z.object({ page: z.coerce.number({ error: "The page is a number." }).int("A whole page number.").min(1, "Pages start at 1.").default(1) });
+export const ledgerPageSchema = z.object({
+  page: z.coerce.number({ error: "The page is a number." }).int("A whole page number.").min(1, "Pages start at 1.").default(1),
+});

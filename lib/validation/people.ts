@@ -4,8 +4,9 @@ import { optionalChoice, optionalFilter, pagingSchema } from "./paging";
 import { typedDecimal } from "./numbers";
 
 /** An approval limit in the buying currency; empty (null) is no limit. */
-const approvalLimit = typedDecimal(z.number({ error: "Enter the approval limit as a number, or leave it empty." }).nonnegative("Must be zero or more.").max(1e12).nullable());
-
+const approvalLimit = typedDecimal(
+  z.number({ error: "Enter the approval limit as a number, or leave it empty." }).nonnegative("Must be zero or more.").max(1e12).nullable(),
+);
 
 export const roleListSchema = z
   .array(z.enum(ROLE_NAMES))
@@ -40,7 +41,6 @@ export const createOrganisationSchema = z.object({
   name: z.string().trim().min(2, "Enter the organisation's name.").max(160),
   country: z.string().trim().length(2, "Two-letter country code.").toUpperCase().optional(),
 });
-
 
 /** The People list's filters, as they appear in the URL. */
 export const peopleFiltersSchema = z.object({

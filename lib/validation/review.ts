@@ -30,8 +30,7 @@ export const markSchema = z
   .superRefine((v, ctx) => {
     if (commentRequired(v.mark) && v.comment.length === 0)
       ctx.addIssue({ code: "custom", path: ["comment"], message: "Say why: a comment is required for every mark but accepted." });
-    if (v.mark === "clarification-requested" && !v.subject)
-      ctx.addIssue({ code: "custom", path: ["subject"], message: "Give the question a subject." });
+    if (v.mark === "clarification-requested" && !v.subject) ctx.addIssue({ code: "custom", path: ["subject"], message: "Give the question a subject." });
   });
 export type MarkInput = z.infer<typeof markSchema>;
 
@@ -49,11 +48,18 @@ export const closeThreadSchema = z.object({ reason: text(1000).min(10, "Say why 
 export type CloseThreadInput = z.infer<typeof closeThreadSchema>;
 
 const count = (what: string) =>
-  z.number({ error: () => `${what} must be a number.` }).int(`${what} must be a whole number.`).min(0, `${what} cannot be negative.`).max(1e15, `${what} is too large.`);
+  z
+    .number({ error: () => `${what} must be a number.` })
+    .int(`${what} must be a whole number.`)
+    .min(0, `${what} cannot be negative.`)
+    .max(1e15, `${what} is too large.`);
 
 export const evidenceRunSchema = z
   .object({
-    channelValue: z.number({ error: () => "Give the channel condition as a number." }).min(-50).max(50),
+    channelValue: z
+      .number({ error: () => "Give the channel condition as a number." })
+      .min(-50)
+      .max(50),
     unit: z.enum(["bits", "frames"], { error: () => 'Choose "bits" or "frames".' }),
     trials: count("Trials").min(1, "At least 1 bit or frame."),
     errors: count("Errors"),

@@ -50,7 +50,12 @@ export const operatingPointSchema = z.object({
 export const WEIGHT_KEYS = ["technical", "evidence", "price", "leadTime", "warranty"] as const;
 
 export const weightsSchema = z
-  .object(Object.fromEntries(WEIGHT_KEYS.map((k) => [k, num("the weight").min(0, "Weights are zero or more.").max(1000)])) as Record<(typeof WEIGHT_KEYS)[number], z.ZodNumber>)
+  .object(
+    Object.fromEntries(WEIGHT_KEYS.map((k) => [k, num("the weight").min(0, "Weights are zero or more.").max(1000)])) as Record<
+      (typeof WEIGHT_KEYS)[number],
+      z.ZodNumber
+    >,
+  )
   .refine((w) => WEIGHT_KEYS.reduce((sum, k) => sum + w[k], 0) > 0, "At least one weight must be above zero.");
 
 /** The fields of a tender's requirements, each checked alone (the PATCH body is any part of it). */
@@ -65,7 +70,11 @@ export const tenderFieldsSchema = z.object({
   /** Plausibility of sensitivity claims is judged at this noise figure where the vendor states none. */
   assumedNoiseFigureDb: num("the assumed noise figure in dB").min(0, "A noise figure is at least 0 dB (an ideal receiver).").max(40, "At most 40 dB."),
   quantity: num("the quantity").int("A whole number of units.").positive("At least one unit.").max(100_000_000),
-  currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, "Three letters (ISO 4217), e.g. EUR."),
+  currency: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{3}$/, "Three letters (ISO 4217), e.g. EUR."),
   weights: weightsSchema,
   impossibleRule: z.enum(["disqualify", "penalty"], { error: "Choose what a confirmed impossible claim costs." }),
   impossiblePenalty: num("the penalty").min(0, "Zero or more points.").max(100, "At most 100 points."),
@@ -75,7 +84,10 @@ export const tenderFieldsSchema = z.object({
   standstillDays: num("the standstill period").int("Whole days.").min(1, "At least one day.").max(60, "At most 60 days."),
   closesLocal: z.string().regex(LOCAL_DATE_TIME, "Enter the closing date and time."),
   closesZone: z.string().refine(isValidZone, "Choose a time zone."),
-  invitedOrgIds: z.array(z.string().min(1)).max(50).refine((ids) => new Set(ids).size === ids.length, "Each organisation once."),
+  invitedOrgIds: z
+    .array(z.string().min(1))
+    .max(50)
+    .refine((ids) => new Set(ids).size === ids.length, "Each organisation once."),
 });
 
 type Fields = z.infer<typeof tenderFieldsSchema>;
@@ -85,7 +97,11 @@ function crossChecks(value: Fields, ctx: z.RefinementCtx) {
   value.operatingPoints.forEach((point, i) => {
     if (point.sensitivity) {
       if (value.channelModel !== "biawgn")
-        ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "sensitivity"], message: "An input level in dBm is stated only on a BI-AWGN (soft-decision) tender." });
+        ctx.addIssue({
+          code: "custom",
+          path: ["operatingPoints", i, "sensitivity"],
+          message: "An input level in dBm is stated only on a BI-AWGN (soft-decision) tender.",
+        });
       else if (!(point.value >= SENSITIVITY_RANGE.min && point.value <= SENSITIVITY_RANGE.max))
         ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "value"], message: `Out of range: ${SENSITIVITY_RANGE.words}.` });
       return;
@@ -96,7 +112,8 @@ function crossChecks(value: Fields, ctx: z.RefinementCtx) {
   });
   const labels = value.operatingPoints.map((p) => p.label.toLowerCase());
   labels.forEach((label, i) => {
-    if (labels.indexOf(label) !== i) ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "label"], message: "Each operating point needs its own name." });
+    if (labels.indexOf(label) !== i)
+      ctx.addIssue({ code: "custom", path: ["operatingPoints", i, "label"], message: "Each operating point needs its own name." });
   });
   if (value.impossibleRule === "penalty" && value.impossiblePenalty <= 0) {
     ctx.addIssue({ code: "custom", path: ["impossiblePenalty"], message: "A penalty needs some points." });
@@ -125,9 +142,7 @@ export type TenderInput = z.infer<typeof tenderInputSchema>;
 export type TenderFormValues = z.input<typeof tenderInputSchema>;
 
 /** PATCH: any of the fields, no defaults; the server checks the merged draft with tenderInputSchema. */
-export const tenderPatchSchema = tenderFieldsSchema
-  .partial()
-  .refine((v) => Object.keys(v).length > 0, "Send at least one field to change.");
+export const tenderPatchSchema = tenderFieldsSchema.partial().refine((v) => Object.keys(v).length > 0, "Send at least one field to change.");
 export type TenderPatch = z.infer<typeof tenderPatchSchema>;
 
 export const cancelTenderSchema = z.object({

@@ -14,10 +14,7 @@ export function approverRules(builder: RuleBuilder, actor: Actor): void {
     const inDeclared = { tenderId: { $in: declared } };
     can(
       [...READ],
-      [
-        "Offer", "Claim", "Document", "Mark", "EvidenceRun", "TechnicalSignoff",
-        "Score", "Recommendation", "Approval", "Memo", "Ledger",
-      ],
+      ["Offer", "Claim", "Document", "Mark", "EvidenceRun", "TechnicalSignoff", "Score", "Recommendation", "Approval", "Memo", "Ledger"],
       inDeclared,
     );
     can([...READ], "Envelope", { ...inDeclared, opened: true });

@@ -18,8 +18,21 @@ export function buyerRules(builder: RuleBuilder, actor: Actor): void {
   can(
     [...READ],
     [
-      "Offer", "Claim", "Document", "Mark", "EvidenceRun", "TechnicalSignoff", "Declaration",
-      "Score", "Recommendation", "Approval", "ApprovalLimit", "Ledger", "Memo", "Objection", "Addendum",
+      "Offer",
+      "Claim",
+      "Document",
+      "Mark",
+      "EvidenceRun",
+      "TechnicalSignoff",
+      "Declaration",
+      "Score",
+      "Recommendation",
+      "Approval",
+      "ApprovalLimit",
+      "Ledger",
+      "Memo",
+      "Objection",
+      "Addendum",
     ],
   );
   can("create", "Addendum");

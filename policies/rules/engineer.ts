@@ -15,11 +15,7 @@ export function engineerRules(builder: RuleBuilder, actor: Actor): void {
 
   if (declared.length > 0) {
     const inDeclared = { tenderId: { $in: declared } };
-    can(
-      [...READ],
-      ["Offer", "Claim", "Document", "Mark", "Thread", "EvidenceRun", "TechnicalSignoff"],
-      inDeclared,
-    );
+    can([...READ], ["Offer", "Claim", "Document", "Mark", "Thread", "EvidenceRun", "TechnicalSignoff"], inDeclared);
     can("mark", "Claim", inDeclared);
     can("record", "EvidenceRun", inDeclared);
     // "update" is closing a question with a reason.

@@ -21,10 +21,6 @@ export function personalRules({ cannot }: RuleBuilder, actor: Actor): void {
     cannot(["approve", "return"], "Approval", conflicted).because(reason);
   }
 
-  cannot(["approve", "return"], "Approval", { recommendationPreparedBy: actor.id }).because(
-    "No one approves a recommendation they prepared",
-  );
-  cannot(["approve", "return"], "Approval", { tenderCreatedBy: actor.id }).because(
-    "No one approves the award of a tender they created",
-  );
+  cannot(["approve", "return"], "Approval", { recommendationPreparedBy: actor.id }).because("No one approves a recommendation they prepared");
+  cannot(["approve", "return"], "Approval", { tenderCreatedBy: actor.id }).because("No one approves the award of a tender they created");
 }

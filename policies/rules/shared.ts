@@ -44,7 +44,5 @@ export const OFFER_RECORDS = ["Offer", "Envelope", "Claim", "Document", "Mark", 
  * technical or commercial. Built after every role so that no grant lifts it.
  */
 export function sealedUntilClosing({ cannot }: RuleBuilder): void {
-  cannot("manage", [...OFFER_RECORDS], { tenderState: { $in: [...SEALED_STATES] } }).because(
-    "Offers stay sealed to the buying side until the tender closes",
-  );
+  cannot("manage", [...OFFER_RECORDS], { tenderState: { $in: [...SEALED_STATES] } }).because("Offers stay sealed to the buying side until the tender closes");
 }

@@ -4,15 +4,7 @@
 // earlier run's work is reused; the CLI batch shows the warm, realistic case.
 import { spawn, spawnSync } from "node:child_process";
 import path from "node:path";
-import {
-  clearBoundsCaches,
-  energyConverseEbn0Db,
-  evaluateClaim,
-  orthogonalEbn0Db,
-  spherePackingEbn0Db,
-  spherePackingLog,
-  type ClaimInput,
-} from "@/lib/bounds";
+import { clearBoundsCaches, energyConverseEbn0Db, evaluateClaim, orthogonalEbn0Db, spherePackingEbn0Db, spherePackingLog, type ClaimInput } from "@/lib/bounds";
 import type { BenchCase } from "./types";
 
 const root = path.resolve(import.meta.dirname, "../..");
@@ -34,11 +26,15 @@ function mixedClaims(count: number): string {
     const k = Math.round(n * [0.5, 0.75, 0.8333, 0.9][(i >> 2) % 4]) - (i % 13);
     const target = { metric: i % 3 ? "bler" : "ber", value: 10 ** -(3 + (i % 10)) };
     const ch =
-      i % 5 === 0 ? { model: "bec", e: 0.02 + (i % 7) * 0.02 }
-      : i % 5 === 1 ? { model: "biawgn", ebn0Db: 1 + (i % 9) * 0.5 }
-      : i % 5 === 2 ? { model: "bsc", p: 1e-3 * (1 + (i % 11)) }
-      : i % 5 === 3 ? { model: "bsc", ncgDb: 8 + (i % 5) * 0.3 }
-      : { model: "bsc", p: 5e-3 };
+      i % 5 === 0
+        ? { model: "bec", e: 0.02 + (i % 7) * 0.02 }
+        : i % 5 === 1
+          ? { model: "biawgn", ebn0Db: 1 + (i % 9) * 0.5 }
+          : i % 5 === 2
+            ? { model: "bsc", p: 1e-3 * (1 + (i % 11)) }
+            : i % 5 === 3
+              ? { model: "bsc", ncgDb: 8 + (i % 5) * 0.3 }
+              : { model: "bsc", p: 5e-3 };
     const code = i % 17 === 0 ? { overhead: 0.07 } : { n, k };
     lines.push(i % 1000 === 999 ? "{bad line" : JSON.stringify({ channel: ch, code, target }));
   }
@@ -84,15 +80,13 @@ export const benches: BenchCase[] = [
   {
     name: "BEC verdict + thresholds, n = 10^5",
     runs: 20,
-    run: (i) =>
-      cold({ channel: { model: "bec", e: 0.05 }, code: { n: 100_000, k: 90_000 - i }, target: { metric: "bler", value: 1e-6 } }),
+    run: (i) => cold({ channel: { model: "bec", e: 0.05 }, code: { n: 100_000, k: 90_000 - i }, target: { metric: "bler", value: 1e-6 } }),
   },
   {
     name: "BI-AWGN verdict + thresholds, n = 64,800",
     runs: 20,
     targetMs: 5,
-    run: (i) =>
-      cold({ channel: { model: "biawgn", ebn0Db: 1.5 + i * 1e-3 }, code: { n: 64_800, k: 32_400 - i }, target: { metric: "bler", value: 1e-6 } }),
+    run: (i) => cold({ channel: { model: "biawgn", ebn0Db: 1.5 + i * 1e-3 }, code: { n: 64_800, k: 32_400 - i }, target: { metric: "bler", value: 1e-6 } }),
   },
   { name: "1959 bound forward, n = 1,024", runs: 40, targetMs: 2, run: sphereForward(1024) },
   { name: "1959 bound forward, n = 100,000", runs: 40, targetMs: 2, run: sphereForward(100_000) },

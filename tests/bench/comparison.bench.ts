@@ -27,9 +27,16 @@ async function prepare(): Promise<Setup> {
   // Ten operating points from clear to stormy, so each offer carries ten claims.
   const points = Array.from({ length: CLAIMS_PER_OFFER }, (_, i) => ({ label: `Point ${i + 1}`, value: 1e-3 * (1 + i * 0.4) }));
   const offers = Array.from({ length: OFFERS }, (_, i) => {
-    const base = i % 7 === 0 ? impossible(`Vendor ${i + 1}`, 30 + i, 4 + (i % 9), 12 + (i % 4) * 12) : honest(`Vendor ${i + 1}`, 35 + (i % 13) * 1.5, 4 + (i % 9), 12 + (i % 4) * 12);
+    const base =
+      i % 7 === 0
+        ? impossible(`Vendor ${i + 1}`, 30 + i, 4 + (i % 9), 12 + (i % 4) * 12)
+        : honest(`Vendor ${i + 1}`, 35 + (i % 13) * 1.5, 4 + (i % 9), 12 + (i % 4) * 12);
     const claim = base.claims[i % 7 === 0 ? 1 : 0];
-    return { ...base, priceBreaks: [{ minQuantity: 1000, unitPrice: base.unitPrice - 2 }], claims: points.map((_, j) => ({ ...claim, evidence: j === 0 && i % 3 === 0 ? ("verified" as const) : undefined })) };
+    return {
+      ...base,
+      priceBreaks: [{ minQuantity: 1000, unitPrice: base.unitPrice - 2 }],
+      claims: points.map((_, j) => ({ ...claim, evidence: j === 0 && i % 3 === 0 ? ("verified" as const) : undefined })),
+    };
   });
   const fx = await createCommercialTender(db, { opened: true, points, targetValue: 1e-3, offers });
   const headers = await signInAs("buyer@tarnwell.example");

@@ -42,7 +42,12 @@ async function prepare() {
     startSlow() {
       process.env.ENGINE_TEST_DELAY_MS = "600000";
       resetEnvForTests();
-      const jobs = Array.from({ length: SLOW }, () => runEngine("claims", [claim as never]).then(() => "finished", (e: Error) => e.name));
+      const jobs = Array.from({ length: SLOW }, () =>
+        runEngine("claims", [claim as never]).then(
+          () => "finished",
+          (e: Error) => e.name,
+        ),
+      );
       delete process.env.ENGINE_TEST_DELAY_MS;
       resetEnvForTests();
       return Promise.all(jobs);
@@ -72,7 +77,13 @@ async function load(call: () => Promise<Sample>, stop: { done: boolean }): Promi
 function row(name: string, samples: Sample[], target: string): BenchRow {
   const times = samples.map((s) => s.ms).sort((a, b) => a - b);
   const refused = samples.filter((s) => s.status !== 200).length;
-  return { name: refused ? `${name} (${refused} answered ${[...new Set(samples.filter((s) => s.status !== 200).map((s) => s.status))].join("/")})` : name, runs: times.length, medianMs: quantile(times, 0.5), p95Ms: quantile(times, 0.95), target };
+  return {
+    name: refused ? `${name} (${refused} answered ${[...new Set(samples.filter((s) => s.status !== 200).map((s) => s.status))].join("/")})` : name,
+    runs: times.length,
+    medianMs: quantile(times, 0.5),
+    p95Ms: quantile(times, 0.95),
+    target,
+  };
 }
 
 async function phase(call: () => Promise<Sample>, during: Promise<unknown> | number): Promise<Sample[]> {

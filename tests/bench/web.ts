@@ -56,7 +56,8 @@ function newestSource(): number {
     }
   };
   for (const dir of ["app", "lib", "db", "policies", "drizzle"]) walk(path.join(ROOT, dir));
-  for (const file of ["package.json", "next.config.ts", "proxy.ts", "tailwind.config.ts"]) newest = Math.max(newest, fs.statSync(path.join(ROOT, file)).mtimeMs);
+  for (const file of ["package.json", "next.config.ts", "proxy.ts", "tailwind.config.ts"])
+    newest = Math.max(newest, fs.statSync(path.join(ROOT, file)).mtimeMs);
   return newest;
 }
 
@@ -84,7 +85,15 @@ async function startServer(port: number, dataDir: string, env: Settings = {}): P
     cwd: ROOT,
     detached: true,
     stdio: ["ignore", out, out],
-    env: envWith({ NODE_ENV: "production", DEMO: "1", PORT: String(port), DATA_DIR: dataDir, BETTER_AUTH_URL: base, SIGN_IN_ATTEMPTS_PER_MINUTE: "100000", ...env }),
+    env: envWith({
+      NODE_ENV: "production",
+      DEMO: "1",
+      PORT: String(port),
+      DATA_DIR: dataDir,
+      BETTER_AUTH_URL: base,
+      SIGN_IN_ATTEMPTS_PER_MINUTE: "100000",
+      ...env,
+    }),
   });
   const deadline = Date.now() + 240_000;
   for (;;) {
@@ -121,7 +130,7 @@ function residentMb(rootPid: number): [number, number] {
     }
   }
   const tree = new Set([rootPid]);
-  for (let grew = true; grew; ) {
+  for (let grew = true; grew;) {
     grew = false;
     for (const [pid, ppid] of parents) {
       if (tree.has(ppid) && !tree.has(pid)) {
@@ -172,7 +181,10 @@ async function signIn(base: string, email: string): Promise<Client> {
     body: JSON.stringify({ email, password: "ratecourt-demo" }),
   });
   if (response.status !== 200) throw new Error(`sign-in as ${email} at ${base}: ${response.status} ${await response.text()}`);
-  const cookie = response.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  const cookie = response.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .join("; ");
   return { base, cookie };
 }
 
@@ -224,12 +236,22 @@ interface Case {
 
 /** 1,000 invented claims over a spread of channels, codes and targets (the same batch each time). */
 function thousandClaims() {
-  const codes = [[648, 540], [1024, 768], [1944, 1620], [2048, 1536], [4096, 3584]];
+  const codes = [
+    [648, 540],
+    [1024, 768],
+    [1944, 1620],
+    [2048, 1536],
+    [4096, 3584],
+  ];
   const ps = [1e-3, 2e-3, 3e-3, 5e-3, 8e-3];
   const targets = [1e-4, 1e-5, 1e-6, 1e-7];
   return Array.from({ length: 1000 }, (_, i) => {
     const [n, k] = codes[i % codes.length];
-    return { channel: { model: "bsc", p: ps[Math.floor(i / 5) % ps.length] * (1 + (i % 8) / 10) }, code: { n, k }, target: { metric: "bler", value: targets[Math.floor(i / 25) % targets.length] } };
+    return {
+      channel: { model: "bsc", p: ps[Math.floor(i / 5) % ps.length] * (1 + (i % 8) / 10) },
+      code: { n, k },
+      target: { metric: "bler", value: targets[Math.floor(i / 25) % targets.length] },
+    };
   });
 }
 
@@ -248,7 +270,12 @@ async function findCases(buyer: Client, engineer: Client): Promise<Case[]> {
     { name: "Review bench", role: "engineer", paths: ["/review"] },
     { name: "Claim page", role: "engineer", paths: [`/review/claims/${queue[Math.floor(queue.length / 2)].id}`] },
     { name: "Comparison route (50 offers x 10 claims)", role: "buyer", paths: [`/api/v1/tenders/${wide.id}/comparison`] },
-    { name: "Sign-off tab (page + memo preview)", role: "buyer", paths: [`/tenders/${approval.id}/sign-off`, `/api/v1/tenders/${approval.id}/memo/preview`], rounds: 1 },
+    {
+      name: "Sign-off tab (page + memo preview)",
+      role: "buyer",
+      paths: [`/tenders/${approval.id}/sign-off`, `/api/v1/tenders/${approval.id}/memo/preview`],
+      rounds: 1,
+    },
     { name: "Ledger tab", role: "buyer", paths: [`/tenders/${wide.id}/ledger`] },
     { name: "People page", role: "admin", paths: ["/people"] },
     { name: "POST /api/v1/evaluate (1,000 claims)", role: "engineer", paths: ["/api/v1/evaluate"], body: thousandClaims(), rounds: 1 },
@@ -279,7 +306,13 @@ async function measure(label: string, c: Case, clients: Client[], concurrency: n
     for (let r = 0; r < (c.rounds ?? ROUNDS); r++) times.push(...(await Promise.all(clients.slice(0, concurrency).map((client) => visit(client, c)))));
   }
   times.sort((a, b) => a - b);
-  const row = { name: `${label}: ${c.name}, ${concurrency} client${concurrency > 1 ? "s" : ""}${resets ? ` (${resets} reset connection${resets > 1 ? "s" : ""} retried)` : ""}`, runs: times.length, medianMs: quantile(times, 0.5), p95Ms: quantile(times, 0.95), target: `p95 < ${TARGET_MS} ms` };
+  const row = {
+    name: `${label}: ${c.name}, ${concurrency} client${concurrency > 1 ? "s" : ""}${resets ? ` (${resets} reset connection${resets > 1 ? "s" : ""} retried)` : ""}`,
+    runs: times.length,
+    medianMs: quantile(times, 0.5),
+    p95Ms: quantile(times, 0.95),
+    target: `p95 < ${TARGET_MS} ms`,
+  };
   resets = 0;
   log(`${row.name}: p50 ${row.medianMs.toFixed(0)} ms, p95 ${row.p95Ms.toFixed(0)} ms`);
   return row;
@@ -305,7 +338,13 @@ async function measureAll(label: string, servers: Server[]): Promise<BenchRow[]>
     memory.stop();
   }
   const { peakOne, peakAll } = memory.peak();
-  rows.push({ name: `${label}: peak resident memory, largest process / all of a server's processes (MB)`, runs: 0, medianMs: peakOne, p95Ms: peakAll, target: `< ${MEMORY_TARGET_MB} MB` });
+  rows.push({
+    name: `${label}: peak resident memory, largest process / all of a server's processes (MB)`,
+    runs: 0,
+    medianMs: peakOne,
+    p95Ms: peakAll,
+    target: `< ${MEMORY_TARGET_MB} MB`,
+  });
   return rows;
 }
 
@@ -337,7 +376,9 @@ async function startPostgres(): Promise<{ url: string; stop: () => void }> {
   if (root && spawnSync("id", ["postgres"]).status !== 0) spawnSync("useradd", ["--system", "--no-create-home", "postgres"], { stdio: "inherit" });
   if (root) spawnSync("chown", ["postgres", dir]);
   const as = (cmd: string) => {
-    const result = root ? spawnSync("su", ["postgres", "-s", "/bin/bash", "-c", cmd], { stdio: "inherit" }) : spawnSync("bash", ["-c", cmd], { stdio: "inherit" });
+    const result = root
+      ? spawnSync("su", ["postgres", "-s", "/bin/bash", "-c", cmd], { stdio: "inherit" })
+      : spawnSync("bash", ["-c", cmd], { stdio: "inherit" });
     if (result.status !== 0) throw new Error(`PostgreSQL setup failed: ${cmd}`);
   };
   as(`${bin}/initdb -D ${dir}/data -A trust -U ratecourt >/dev/null`);

@@ -44,7 +44,11 @@ async function pagesFor(page: Page): Promise<string[]> {
   if (pages.includes("/review")) {
     await page.goto("/review");
     // The queue fills after hydration; a role with no declared tender has none to open.
-    await page.getByRole("link", { name: /^Open claim/ }).first().waitFor({ timeout: 15_000 }).catch(() => undefined);
+    await page
+      .getByRole("link", { name: /^Open claim/ })
+      .first()
+      .waitFor({ timeout: 15_000 })
+      .catch(() => undefined);
     pages.push(...(await linksIn(page, "main a", "/review/claims/")).slice(0, 1));
   }
   if (pages.includes("/people")) {

@@ -28,10 +28,17 @@ async function prepare(browser: Browser) {
   tenderId = await gaugesTenderId(buyer.request);
   if ((await tenderState(buyer.request)) === "technical") {
     const engineer = (await as(browser, ACCOUNTS.engineer)).request;
-    await json(engineer, "post", `/api/v1/tenders/${tenderId}/declaration`, { conflict: "none", conflictedOrgIds: [], statement: "No ties to any invited vendor." });
+    await json(engineer, "post", `/api/v1/tenders/${tenderId}/declaration`, {
+      conflict: "none",
+      conflictedOrgIds: [],
+      statement: "No ties to any invited vendor.",
+    });
     const { claims } = (await json(engineer, "get", `/api/v1/claims?tenderId=${tenderId}&mark=unmarked`)).body;
     for (const c of claims as { id: string; verdict: string }[]) {
-      const mark = c.verdict === "impossible" ? { mark: "rejected-impossible", comment: "Beyond the converse bound at this block length." } : { mark: "accepted", comment: "" };
+      const mark =
+        c.verdict === "impossible"
+          ? { mark: "rejected-impossible", comment: "Beyond the converse bound at this block length." }
+          : { mark: "accepted", comment: "" };
       expect((await json(engineer, "post", `/api/v1/claims/${c.id}/marks`, mark)).status).toBeLessThan(300);
     }
     expect((await json(engineer, "post", `/api/v1/tenders/${tenderId}/signoff`, { statement: "Every claim reviewed against the bounds." })).status).toBe(201);
@@ -115,7 +122,11 @@ test("two approvers sign the high-value award after a return and a resubmission"
   expect(fingerprint).toMatch(/^[0-9a-f]{64}$/);
   const [download] = await Promise.all([helen.waitForEvent("download"), memo.getByRole("link", { name: "Download the memo (PDF)" }).click()]);
   memoFile = (await download.path())!;
-  expect(createHash("sha256").update(await readFile(memoFile)).digest("hex")).toBe(fingerprint);
+  expect(
+    createHash("sha256")
+      .update(await readFile(memoFile))
+      .digest("hex"),
+  ).toBe(fingerprint);
 });
 
 test("anyone confirms the memo on Memo check, and a changed copy fails", async ({ page }) => {

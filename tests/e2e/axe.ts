@@ -7,7 +7,11 @@ const TAGS = ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa"];
 /** One line per failing rule: what, how many nodes, and the first few selectors to find them. */
 function describe(violations: Awaited<ReturnType<AxeBuilder["analyze"]>>["violations"]) {
   return violations.map(
-    (v) => `${v.impact} ${v.id}: ${v.help} (${v.nodes.length}×: ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(" | ")})`,
+    (v) =>
+      `${v.impact} ${v.id}: ${v.help} (${v.nodes.length}×: ${v.nodes
+        .slice(0, 3)
+        .map((n) => n.target.join(" "))
+        .join(" | ")})`,
   );
 }
 

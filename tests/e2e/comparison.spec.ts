@@ -23,14 +23,22 @@ async function gridRows(page: Page): Promise<Record<string, string>[]> {
 
 /** AG Grid quotes every value; no value of this grid holds a quote. */
 const csvRows = (text: string) =>
-  text.replace(/^\uFEFF/, "").trim().split(/\r?\n/).map((line) => line.replace(/^"|"$/g, "").split('","'));
+  text
+    .replace(/^\uFEFF/, "")
+    .trim()
+    .split(/\r?\n/)
+    .map((line) => line.replace(/^"|"$/g, "").split('","'));
 
 test("a buyer opens the envelopes, sorts, exports, tries other weights and recommends an award", async ({ page }) => {
   await page.setViewportSize({ width: 1440, height: 900 });
   await signIn(page, ACCOUNTS.buyer);
   await page.goto("/tenders");
   // The list names the tender by its title; its row carries the reference.
-  await page.getByRole("row", { name: new RegExp(REFERENCE) }).getByRole("link").first().click();
+  await page
+    .getByRole("row", { name: new RegExp(REFERENCE) })
+    .getByRole("link")
+    .first()
+    .click();
   await page.getByRole("link", { name: "Comparison", exact: true }).click();
   await expect(page.getByRole("region", { name: "Comparison grid" })).toBeVisible();
   // The caution sits beside the verdicts, once (the signed-in pages have no footer copy of it).
@@ -61,7 +69,9 @@ test("a buyer opens the envelopes, sorts, exports, tries other weights and recom
   expect(sorted[0].rank).toBe("1");
   // A disqualified offer shows no score at all; every other score is within 0..100.
   for (const row of sorted) {
-    const scores = Object.entries(row).filter(([col]) => col.startsWith("score-") || col === "total").map(([, v]) => v);
+    const scores = Object.entries(row)
+      .filter(([col]) => col.startsWith("score-") || col === "total")
+      .map(([, v]) => v);
     if (row.status.includes("Disqualified")) expect(scores.every((v) => v === "–")).toBe(true);
     else for (const v of scores) expect(Number(v)).toBeLessThanOrEqual(100);
   }

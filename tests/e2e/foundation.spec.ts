@@ -4,10 +4,28 @@ import { ACCOUNTS, nav, PASSWORD, signIn, signOut } from "./helpers";
 // Each demo role signs in, sees its Desk and the navigation its abilities allow.
 const roles = [
   { who: "admin", email: ACCOUNTS.admin, sees: ["Desk", "Tenders", "People", "Mailroom"], hidden: ["Review bench"], section: "Tenders in progress" },
-  { who: "buyer", email: ACCOUNTS.buyer, sees: ["Desk", "Tenders", "Bound explorer"], hidden: ["People", "Review bench"], section: "Drafts to finish and open" },
-  { who: "engineer", email: ACCOUNTS.engineer, sees: ["Desk", "Tenders", "Review bench", "Bound explorer"], hidden: ["People"], section: "Technical evaluations to review" },
+  {
+    who: "buyer",
+    email: ACCOUNTS.buyer,
+    sees: ["Desk", "Tenders", "Bound explorer"],
+    hidden: ["People", "Review bench"],
+    section: "Drafts to finish and open",
+  },
+  {
+    who: "engineer",
+    email: ACCOUNTS.engineer,
+    sees: ["Desk", "Tenders", "Review bench", "Bound explorer"],
+    hidden: ["People"],
+    section: "Technical evaluations to review",
+  },
   { who: "approver", email: ACCOUNTS.approver, sees: ["Desk", "Tenders"], hidden: ["People", "Review bench"], section: "Recommendations awaiting approval" },
-  { who: "vendor", email: ACCOUNTS.kestrelink, sees: ["Desk", "Tenders", "Bound explorer"], hidden: ["People", "Review bench", "Mailroom"], section: "Tenders you are invited to" },
+  {
+    who: "vendor",
+    email: ACCOUNTS.kestrelink,
+    sees: ["Desk", "Tenders", "Bound explorer"],
+    hidden: ["People", "Review bench", "Mailroom"],
+    section: "Tenders you are invited to",
+  },
 ] as const;
 
 for (const role of roles) {

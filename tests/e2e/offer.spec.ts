@@ -50,7 +50,17 @@ test("Kestrelink claims beyond capacity and sees Impossible before closing", asy
   await signIn(page, ACCOUNTS.kestrelink);
   await openOfferForm(page);
   // Rate 2040/2048 = 0.996 is above the capacity of the BSC at p = 2e-3 (about 0.979).
-  await fillOffer(page, { module: "KR-868 WeirLink", part: "KR-868-WL", family: "RS", n: "2048", k: "2040", claim: "1e-9", price: "27.50", weeks: "10", months: "24" });
+  await fillOffer(page, {
+    module: "KR-868 WeirLink",
+    part: "KR-868-WL",
+    family: "RS",
+    n: "2048",
+    k: "2040",
+    claim: "1e-9",
+    price: "27.50",
+    weeks: "10",
+    months: "24",
+  });
   const verdicts = page.getByRole("region", { name: "Verdicts" });
   await expect(verdicts.getByText("Impossible", { exact: true })).toBeVisible();
   await expect(verdicts.getByText(/No code can reach|needs capacity/).first()).toBeVisible();
@@ -61,7 +71,17 @@ test("Kestrelink claims beyond capacity and sees Impossible before closing", asy
 test("Oxbow submits an honest offer, sees Plausible, and only its own offer on the Offers tab", async ({ page }) => {
   await signIn(page, ACCOUNTS.oxbow);
   await openOfferForm(page);
-  await fillOffer(page, { module: "Oxbow OW-Weir", part: "OW-W1", family: "LDPC", n: "2048", k: "1536", claim: "1e-5", price: "61.00", weeks: "9", months: "24" });
+  await fillOffer(page, {
+    module: "Oxbow OW-Weir",
+    part: "OW-W1",
+    family: "LDPC",
+    n: "2048",
+    k: "1536",
+    claim: "1e-5",
+    price: "61.00",
+    weeks: "9",
+    months: "24",
+  });
   const verdicts = page.getByRole("region", { name: "Verdicts" });
   await expect(verdicts.getByText("Plausible", { exact: true })).toBeVisible();
   await expect(verdicts.getByText("Impossible", { exact: true })).toHaveCount(0);

@@ -12,7 +12,18 @@ export default defineConfig({
   // One demo database for the whole run: the tender journey goes review -> comparison -> award
   // on the gauges tender, in that order; the other journeys use their own tenders.
   projects: [
-    { name: "pages", testMatch: ["foundation.spec.ts", "explorer.spec.ts", "tender-draft.spec.ts", "offer.spec.ts", "sensitivity.spec.ts", "runtime.spec.ts", "accessibility.spec.ts"] },
+    {
+      name: "pages",
+      testMatch: [
+        "foundation.spec.ts",
+        "explorer.spec.ts",
+        "tender-draft.spec.ts",
+        "offer.spec.ts",
+        "sensitivity.spec.ts",
+        "runtime.spec.ts",
+        "accessibility.spec.ts",
+      ],
+    },
     { name: "review", testMatch: "review.spec.ts", dependencies: ["pages"] },
     { name: "comparison", testMatch: "comparison.spec.ts", dependencies: ["review"] },
     { name: "deadlock", testMatch: "deadlock.spec.ts", dependencies: ["comparison"] },

@@ -60,7 +60,10 @@ test("the engineer declares no conflict and sees the verdict badges", async ({ p
 test("the engineer records a lab run and asks Marram a question", async ({ page }) => {
   await signIn(page, ACCOUNTS.engineer);
   await page.goto("/review?verdict=needs-evidence");
-  await page.getByRole("link", { name: /Open claim Marram Telemetry/ }).first().click();
+  await page
+    .getByRole("link", { name: /Open claim Marram Telemetry/ })
+    .first()
+    .click();
   await expect(page.getByRole("region", { name: "Findings" })).toBeVisible();
   await expect(page.getByRole("region", { name: "Numbers" })).toContainText("Least possible BLER");
 

@@ -19,7 +19,8 @@ const ADDENDUM = { title: "Mounting height", body: "The gauges are mounted 4 m a
 
 const publish = async (email: string, body: unknown) =>
   addendaPost(request(`/api/v1/tenders/${weirs}/addenda`, { method: "POST", headers: await signInAs(email), body }), params({ id: weirs }));
-const list = async (email: string) => (await addendaGet(request(`/api/v1/tenders/${weirs}/addenda`, { headers: await signInAs(email) }), params({ id: weirs }))).json();
+const list = async (email: string) =>
+  (await addendaGet(request(`/api/v1/tenders/${weirs}/addenda`, { headers: await signInAs(email) }), params({ id: weirs }))).json();
 const submit = async (email: string) =>
   submitPost(request(`/api/v1/tenders/${weirs}/offers`, { method: "POST", headers: await signInAs(email), body: offer }), params({ id: weirs }));
 const acknowledge = async (email: string, id: string) =>
@@ -40,12 +41,20 @@ describe("addenda", () => {
     const published = await publish("buyer@tarnwell.example", ADDENDUM);
     expect(published.status).toBe(201);
     addendumId = (await published.json()).id;
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, weirs), eq(ledgerEntries.action, "addendum.published")));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, weirs), eq(ledgerEntries.action, "addendum.published")));
     expect(entry.data).toMatchObject({ title: ADDENDUM.title });
     const mail = await mailAbout(`${reference}: addendum`, 4);
     expect(mail.every((m) => m.text.includes(ADDENDUM.body) && /Acknowledge it on the Notices tab/.test(m.text))).toBe(true);
     // One e-mail per vendor address: no bidder learns who else was invited.
-    expect(mail.map((m) => m.to.join()).sort()).toEqual(["bids@oxbow.example", "offers@marram.example", "sales@kestrelink.example", "tenders@quillfield.example"]);
+    expect(mail.map((m) => m.to.join()).sort()).toEqual([
+      "bids@oxbow.example",
+      "offers@marram.example",
+      "sales@kestrelink.example",
+      "tenders@quillfield.example",
+    ]);
   });
 
   it("vendors read it without the thread it came from; a role that may not publish is refused", async () => {
@@ -67,7 +76,10 @@ describe("addenda", () => {
 
     expect((await acknowledge("bids@oxbow.example", addendumId)).status).toBe(200);
     expect((await acknowledge("bids@oxbow.example", addendumId)).status).toBe(200);
-    const acks = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, weirs), eq(ledgerEntries.action, "addendum.acknowledged")));
+    const acks = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, weirs), eq(ledgerEntries.action, "addendum.acknowledged")));
     expect(acks).toHaveLength(1);
     expect((await submit("bids@oxbow.example")).status).toBe(201);
     expect((await list("buyer@tarnwell.example")).addenda[0].acknowledgedBy).toEqual(["Oxbow Wireless"]);

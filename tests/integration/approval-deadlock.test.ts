@@ -53,7 +53,9 @@ describe("the award value comes from the offer", () => {
 
     const bare = await recommend(fx.tenderId, { ...base, value: 300_000 });
     expect(bare.status).toBe(400);
-    expect((await bare.json()).fieldErrors.valueReason[0]).toBe("The offer's prices give €143,600.00 for 4,000 units. Use that value, or state why the award value differs.");
+    expect((await bare.json()).fieldErrors.valueReason[0]).toBe(
+      "The offer's prices give €143,600.00 for 4,000 units. Use that value, or state why the award value differs.",
+    );
 
     // The case seen in production: 100,000,000 units at a stated 1,000 EUR.
     const huge = { ...base, quantity: 100_000_000, value: 1000, valueReason: "A framework figure." };
@@ -67,7 +69,9 @@ describe("the award value comes from the offer", () => {
     // 300,000 EUR needs two approvers with limits of at least 300,000 EUR: only Tomas Veld holds one.
     const one = await recommend(fx.tenderId, { ...base, value: 300_000, valueReason: "Installation and five years of support." });
     expect(one.status).toBe(409);
-    expect((await one.json()).error).toMatch(/needs 2 approvals from different approvers with a limit of at least €300,000.00.*only 1 approver can give one \(Tomas Veld\)/);
+    expect((await one.json()).error).toMatch(
+      /needs 2 approvals from different approvers with a limit of at least €300,000.00.*only 1 approver can give one \(Tomas Veld\)/,
+    );
 
     expect(await recsOf(fx.tenderId)).toEqual([]);
     expect(await tenderState(fx.tenderId)).toBe("commercial");
@@ -76,13 +80,27 @@ describe("the award value comes from the offer", () => {
 
   it("keeps the computed value beside a stated one, on the Sign-off tab and in the memo", async () => {
     const fx = await commercial();
-    const created = await recommend(fx.tenderId, { offerId: fx.offerIds[0], quantity: 4000, value: 150_000, valueReason: "Includes the site survey.", justification });
+    const created = await recommend(fx.tenderId, {
+      offerId: fx.offerIds[0],
+      quantity: 4000,
+      value: 150_000,
+      valueReason: "Includes the site survey.",
+      justification,
+    });
     expect(created.status).toBe(201);
-    expect(await created.json()).toMatchObject({ value: 150_000, computedValue: 143_600, valueReason: "Includes the site survey.", quantityReason: null, approvalsNeeded: 1 });
+    expect(await created.json()).toMatchObject({
+      value: 150_000,
+      computedValue: 143_600,
+      valueReason: "Includes the site survey.",
+      quantityReason: null,
+      approvalsNeeded: 1,
+    });
 
     await declare("approver", fx.tenderId);
     const view = await signOff("approver", fx.tenderId);
-    expect(view.recommendation.deviations).toEqual(["Stated value €150,000.00; the offer's prices give €143,600.00 for 4,000 units. Reason: Includes the site survey."]);
+    expect(view.recommendation.deviations).toEqual([
+      "Stated value €150,000.00; the offer's prices give €143,600.00 for 4,000 units. Reason: Includes the site survey.",
+    ]);
     expect(view.me).toMatchObject({ allowed: true, awardsIfApproved: true });
 
     const decided = await post(decidePost, `/api/v1/tenders/${fx.tenderId}/approvals`, fx.tenderId, "approver", { decision: "approve" });
@@ -118,10 +136,16 @@ describe("withdrawing a recommendation", () => {
     expect(done.status).toBe(200);
     expect(await done.json()).toMatchObject({ status: "withdrawn", withdrawReason: "The vendor corrected its lead time; recommending again." });
     expect(await tenderState(fx.tenderId)).toBe("commercial");
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, fx.tenderId), eq(ledgerEntries.action, "recommendation.withdrawn")));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, fx.tenderId), eq(ledgerEntries.action, "recommendation.withdrawn")));
     expect(entry.data).toMatchObject({ from: "approval", to: "commercial", reason: "The vendor corrected its lead time; recommending again." });
     // Both entries name the recommendation they concern.
-    const [submitted] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, fx.tenderId), eq(ledgerEntries.action, "recommendation.submitted")));
+    const [submitted] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, fx.tenderId), eq(ledgerEntries.action, "recommendation.submitted")));
     expect(submitted.data).toMatchObject({ recommendationId: entry.subjectId });
     expect(entry.data).toMatchObject({ recommendationId: entry.subjectId });
     const again = await withdraw(fx.tenderId, "buyer", "Withdrawing twice is not possible.");
@@ -137,7 +161,9 @@ describe("nobody strands a pending recommendation", () => {
     for (const change of [{ active: false }, { approvalLimit: 100_000 }, { roles: ["engineer"] }]) {
       const response = await patchUser(ids.director, change);
       expect(response.status).toBe(409);
-      expect((await response.json()).error).toMatch(new RegExp(`recommendation on ${f.reference} awaiting approval without enough approvers.*Tomas Veld.*Nothing was changed\\. Ask the buyer to withdraw`));
+      expect((await response.json()).error).toMatch(
+        new RegExp(`recommendation on ${f.reference} awaiting approval without enough approvers.*Tomas Veld.*Nothing was changed\\. Ask the buyer to withdraw`),
+      );
     }
     const [tomas] = await db.select().from(users).where(eq(users.id, ids.director));
     expect(tomas).toMatchObject({ active: true, approvalLimit: 2_000_000 });
@@ -157,7 +183,10 @@ describe("stuck recommendations and bands that cannot be met", () => {
       return section && { ids: section.tenders.map((t) => t.id), note: section.notes?.[f.tenderId] };
     };
     for (const who of ["buyer", "admin"]) {
-      expect(await stuckOn(who)).toEqual({ ids: [f.tenderId], note: expect.stringMatching(/^It still needs 2 approvals, and only 1 approver who has not yet approved can give one/) });
+      expect(await stuckOn(who)).toEqual({
+        ids: [f.tenderId],
+        note: expect.stringMatching(/^It still needs 2 approvals, and only 1 approver who has not yet approved can give one/),
+      });
     }
     expect(await stuckOn("approver")).toBeUndefined();
     const view = await signOff("buyer", f.tenderId);

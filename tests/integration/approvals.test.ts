@@ -41,7 +41,10 @@ async function declare(headers: Headers, tenderId: string, conflictedOrgIds: str
 /** Everything a refused decision must leave untouched. */
 async function snapshot(f: ApprovalFixture) {
   const [t] = await db.select({ state: tenders.state }).from(tenders).where(eq(tenders.id, f.tenderId));
-  const recs = await db.select({ id: recommendations.id, status: recommendations.status, needed: recommendations.approvalsNeeded }).from(recommendations).where(eq(recommendations.tenderId, f.tenderId));
+  const recs = await db
+    .select({ id: recommendations.id, status: recommendations.status, needed: recommendations.approvalsNeeded })
+    .from(recommendations)
+    .where(eq(recommendations.tenderId, f.tenderId));
   const [{ n: given }] = await db.select({ n: count() }).from(approvals).where(eq(approvals.tenderId, f.tenderId));
   const [{ n: ledger }] = await db.select({ n: count() }).from(ledgerEntries);
   return { state: t.state, recs, given, ledger };
@@ -65,7 +68,14 @@ describe("approval bands (admin)", () => {
 
   it("refuses an overlapping band with a clear message and writes nothing", async () => {
     const before = await db.select().from(approvalBands);
-    const response = await bandsPost(request("/api/v1/approval-bands", { method: "POST", headers: as.admin, body: { currency: "EUR", minValue: 200_000, maxValue: 300_000, approvalsNeeded: 1, minApproverLimit: 0 } }), undefined);
+    const response = await bandsPost(
+      request("/api/v1/approval-bands", {
+        method: "POST",
+        headers: as.admin,
+        body: { currency: "EUR", minValue: 200_000, maxValue: 300_000, approvalsNeeded: 1, minApproverLimit: 0 },
+      }),
+      undefined,
+    );
     expect(response.status).toBe(400);
     expect((await response.json()).error).toMatch(/overlap/);
     expect(await db.select().from(approvalBands)).toEqual(before);
@@ -77,7 +87,10 @@ describe("approval bands (admin)", () => {
     const created = await bandsPost(request("/api/v1/approval-bands", { method: "POST", headers: as.admin, body: usd }), undefined);
     expect(created.status).toBe(201);
     const { id } = await created.json();
-    const changed = await bandPut(request(`/api/v1/approval-bands/${id}`, { method: "PUT", headers: as.admin, body: { ...usd, approvalsNeeded: 2 } }), params({ id }));
+    const changed = await bandPut(
+      request(`/api/v1/approval-bands/${id}`, { method: "PUT", headers: as.admin, body: { ...usd, approvalsNeeded: 2 } }),
+      params({ id }),
+    );
     expect((await changed.json()).approvalsNeeded).toBe(2);
     expect((await bandDelete(request(`/api/v1/approval-bands/${id}`, { method: "DELETE", headers: as.admin }), params({ id }))).status).toBe(204);
     const actions = (await db.select().from(ledgerEntries).where(eq(ledgerEntries.subjectId, id))).map((e) => e.action);
@@ -101,7 +114,13 @@ describe("segregation of duties and limits", () => {
     const f = await createApprovalFixture(db, { value: 300_000 });
     await declare(as.approver, f.tenderId);
     const before = await snapshot(f);
-    await expectRefused(await decide(as.approver, f.tenderId, { decision: "approve" }), 403, "Your approval limit of €250,000.00 does not cover this award of €300,000.00.", f, before);
+    await expectRefused(
+      await decide(as.approver, f.tenderId, { decision: "approve" }),
+      403,
+      "Your approval limit of €250,000.00 does not cover this award of €300,000.00.",
+      f,
+      before,
+    );
   });
 
   it("refuses an approver who declared a conflict on the tender", async () => {
@@ -132,7 +151,10 @@ describe("segregation of duties and limits", () => {
     await expectRefused(await decide(as.approver, f.tenderId, { decision: "return" }), 400, /Say why you return it/, f, before);
     await expectRefused(await decide(as.approver, f.tenderId, { decision: "maybe" }), 400, /approve.*return/, f, before);
     await expectRefused(await decide(as.buyer, f.tenderId, { decision: "approve" }), 403, "Only approvers approve or return a recommendation.", f, before);
-    const out = await decidePost(request(`/api/v1/tenders/${f.tenderId}/approvals`, { method: "POST", body: { decision: "approve" } }), params({ id: f.tenderId }));
+    const out = await decidePost(
+      request(`/api/v1/tenders/${f.tenderId}/approvals`, { method: "POST", body: { decision: "approve" } }),
+      params({ id: f.tenderId }),
+    );
     expect(out.status).toBe(401);
     expect((await decide(as.approver, "no-such-tender", { decision: "approve" })).status).toBe(404);
   });
@@ -184,7 +206,14 @@ describe("from recommendation to award", () => {
     expect((await decide(as.approver, f.tenderId, { decision: "approve" })).status).toBe(409);
 
     await db.update(approvalBands).set({ approvalsNeeded: 2 }).where(eq(approvalBands.minValue, 250_000));
-    await insertRecommendation(db, { tenderId: f.tenderId, offerId: f.offerIds[0], value: 250_000, preparedBy: ids.buyer, offerIds: f.offerIds, justification: "Lead time confirmed at 8 weeks in writing." });
+    await insertRecommendation(db, {
+      tenderId: f.tenderId,
+      offerId: f.offerIds[0],
+      value: 250_000,
+      preparedBy: ids.buyer,
+      offerIds: f.offerIds,
+      justification: "Lead time confirmed at 8 weeks in writing.",
+    });
     expect(await (await decide(as.director, f.tenderId, { decision: "approve" })).json()).toMatchObject({ kind: "approved", given: 1 });
     const last = await decide(as.approver, f.tenderId, { decision: "approve", comment: "Second signature." });
     expect(last.status).toBe(200);
@@ -198,7 +227,15 @@ describe("from recommendation to award", () => {
     expect(memo.identifier).toBe(`${f.reference}-M1`);
     expect(memo.sha256).toMatch(/^[0-9a-f]{64}$/);
     const ledger = await db.select().from(ledgerEntries).where(eq(ledgerEntries.tenderId, f.tenderId));
-    expect(ledger.map((e) => e.action)).toEqual(["declaration.made", "declaration.made", "approval.given", "recommendation.returned", "approval.given", "approval.given", "tender.awarded"]);
+    expect(ledger.map((e) => e.action)).toEqual([
+      "declaration.made",
+      "declaration.made",
+      "approval.given",
+      "recommendation.returned",
+      "approval.given",
+      "approval.given",
+      "tender.awarded",
+    ]);
     expect(ledger.at(-1)!.data).toMatchObject({ sha256: memo.sha256, memo: memo.identifier, to: "awarded" });
 
     // Awarded is read-only: no more decisions.

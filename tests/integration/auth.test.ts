@@ -16,8 +16,7 @@ beforeAll(async () => {
 });
 afterAll(closeDb);
 
-const countLedger = async (action: string) =>
-  (await db.select().from(ledgerEntries).where(eq(ledgerEntries.action, action))).length;
+const countLedger = async (action: string) => (await db.select().from(ledgerEntries).where(eq(ledgerEntries.action, action))).length;
 
 describe("sign-in", () => {
   it("signs in a demo account and reports who it is", async () => {
@@ -40,9 +39,7 @@ describe("sign-in", () => {
 
   it("gives an unknown account the same message, and writes no user", async () => {
     const usersBefore = (await db.select().from(users)).length;
-    await expect(signIn({ email: "nobody@tarnwell.example", password: "whatever-1" }, new Headers())).rejects.toThrow(
-      "Wrong e-mail or password.",
-    );
+    await expect(signIn({ email: "nobody@tarnwell.example", password: "whatever-1" }, new Headers())).rejects.toThrow("Wrong e-mail or password.");
     expect((await db.select().from(users)).length).toBe(usersBefore);
   });
 
@@ -122,7 +119,10 @@ describe("people administration", () => {
   it("refuses a vendor role for a buying-company user, and changes nothing", async () => {
     const admin = await signInAs("admin@tarnwell.example");
     const [engineer] = await db.select().from(users).where(eq(users.email, "engineer@tarnwell.example"));
-    const response = await userPatch(request(`/api/v1/users/${engineer.id}`, { method: "PATCH", headers: admin, body: { roles: ["vendor"] } }), params({ id: engineer.id }));
+    const response = await userPatch(
+      request(`/api/v1/users/${engineer.id}`, { method: "PATCH", headers: admin, body: { roles: ["vendor"] } }),
+      params({ id: engineer.id }),
+    );
     expect(response.status).toBe(400);
     const roles = await db.select().from(userRoles).where(eq(userRoles.userId, engineer.id));
     expect(roles.map((r) => r.role)).toEqual(["engineer"]);
@@ -150,7 +150,10 @@ describe("people administration", () => {
     const admin = await signInAs("admin@tarnwell.example");
     const vendorHeaders = await signInAs("bids@oxbow.example");
     const [vendor] = await db.select().from(users).where(eq(users.email, "bids@oxbow.example"));
-    const response = await userPatch(request(`/api/v1/users/${vendor.id}`, { method: "PATCH", headers: admin, body: { active: false } }), params({ id: vendor.id }));
+    const response = await userPatch(
+      request(`/api/v1/users/${vendor.id}`, { method: "PATCH", headers: admin, body: { active: false } }),
+      params({ id: vendor.id }),
+    );
     expect(response.status).toBe(200);
     expect((await meGet(request("/api/v1/me", { headers: vendorHeaders }), undefined)).status).toBe(401);
     await expect(signIn({ email: "bids@oxbow.example", password: "ratecourt-demo" }, new Headers())).rejects.toThrow(/deactivated/);
@@ -185,7 +188,10 @@ describe("people administration", () => {
   it("an admin cannot deactivate their own account (another admin must)", async () => {
     const admin = await signInAs("admin@tarnwell.example");
     const [self] = await db.select().from(users).where(eq(users.email, "admin@tarnwell.example"));
-    const response = await userPatch(request(`/api/v1/users/${self.id}`, { method: "PATCH", headers: admin, body: { active: false } }), params({ id: self.id }));
+    const response = await userPatch(
+      request(`/api/v1/users/${self.id}`, { method: "PATCH", headers: admin, body: { active: false } }),
+      params({ id: self.id }),
+    );
     expect(response.status).toBe(403);
     expect((await response.json()).error).toMatch(/Another admin/);
     expect((await db.select().from(users).where(eq(users.id, self.id)))[0].active).toBe(true);

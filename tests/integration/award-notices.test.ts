@@ -24,16 +24,24 @@ async function award(disclosure?: "rank-and-scores", safetyRelevant = false): Pr
   if (disclosure) await db.update(tenders).set({ noticeDisclosure: disclosure, standstillDays: 14 }).where(eq(tenders.id, f.tenderId));
   const approver = await signInAs("approver@tarnwell.example");
   const body = { conflict: "none", conflictedOrgIds: [], statement: "No ties to any vendor of this tender." };
-  expect((await declarePost(request(`/api/v1/tenders/${f.tenderId}/declaration`, { method: "POST", headers: approver, body }), params({ id: f.tenderId }))).status).toBe(201);
+  expect(
+    (await declarePost(request(`/api/v1/tenders/${f.tenderId}/declaration`, { method: "POST", headers: approver, body }), params({ id: f.tenderId }))).status,
+  ).toBe(201);
   clearCapturedMail();
-  const decided = await decidePost(request(`/api/v1/tenders/${f.tenderId}/approvals`, { method: "POST", headers: approver, body: { decision: "approve", comment: "Within budget." } }), params({ id: f.tenderId }));
+  const decided = await decidePost(
+    request(`/api/v1/tenders/${f.tenderId}/approvals`, { method: "POST", headers: approver, body: { decision: "approve", comment: "Within budget." } }),
+    params({ id: f.tenderId }),
+  );
   expect((await decided.json()).kind).toBe("awarded");
   return { f, mail: await mailAbout(f.reference, 5) };
 }
 const regretTo = (mail: { to: string[]; text: string }[], address: string) => mail.find((m) => m.to.includes(address))!.text;
 
 const objectTo = async (email: string, tenderId: string, text: string) =>
-  objectionsPost(request(`/api/v1/tenders/${tenderId}/objections`, { method: "POST", headers: await signInAs(email), body: { body: text } }), params({ id: tenderId }));
+  objectionsPost(
+    request(`/api/v1/tenders/${tenderId}/objections`, { method: "POST", headers: await signInAs(email), body: { body: text } }),
+    params({ id: tenderId }),
+  );
 const objectionsOf = async (email: string, tenderId: string) =>
   (await objectionsGet(request(`/api/v1/tenders/${tenderId}/objections`, { headers: await signInAs(email) }), params({ id: tenderId }))).json();
 
@@ -63,7 +71,9 @@ describe("award notices", () => {
   it("of a safety-relevant tender carry the stronger caution, and so does its Sign-off tab", async () => {
     const { f, mail } = await award(undefined, true);
     for (const m of mail) expect(m.text, m.subject).toContain(SAFETY_CAUTION);
-    const view = await (await signOffGet(request(`/api/v1/tenders/${f.tenderId}/approvals`, { headers: await signInAs("buyer@tarnwell.example") }), params({ id: f.tenderId }))).json();
+    const view = await (
+      await signOffGet(request(`/api/v1/tenders/${f.tenderId}/approvals`, { headers: await signInAs("buyer@tarnwell.example") }), params({ id: f.tenderId }))
+    ).json();
     expect(view.tender.safetyRelevant).toBe(true);
     const plain = await award();
     for (const m of plain.mail) expect(m.text).not.toContain(SAFETY_CAUTION);
@@ -82,7 +92,10 @@ describe("objections during the standstill period", () => {
     clearCapturedMail();
     const lodged = await objectTo("bids@oxbow.example", f.tenderId, TEXT);
     expect(lodged.status).toBe(201);
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, f.tenderId), eq(ledgerEntries.action, "objection.lodged")));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, f.tenderId), eq(ledgerEntries.action, "objection.lodged")));
     expect(entry.data).toMatchObject({ vendor: "Oxbow Wireless", length: TEXT.length });
     const toBuyer = (await mailAbout("objection to the award", 1)).find((m) => m.to.includes("buyer@tarnwell.example"));
     expect(toBuyer?.subject).toBe(`${f.reference}: objection to the award from Oxbow Wireless`);
@@ -104,7 +117,10 @@ describe("objections during the standstill period", () => {
     expect(engineer.status).toBe(403);
     const short = await objectTo("offers@marram.example", f.tenderId, "No.");
     expect(short.status).toBe(400);
-    await db.update(tenders).set({ awardedAt: new Date(Date.now() - 11 * 86_400_000) }).where(eq(tenders.id, f.tenderId));
+    await db
+      .update(tenders)
+      .set({ awardedAt: new Date(Date.now() - 11 * 86_400_000) })
+      .where(eq(tenders.id, f.tenderId));
     const late = await objectTo("offers@marram.example", f.tenderId, TEXT);
     expect(late.status).toBe(409);
     expect((await late.json()).error).toMatch(/standstill period of 10 days has ended and the award is final/);

@@ -18,7 +18,10 @@ describe("bound arguments of server actions", () => {
     let ran = false;
     const outcome = await attemptForm(z.object({}), {}, async () => ((ran = true), 1), { tenderId: id });
     expect(ran).toBe(false);
-    expect(outcome).toEqual({ ok: false, result: { message: expect.stringMatching(/^The tenderId of this request contains a NUL character or a broken Unicode character/) } });
+    expect(outcome).toEqual({
+      ok: false,
+      result: { message: expect.stringMatching(/^The tenderId of this request contains a NUL character or a broken Unicode character/) },
+    });
   });
 
   it("are refused when they are not text", async () => {
@@ -50,7 +53,10 @@ describe("bound arguments of server actions", () => {
       const source = readFileSync(file, "utf8");
       const actions = [...source.matchAll(/export async function (\w+)\(([^)]*)\)[^{]*\{([\s\S]*?)\n\}/g)];
       for (const [, name, params, body] of actions) {
-        const bound = params.split(",").map((p) => p.split(":")[0].trim()).filter((p) => p && !["values", "_prev", "formData"].includes(p));
+        const bound = params
+          .split(",")
+          .map((p) => p.split(":")[0].trim())
+          .filter((p) => p && !["values", "_prev", "formData"].includes(p));
         if (bound.length === 0) continue;
         const handed = new RegExp(`\\{ ${bound.join(", ")} \\},?\\s*\\)`);
         if (!/(?:runForm|attemptForm)\(/.test(body) || !handed.test(body)) unchecked.push(`${path.relative(".", file)} ${name}(${bound.join(", ")})`);

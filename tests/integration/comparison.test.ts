@@ -25,9 +25,13 @@ beforeAll(async () => {
   services = await startLocalServices({ dataDir: mkdtempSync(path.join(tmpdir(), "rc-comparison-")), smtpPort: 0, s3Port: 0 });
   db = await freshDatabase();
   for (const [key, email] of Object.entries({
-    buyer: "buyer@tarnwell.example", engineer: "engineer@tarnwell.example", approver: "approver@tarnwell.example",
-    director: "director@tarnwell.example", vendor: "sales@kestrelink.example",
-  })) as[key] = await signInAs(email);
+    buyer: "buyer@tarnwell.example",
+    engineer: "engineer@tarnwell.example",
+    approver: "approver@tarnwell.example",
+    director: "director@tarnwell.example",
+    vendor: "sales@kestrelink.example",
+  }))
+    as[key] = await signInAs(email);
 });
 afterAll(async () => {
   await flushMail();
@@ -45,7 +49,10 @@ const readGrid = async (who: string, id: string): Promise<Comparison> => {
   return response.json();
 };
 const ledgerFor = async (tenderId: string, action: string) =>
-  db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, tenderId), eq(ledgerEntries.action, action)));
+  db
+    .select()
+    .from(ledgerEntries)
+    .where(and(eq(ledgerEntries.tenderId, tenderId), eq(ledgerEntries.action, action)));
 const tenderRow = async (id: string) => (await db.select().from(tenders).where(eq(tenders.id, id)))[0];
 const hasKeyDeep = (value: unknown, keys: string[]): boolean =>
   Array.isArray(value)
@@ -132,7 +139,11 @@ describe("the tender's rule for confirmed impossible claims", () => {
   it("disqualify: the cheapest offer leaves the ranking as soon as an engineer rejects its impossible claim", async () => {
     const cheap = impossible("Dunlin", 29, 8, 24);
     cheap.claims = [{ value: 1e-6 }, { value: 1e-6, mark: "accepted" }];
-    const fx = await createCommercialTender(db, { opened: true, rule: "disqualify", offers: [honest("Alder", 41, 10, 24), honest("Birch", 38.5, 14, 36), cheap] });
+    const fx = await createCommercialTender(db, {
+      opened: true,
+      rule: "disqualify",
+      offers: [honest("Alder", 41, 10, 24), honest("Birch", 38.5, 14, 36), cheap],
+    });
     const before = await readGrid("buyer", fx.tenderId);
     const dunlin = () => before.sheet.offers.find((o) => o.offerId === fx.offerIds[2])!;
     expect(dunlin()).toMatchObject({ disqualified: false });
@@ -142,14 +153,34 @@ describe("the tender's rule for confirmed impossible claims", () => {
     const [engineer] = await db.select().from(users).where(eq(users.email, "engineer@tarnwell.example"));
     // Written as the app writes a mark: with its ledger entry in the same transaction (the comparison is keyed to the tender's ledger).
     await db.transaction(async (tx) => {
-      await tx.insert(marks).values({ claimId: fx.claimIds[2][1], tenderId: fx.tenderId, vendorOrgId: fx.vendorOrgIds[2], mark: "rejected-impossible", comment: "Beyond the converse.", markedBy: engineer.id, markedAt: new Date(Date.now() + 1000) });
-      await appendLedger(tx, { tenderId: fx.tenderId, actor: { id: engineer.id, label: engineer.name }, action: "claim.marked", subjectType: "Claim", subjectId: fx.claimIds[2][1], data: { mark: "rejected-impossible" } });
+      await tx.insert(marks).values({
+        claimId: fx.claimIds[2][1],
+        tenderId: fx.tenderId,
+        vendorOrgId: fx.vendorOrgIds[2],
+        mark: "rejected-impossible",
+        comment: "Beyond the converse.",
+        markedBy: engineer.id,
+        markedAt: new Date(Date.now() + 1000),
+      });
+      await appendLedger(tx, {
+        tenderId: fx.tenderId,
+        actor: { id: engineer.id, label: engineer.name },
+        action: "claim.marked",
+        subjectType: "Claim",
+        subjectId: fx.claimIds[2][1],
+        data: { mark: "rejected-impossible" },
+      });
     });
     const after = await readGrid("buyer", fx.tenderId);
     const out = after.sheet.offers.find((o) => o.offerId === fx.offerIds[2])!;
     expect(out).toMatchObject({ disqualified: true, rank: null });
     expect(out.confirmedImpossible[0]).toMatch(/Storm fade/);
-    expect(after.sheet.offers.filter((o) => o.rank !== null).map((o) => o.rank).sort()).toEqual([1, 2]);
+    expect(
+      after.sheet.offers
+        .filter((o) => o.rank !== null)
+        .map((o) => o.rank)
+        .sort(),
+    ).toEqual([1, 2]);
     // The price reference moves to the cheapest offer still standing.
     const birch = after.sheet.offers.find((o) => o.offerId === fx.offerIds[1])!;
     expect(birch.lines.find((l) => l.criterion === "price")!.normalised).toBe(100);
@@ -220,7 +251,9 @@ describe("the recommendation", () => {
     await db.update(tenders).set({ state: "commercial" }).where(eq(tenders.id, fx.tenderId));
     const again = await recommend("buyer", fx.tenderId, { offerId: fx.offerIds[1], quantity: 4000, value: 154_000, justification });
     expect(again.status).toBe(201);
-    const listed = await (await recommendationGet(request(`/api/v1/tenders/${fx.tenderId}/recommendation`, { headers: as.buyer }), params({ id: fx.tenderId }))).json();
+    const listed = await (
+      await recommendationGet(request(`/api/v1/tenders/${fx.tenderId}/recommendation`, { headers: as.buyer }), params({ id: fx.tenderId }))
+    ).json();
     expect(listed.history.map((r: { status: string }) => r.status)).toEqual(["pending", "returned"]);
     expect(listed.current.offerId).toBe(fx.offerIds[1]);
     expect(listed.current).not.toHaveProperty("scoreSheet");

@@ -37,7 +37,10 @@ describe("decimal commas at the server", () => {
   });
 
   it("read a person's approval limit", async () => {
-    const response = await userPatch(request(`/api/v1/users/${directorId}`, { method: "PATCH", headers: as.admin, body: { approvalLimit: "2 500 000,5" } }), params({ id: directorId }));
+    const response = await userPatch(
+      request(`/api/v1/users/${directorId}`, { method: "PATCH", headers: as.admin, body: { approvalLimit: "2 500 000,5" } }),
+      params({ id: directorId }),
+    );
     expect(response.status).toBe(200);
     const [row] = await db.select({ limit: users.approvalLimit }).from(users).where(eq(users.id, directorId));
     expect(row.limit).toBe(2_500_000.5);
@@ -46,8 +49,16 @@ describe("decimal commas at the server", () => {
   it("read the recommendation's quantity and value", async () => {
     // Alder's 35.90 EUR a unit gives 143,600.00 EUR for the tender's 4,000 units.
     const fx = await createCommercialTender(db, { opened: true, offers: [honest("Alder", 35.9, 10, 24), honest("Birch", 41, 12, 24)] });
-    const body = { offerId: fx.offerIds[0], quantity: "4 000", value: "143 600,00", justification: "Best total score with plausible claims at both operating points." };
-    const response = await recommendationPost(request(`/api/v1/tenders/${fx.tenderId}/recommendation`, { method: "POST", headers: as.buyer, body }), params({ id: fx.tenderId }));
+    const body = {
+      offerId: fx.offerIds[0],
+      quantity: "4 000",
+      value: "143 600,00",
+      justification: "Best total score with plausible claims at both operating points.",
+    };
+    const response = await recommendationPost(
+      request(`/api/v1/tenders/${fx.tenderId}/recommendation`, { method: "POST", headers: as.buyer, body }),
+      params({ id: fx.tenderId }),
+    );
     expect(response.status).toBe(201);
     const [row] = await db.select().from(recommendations).where(eq(recommendations.tenderId, fx.tenderId));
     expect([row.quantity, row.value]).toEqual([4000, 143_600]);

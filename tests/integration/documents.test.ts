@@ -64,7 +64,10 @@ const download = (headers: Headers, id: string) => downloadGet(request(`/api/v1/
 
 async function counts() {
   const [d] = await db.select({ n: count() }).from(documents);
-  const [l] = await db.select({ n: count() }).from(ledgerEntries).where(notInArray(ledgerEntries.action, ["tender.closed", "offers.unsealed"]));
+  const [l] = await db
+    .select({ n: count() })
+    .from(ledgerEntries)
+    .where(notInArray(ledgerEntries.action, ["tender.closed", "offers.unsealed"]));
   const objects = path.join(folder, "objects");
   const stored = existsSync(objects) ? readdirSync(objects, { recursive: true, withFileTypes: true }).filter((e) => e.isFile()).length : 0;
   return { documents: d.n, ledger: l.n, stored };
@@ -88,7 +91,10 @@ describe("uploading a PDF", () => {
     expect(doc).toMatchObject({ kind: "datasheet", size: PDF.length, sha256: sha256Hex(PDF), offerId: oxbowOfferId });
     expect(doc.fileName).not.toMatch(/[/<>]/);
     expect(doc).not.toHaveProperty("storageKey");
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.action, "document.uploaded"), eq(ledgerEntries.subjectId, doc.id)));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.action, "document.uploaded"), eq(ledgerEntries.subjectId, doc.id)));
     expect(entry.data).toMatchObject({ sha256: sha256Hex(PDF), kind: "datasheet", version: 1 });
   });
 
@@ -180,7 +186,12 @@ describe("upload names and shapes", () => {
   });
 
   it("always keeps a .pdf download name, whatever the file was called", async () => {
-    for (const [given, kept] of [["setup.exe", "setup.pdf"], ["x.pdf.exe", "x.pdf"], ["Report.PDF", "Report.pdf"], ["noextension", "noextension.pdf"]]) {
+    for (const [given, kept] of [
+      ["setup.exe", "setup.pdf"],
+      ["x.pdf.exe", "x.pdf"],
+      ["Report.PDF", "Report.pdf"],
+      ["noextension", "noextension.pdf"],
+    ]) {
       const response = await upload(oxbow, oxbowOfferId, new File([PDF], given));
       expect(response.status).toBe(201);
       const doc = await response.json();

@@ -25,7 +25,11 @@ beforeAll(async () => {
   as.engineer = await signInAs("engineer@tarnwell.example");
   as.vendor = await signInAs("bids@oxbow.example");
   const declared = await declarePost(
-    request(`/api/v1/tenders/${fx.tenderId}/declaration`, { method: "POST", headers: as.engineer, body: { conflict: "none", statement: "No ties to any invited vendor." } }),
+    request(`/api/v1/tenders/${fx.tenderId}/declaration`, {
+      method: "POST",
+      headers: as.engineer,
+      body: { conflict: "none", statement: "No ties to any invited vendor." },
+    }),
     params({ id: fx.tenderId }),
   );
   expect(declared.status).toBe(201);
@@ -108,7 +112,10 @@ describe("an offer whose claim the engine does not finish", () => {
     expect(stored.result).toMatchObject({ engineError: expect.stringMatching(/did not finish/) });
     const [row] = await db.select().from(offers).where(eq(offers.id, offer.id));
     expect(row.status).toBe("submitted");
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.action, "offer.submitted"), eq(ledgerEntries.subjectId, offer.id)));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.action, "offer.submitted"), eq(ledgerEntries.subjectId, offer.id)));
     expect(entry.data).toMatchObject({ summary: { "needs-evidence": 1 } });
   });
 });
@@ -121,16 +128,35 @@ describe("a sensitivity claim with a curve that the engine does not finish", () 
       moduleName: "Slow gateway",
       partNumber: "SG-1",
       code: { family: "LDPC", decision: "soft", rate: 0.5 },
-      claims: [{ pointIndex: 0, metric: "bler", value: 1e-2, sensitivity: { dbm: -133, curve: [{ x: -135, unit: "dBm", metric: "per", value: 1e-1 }, { x: 2, unit: "ebn0Db", metric: "bler", value: 1e-3 }] } }],
+      claims: [
+        {
+          pointIndex: 0,
+          metric: "bler",
+          value: 1e-2,
+          sensitivity: {
+            dbm: -133,
+            curve: [
+              { x: -135, unit: "dBm", metric: "per", value: 1e-1 },
+              { x: 2, unit: "ebn0Db", metric: "bler", value: 1e-3 },
+            ],
+          },
+        },
+      ],
       envelope: { unitPrice: 150, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24, priceBreaks: [] },
     };
-    const response = await submitPost(request(`/api/v1/tenders/${gateways.id}/offers`, { method: "POST", headers: as.vendor, body }), params({ id: gateways.id }));
+    const response = await submitPost(
+      request(`/api/v1/tenders/${gateways.id}/offers`, { method: "POST", headers: as.vendor, body }),
+      params({ id: gateways.id }),
+    );
     expect(response.status).toBe(201);
     const offer = await response.json();
     const [stored] = await db.select().from(claims).where(eq(claims.offerId, offer.id));
     expect(stored.verdict).toBe("needs-evidence");
     expect(stored.result).toMatchObject({ engineError: expect.stringMatching(/did not finish the claim at Valley gateway and its 2 curve points/) });
-    expect(stored.radio!.curve.map((p) => [p.verdict, p.marginDb])).toEqual([["needs-evidence", null], ["needs-evidence", null]]);
+    expect(stored.radio!.curve.map((p) => [p.verdict, p.marginDb])).toEqual([
+      ["needs-evidence", null],
+      ["needs-evidence", null],
+    ]);
     expect(stored.radio!.worst).toMatchObject({ verdict: "needs-evidence", marginDb: null });
   });
 });
@@ -142,7 +168,11 @@ describe("a lab file the engine does not finish checking", () => {
     const before = await db.select().from(evidenceRuns);
     await slowEngine();
     const response = await importPost(
-      request(`/api/v1/claims/${fx.evidenceClaimId}/evidence/import`, { method: "POST", headers: as.engineer, body: { csv: `unit,trials,errors,confidence\n${unit},400000,0,0.95\n` } }),
+      request(`/api/v1/claims/${fx.evidenceClaimId}/evidence/import`, {
+        method: "POST",
+        headers: as.engineer,
+        body: { csv: `unit,trials,errors,confidence\n${unit},400000,0,0.95\n` },
+      }),
       params({ id: fx.evidenceClaimId }),
     );
     expect(response.status).toBe(422);

@@ -6,7 +6,11 @@ import { closeEnginePool, isEngineDeadline, runEngine, warmEnginePool, type Engi
 import { setEnv } from "../support/env";
 
 const claim: ClaimInput = { channel: { model: "bsc", p: 1e-3 }, code: { n: 2048, k: 1640 }, target: { metric: "bler", value: 1e-4 } };
-const settle = <T>(promise: Promise<T>) => promise.then((value) => ({ value, error: undefined }), (error: unknown) => ({ value: undefined, error }));
+const settle = <T>(promise: Promise<T>) =>
+  promise.then(
+    (value) => ({ value, error: undefined }),
+    (error: unknown) => ({ value: undefined, error }),
+  );
 
 /** The longest the request thread's event loop went without a turn while `work` ran. */
 async function longestStall(work: Promise<unknown>): Promise<number> {

@@ -66,7 +66,11 @@ describe("POST /api/v1/evaluate", () => {
     expect(signedOut.status).toBe(401);
   });
   it("judges a sensitivity claim with the radio fields, the same as the engine, and refuses bad radio input in its place", async () => {
-    const radio = { channel: { model: "biawgn", sensitivityDbm: -121.5, bitRate: 1200, noiseFigureDb: 2, assumedNoiseFigureDb: 4 }, code: { n: 1024, k: 512, modulation: "qpsk" }, target: { metric: "bler", value: 1e-4 } };
+    const radio = {
+      channel: { model: "biawgn", sensitivityDbm: -121.5, bitRate: 1200, noiseFigureDb: 2, assumedNoiseFigureDb: 4 },
+      code: { n: 1024, k: 512, modulation: "qpsk" },
+      target: { metric: "bler", value: 1e-4 },
+    };
     const response = await call(radio);
     expect(response.status).toBe(200);
     const result = await response.json();

@@ -25,7 +25,10 @@ describe("evaluate CLI", () => {
     ];
     const r = run(lines.join("\n") + "\n");
     expect(r.status).toBe(0);
-    const out = r.stdout.trim().split("\n").map((l) => JSON.parse(l));
+    const out = r.stdout
+      .trim()
+      .split("\n")
+      .map((l) => JSON.parse(l));
     expect(out).toHaveLength(6); // two blank lines produce nothing
     expect(out[0].verdict).toBe("plausible");
     expect(out[0].engineVersion).toMatch(/^\d+\.\d+\.\d+$/);

@@ -23,15 +23,20 @@ beforeAll(async () => {
   const [engineer] = await db.select().from(users).where(eq(users.email, "engineer@tarnwell.example"));
   if ((await db.select().from(declarations).where(eq(declarations.userId, engineer.id))).length === 0) {
     const body = { conflict: "none", statement: "No ties to any invited vendor." };
-    expect((await declarePost(request(`/api/v1/tenders/${fx.tenderId}/declaration`, { method: "POST", headers: as.engineer, body }), params({ id: fx.tenderId }))).status).toBe(201);
+    expect(
+      (await declarePost(request(`/api/v1/tenders/${fx.tenderId}/declaration`, { method: "POST", headers: as.engineer, body }), params({ id: fx.tenderId })))
+        .status,
+    ).toBe(201);
   }
 });
 afterAll(closeDb);
 
 const claimRow = async (id: string) => (await db.select().from(claims).where(eq(claims.id, id)))[0];
 const runsOf = async (id: string) => db.select().from(evidenceRuns).where(eq(evidenceRuns.claimId, id));
-const record = (id: string, body: unknown) => evidencePost(request(`/api/v1/claims/${id}/evidence`, { method: "POST", headers: as.engineer, body }), params({ id }));
-const importCsv = (id: string, body: unknown) => importPost(request(`/api/v1/claims/${id}/evidence/import`, { method: "POST", headers: as.engineer, body }), params({ id }));
+const record = (id: string, body: unknown) =>
+  evidencePost(request(`/api/v1/claims/${id}/evidence`, { method: "POST", headers: as.engineer, body }), params({ id }));
+const importCsv = (id: string, body: unknown) =>
+  importPost(request(`/api/v1/claims/${id}/evidence/import`, { method: "POST", headers: as.engineer, body }), params({ id }));
 const unitOf = (metric: string) => (metric === "bler" ? "frames" : "bits");
 
 describe("a lab run counts only at the claim's channel or the right side of it", () => {
@@ -43,7 +48,9 @@ describe("a lab run counts only at the claim's channel or the right side of it",
     const run = await response.json();
     expect(run.status).toBe("inconclusive");
     expect(run.finding).toMatch(/milder than the claim's/);
-    const atClaim = await (await record(claim.id, { channelValue: claim.channelValue, unit: unitOf(claim.metric), trials, errors: 0, confidence: 0.95 })).json();
+    const atClaim = await (
+      await record(claim.id, { channelValue: claim.channelValue, unit: unitOf(claim.metric), trials, errors: 0, confidence: 0.95 })
+    ).json();
     expect(atClaim.status).toBe("verified");
   });
 
@@ -78,7 +85,10 @@ describe("a lab run counts only at the claim's channel or the right side of it",
 
 describe("the comparison's evidence score", () => {
   it("counts only runs that count: a verified run stored at a milder channel does not verify", async () => {
-    const fixture = await createCommercialTender(db, { offers: [honest("Alder", 41, 10, 24, { claims: [{ value: 1e-5, evidence: "verified" }, { value: 1e-5 }] })], opened: true });
+    const fixture = await createCommercialTender(db, {
+      offers: [honest("Alder", 41, 10, 24, { claims: [{ value: 1e-5, evidence: "verified" }, { value: 1e-5 }] })],
+      opened: true,
+    });
     const read = async () => {
       const response = await comparisonGet(request(`/api/v1/tenders/${fixture.tenderId}/comparison`, { headers: as.buyer }), params({ id: fixture.tenderId }));
       expect(response.status).toBe(200);
@@ -89,7 +99,16 @@ describe("the comparison's evidence score", () => {
     // A run stored before the channel rule, at p = 1e-5 against the claim's 1e-3.
     await db.update(evidenceRuns).set({ channelValue: 1e-5 }).where(eq(evidenceRuns.claimId, fixture.claimIds[0][0]));
     const { appendLedger } = await import("@/lib/server/ledger");
-    await db.transaction((tx) => appendLedger(tx, { tenderId: fixture.tenderId, actor: { id: "test", label: "test" }, action: "test.touched", subjectType: "Tender", subjectId: fixture.tenderId, data: {} }));
+    await db.transaction((tx) =>
+      appendLedger(tx, {
+        tenderId: fixture.tenderId,
+        actor: { id: "test", label: "test" },
+        action: "test.touched",
+        subjectType: "Tender",
+        subjectId: fixture.tenderId,
+        data: {},
+      }),
+    );
     const line = await read();
     expect(line.rawText).toMatch(/^0 verified/);
     expect(line.normalised).toBe(50);

@@ -45,7 +45,11 @@ describe("lab evidence", () => {
     const [engineer] = await db.select().from(users).where(eq(users.email, "engineer@tarnwell.example"));
     if ((await db.select().from(declarations).where(eq(declarations.userId, engineer.id))).length === 0) {
       const declared = await declarePost(
-        request(`/api/v1/tenders/${fx.tenderId}/declaration`, { method: "POST", headers: as.engineer, body: { conflict: "none", statement: "No ties to any invited vendor." } }),
+        request(`/api/v1/tenders/${fx.tenderId}/declaration`, {
+          method: "POST",
+          headers: as.engineer,
+          body: { conflict: "none", statement: "No ties to any invited vendor." },
+        }),
         params({ id: fx.tenderId }),
       );
       expect(declared.status).toBe(201);
@@ -61,7 +65,9 @@ describe("lab evidence", () => {
     expect(run.status).toBe("verified");
     expect(run.lower).toBe(0);
     expect(await ledger("evidence.recorded")).toBe(before + 1);
-    const rows: { id: string; evidence: string }[] = (await (await queueGet(request(`/api/v1/claims?tenderId=${fx.tenderId}`, { headers: as.engineer }), undefined)).json()).claims;
+    const rows: { id: string; evidence: string }[] = (
+      await (await queueGet(request(`/api/v1/claims?tenderId=${fx.tenderId}`, { headers: as.engineer }), undefined)).json()
+    ).claims;
     expect(rows.find((r) => r.id === fx.evidenceClaimId)?.evidence).toBe("verified");
   });
 
@@ -86,7 +92,9 @@ describe("lab evidence", () => {
   });
 
   it("keeps lab runs from the vendor", async () => {
-    expect((await evidenceGet(request(`/api/v1/claims/${fx.evidenceClaimId}/evidence`, { headers: as.marram }), params({ id: fx.evidenceClaimId }))).status).toBe(403);
+    expect(
+      (await evidenceGet(request(`/api/v1/claims/${fx.evidenceClaimId}/evidence`, { headers: as.marram }), params({ id: fx.evidenceClaimId }))).status,
+    ).toBe(403);
     const mine = await evidenceGet(request(`/api/v1/claims/${fx.evidenceClaimId}/evidence`, { headers: as.engineer }), params({ id: fx.evidenceClaimId }));
     expect((await mine.json()).runs.length).toBeGreaterThanOrEqual(3);
   });
@@ -145,7 +153,10 @@ describe("CSV import", () => {
     const form = new FormData();
     form.set("file", new Blob([`unit,trials,errors,confidence\n${unit},400000,0,0.95\n`], { type: "text/csv" }), "lab.csv");
     const headers = new Headers(as.engineer);
-    const response = await importPost(new Request(`${BASE}/api/v1/claims/${fx.evidenceClaimId}/evidence/import`, { method: "POST", headers, body: form }), params({ id: fx.evidenceClaimId }));
+    const response = await importPost(
+      new Request(`${BASE}/api/v1/claims/${fx.evidenceClaimId}/evidence/import`, { method: "POST", headers, body: form }),
+      params({ id: fx.evidenceClaimId }),
+    );
     expect(response.status).toBe(201);
     expect((await response.json()).stored).toHaveLength(1);
   });

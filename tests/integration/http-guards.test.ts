@@ -43,7 +43,14 @@ async function routeHandlers(): Promise<Route[]> {
     const paramNames = [...rel.matchAll(/\[(\w+)\]/g)].map((m) => m[1]);
     for (const method of ["GET", "POST", "PUT", "PATCH", "DELETE"]) {
       if (!mod[method]) continue;
-      routes.push({ file: rel, url: `${BASE}/api/v1/${rel.replace(/\[(\w+)\]/g, "x")}`, paramNames, method, handler: mod[method], readsJson: method !== "DELETE" && source.includes("readJson") });
+      routes.push({
+        file: rel,
+        url: `${BASE}/api/v1/${rel.replace(/\[(\w+)\]/g, "x")}`,
+        paramNames,
+        method,
+        handler: mod[method],
+        readsJson: method !== "DELETE" && source.includes("readJson"),
+      });
     }
   }
   return routes;
@@ -109,12 +116,22 @@ describe("bad bytes, on every route", () => {
     ["an undecodable %ud800", "%ud800"],
   ]) {
     it(`answer 400 for ${name} in a URL id`, async () => {
-      await expectEvery(name, (r) => r.paramNames.length > 0, (r) => call(r, { params: paramsOf(r, value), body: "{}", headers: withHeaders({ "content-type": "application/json" }) }), 400);
+      await expectEvery(
+        name,
+        (r) => r.paramNames.length > 0,
+        (r) => call(r, { params: paramsOf(r, value), body: "{}", headers: withHeaders({ "content-type": "application/json" }) }),
+        400,
+      );
     });
   }
 
   it("answer 400 for a NUL character in a query parameter", async () => {
-    await expectEvery("query", (r) => r.method === "GET" && r.paramNames.length === 0, (r) => call(r, { search: "?tenderId=%00" }), 400);
+    await expectEvery(
+      "query",
+      (r) => r.method === "GET" && r.paramNames.length === 0,
+      (r) => call(r, { search: "?tenderId=%00" }),
+      400,
+    );
   });
 
   for (const [name, text] of [
@@ -123,7 +140,12 @@ describe("bad bytes, on every route", () => {
   ]) {
     it(`answer 400 for ${name} in any text field of a JSON body`, async () => {
       const body = `{"title":${text},"name":"x","nested":{"deep":[${text}]},"sha256":${text},"csv":${text}}`;
-      await expectEvery(name, (r) => r.readsJson && WRITES.has(r.method), (r) => call(r, { body, headers: withHeaders({ "content-type": "application/json" }) }), 400);
+      await expectEvery(
+        name,
+        (r) => r.readsJson && WRITES.has(r.method),
+        (r) => call(r, { body, headers: withHeaders({ "content-type": "application/json" }) }),
+        400,
+      );
     });
   }
 
@@ -134,30 +156,55 @@ describe("bad bytes, on every route", () => {
           controller.enqueue(new TextEncoder().encode(`"${"x".repeat(256 * 1024)}",`));
         },
       });
-    await expectEvery("chunked", (r) => r.readsJson && WRITES.has(r.method), (r) => call(r, { body: endless(), headers: withHeaders({ "content-type": "application/json" }) }), 413);
+    await expectEvery(
+      "chunked",
+      (r) => r.readsJson && WRITES.has(r.method),
+      (r) => call(r, { body: endless(), headers: withHeaders({ "content-type": "application/json" }) }),
+      413,
+    );
   });
 });
 
 describe("cross-site writes, on every route", () => {
   const json = { "content-type": "application/json" };
   it("refuse a foreign Origin with 403", async () => {
-    await expectEvery("foreign", (r) => WRITES.has(r.method), (r) => call(r, { body: "{}", headers: withHeaders({ ...json, origin: "https://evil.example" }) }), 403);
+    await expectEvery(
+      "foreign",
+      (r) => WRITES.has(r.method),
+      (r) => call(r, { body: "{}", headers: withHeaders({ ...json, origin: "https://evil.example" }) }),
+      403,
+    );
   });
 
   it('refuse "Origin: null" with 403', async () => {
-    await expectEvery("null", (r) => WRITES.has(r.method), (r) => call(r, { body: "{}", headers: withHeaders({ ...json, origin: "null" }) }), 403);
+    await expectEvery(
+      "null",
+      (r) => WRITES.has(r.method),
+      (r) => call(r, { body: "{}", headers: withHeaders({ ...json, origin: "null" }) }),
+      403,
+    );
   });
 
   it("refuse a signed-in write without an Origin with 403", async () => {
     const headers = withHeaders(json);
     headers.delete("origin");
-    await expectEvery("none", (r) => WRITES.has(r.method), (r) => call(r, { body: "{}", headers }), 403);
+    await expectEvery(
+      "none",
+      (r) => WRITES.has(r.method),
+      (r) => call(r, { body: "{}", headers }),
+      403,
+    );
   });
 
   it("refuse text/plain and form-encoded bodies with 415", async () => {
     const tender = JSON.stringify({ title: "Sneaked in" });
     for (const type of ["text/plain", "application/x-www-form-urlencoded"]) {
-      await expectEvery(type, (r) => WRITES.has(r.method), (r) => call(r, { body: tender, headers: withHeaders({ "content-type": type }) }), 415);
+      await expectEvery(
+        type,
+        (r) => WRITES.has(r.method),
+        (r) => call(r, { body: tender, headers: withHeaders({ "content-type": type }) }),
+        415,
+      );
     }
   });
 
@@ -168,7 +215,12 @@ describe("cross-site writes, on every route", () => {
       return f;
     };
     const uploads = /documents$|evidence\/import$|memo-check$/;
-    await expectEvery("multipart", (r) => r.readsJson && WRITES.has(r.method) && !uploads.test(r.file), (r) => call(r, { body: form() }), 415);
+    await expectEvery(
+      "multipart",
+      (r) => r.readsJson && WRITES.has(r.method) && !uploads.test(r.file),
+      (r) => call(r, { body: form() }),
+      415,
+    );
   });
 });
 

@@ -39,7 +39,10 @@ describe.skipIf(Boolean(process.env.DATABASE_URL))("checkpoints in the data fold
     const [head] = await db.select().from(ledgerEntries).orderBy(desc(ledgerEntries.seq)).limit(1);
     expect(mode("ledger-key")).toBe(0o600);
     expect(mode(CHECKPOINT_FILE)).toBe(0o600);
-    const lines = readFileSync(path.join(dir, CHECKPOINT_FILE), "utf8").trim().split("\n").map((l) => JSON.parse(l));
+    const lines = readFileSync(path.join(dir, CHECKPOINT_FILE), "utf8")
+      .trim()
+      .split("\n")
+      .map((l) => JSON.parse(l));
     expect(lines).toEqual([expect.objectContaining({ seq: head.seq, hash: head.hash, reason: "schedule" })]);
   });
 

@@ -57,7 +57,9 @@ describe("signed checkpoints of the ledger head", () => {
     await truncateAfter(db, keep.seq);
     const report = await verify();
     expect(report).toMatchObject({ ok: false, brokenAt: keep.seq + 1 });
-    expect(report.reason).toMatch(new RegExp(`the ledger ends at entry #${keep.seq}, but the checkpoint signed at entry #\\d+ .* the newest entries were removed`));
+    expect(report.reason).toMatch(
+      new RegExp(`the ledger ends at entry #${keep.seq}, but the checkpoint signed at entry #\\d+ .* the newest entries were removed`),
+    );
     expect(await runFullCheck(admin)).toMatchObject({ status: "broken", reason: expect.stringMatching(/newest entries were removed/) });
     await restoreAndClear(all);
   });
@@ -70,7 +72,9 @@ describe("signed checkpoints of the ledger head", () => {
     expect(report.ok).toBe(false);
     expect(report.brokenAt).toBeGreaterThanOrEqual(target.seq);
     expect(report.brokenAt).toBeLessThanOrEqual(target.seq + CHECKPOINT_EVERY);
-    expect(report.reason).toMatch(new RegExp(`entry #${report.brokenAt} no longer has the hash signed at the checkpoint .*: entries up to it were rewritten and their hashes recomputed`));
+    expect(report.reason).toMatch(
+      new RegExp(`entry #${report.brokenAt} no longer has the hash signed at the checkpoint .*: entries up to it were rewritten and their hashes recomputed`),
+    );
     await restoreAndClear(all);
   });
 

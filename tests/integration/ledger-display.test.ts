@@ -10,7 +10,12 @@ import { LEDGER_PAGE_SIZE } from "@/lib/server/tender-ledger";
 import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
 import { createApprovalFixture, type ApprovalFixture } from "../support/approval-fixtures";
 
-interface Line { sentence: string; action: string; details: { key: string; text: string }[]; masked: string[] }
+interface Line {
+  sentence: string;
+  action: string;
+  details: { key: string; text: string }[];
+  masked: string[];
+}
 
 let db: Db;
 let gauges = "";
@@ -28,7 +33,10 @@ beforeAll(async () => {
   const approver = await signInAs("approver@tarnwell.example");
   const body = { conflict: "none", conflictedOrgIds: [], statement: "No ties to any vendor of this tender." };
   await declarePost(request(`/api/v1/tenders/${awarded.tenderId}/declaration`, { method: "POST", headers: approver, body }), params({ id: awarded.tenderId }));
-  const decided = await decidePost(request(`/api/v1/tenders/${awarded.tenderId}/approvals`, { method: "POST", headers: approver, body: { decision: "approve", comment: "Within budget." } }), params({ id: awarded.tenderId }));
+  const decided = await decidePost(
+    request(`/api/v1/tenders/${awarded.tenderId}/approvals`, { method: "POST", headers: approver, body: { decision: "approve", comment: "Within budget." } }),
+    params({ id: awarded.tenderId }),
+  );
   expect((await decided.json()).kind).toBe("awarded");
 });
 afterAll(closeDb);
@@ -74,7 +82,8 @@ describe("ledger pages", () => {
   it("come newest first, a page at a time, and refuse a page that is not a number", async () => {
     const ids = (await db.select({ id: tenders.id, createdBy: tenders.createdBy }).from(tenders).where(eq(tenders.id, awarded.tenderId)))[0];
     await db.transaction(async (tx) => {
-      for (let i = 0; i < LEDGER_PAGE_SIZE; i++) await appendLedger(tx, { tenderId: ids.id, actor: null, action: "test.filler", subjectType: "Tender", data: { i } });
+      for (let i = 0; i < LEDGER_PAGE_SIZE; i++)
+        await appendLedger(tx, { tenderId: ids.id, actor: null, action: "test.filler", subjectType: "Tender", data: { i } });
     });
     const first = await (await ledgerAs("buyer@tarnwell.example", awarded.tenderId)).json();
     expect(first).toMatchObject({ page: 1, pages: 2 });

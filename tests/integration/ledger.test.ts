@@ -95,7 +95,13 @@ describe("the full check (admin)", () => {
     const result = await runFullCheck(admin, 10, (check) => steps.push(check.checked));
     const position = all.findIndex((e) => e.seq === target.seq);
     expect(steps.slice(0, Math.floor(position / 10))).toEqual(Array.from({ length: Math.floor(position / 10) }, (_, i) => (i + 1) * 10));
-    expect(result).toMatchObject({ status: "broken", brokenAt: target.seq, checked: position, total: all.length, reason: "its content no longer matches its hash" });
+    expect(result).toMatchObject({
+      status: "broken",
+      brokenAt: target.seq,
+      checked: position,
+      total: all.length,
+      reason: "its content no longer matches its hash",
+    });
     expect((await verify(admin)).body).toMatchObject({ ok: false, brokenAt: target.seq });
     expect((await verify(admin, gaugesId)).body).toMatchObject({ ok: false, brokenAt: target.seq, position: 2 });
     await restoreAndClear(all);
@@ -118,7 +124,14 @@ describe("the full check (admin)", () => {
 describe("appending many entries at once (bulk writers)", () => {
   it("chains them in the given order, between single appends, as one by one would", async () => {
     const before = (await listLedger(db)).length;
-    const inputs = Array.from({ length: 1203 }, (_, i) => ({ tenderId: gaugesId, actor: null, action: "test.bulk", subjectType: "Tender", subjectId: gaugesId, data: { i } }));
+    const inputs = Array.from({ length: 1203 }, (_, i) => ({
+      tenderId: gaugesId,
+      actor: null,
+      action: "test.bulk",
+      subjectType: "Tender",
+      subjectId: gaugesId,
+      data: { i },
+    }));
     await db.transaction(async (tx) => {
       await appendLedger(tx, { tenderId: weirsId, actor: null, action: "test.single", subjectType: "Tender", subjectId: weirsId, data: {} });
       await appendLedgerMany(tx, inputs);

@@ -29,7 +29,10 @@ let technical: Awaited<ReturnType<typeof createCommercialTender>>;
 /** 36 more tenders in every state, invitations spread over two demo vendors, drafts invited too (they must stay hidden). */
 async function manyTenders() {
   const [buyer] = await db.select().from(users).where(eq(users.email, ACCOUNTS.buyer));
-  const orgs = await db.select().from(organisations).where(inArray(organisations.name, ["Kestrelink Radio", "Oxbow Wireless"]));
+  const orgs = await db
+    .select()
+    .from(organisations)
+    .where(inArray(organisations.name, ["Kestrelink Radio", "Oxbow Wireless"]));
   const base = new Date("2027-03-01T09:00:00Z").getTime();
   for (let i = 0; i < 36; i++) {
     const state = TENDER_STATES[i % TENDER_STATES.length] as TenderState;
@@ -63,8 +66,14 @@ beforeAll(async () => {
   technical = await createCommercialTender(db, {
     state: "technical",
     signed: false,
-    points: [{ label: "Clear", value: 1e-3 }, { label: "Fade", value: 5e-3 }, { label: "Storm", value: 8e-3 }],
-    offers: Array.from({ length: 5 }, (_, i) => honest(`Pager vendor ${i + 1}`, 40 + i, 6, 24, { claims: [{ value: 1e-5 }, { value: 1e-5 }, { value: 1e-5 }] })),
+    points: [
+      { label: "Clear", value: 1e-3 },
+      { label: "Fade", value: 5e-3 },
+      { label: "Storm", value: 8e-3 },
+    ],
+    offers: Array.from({ length: 5 }, (_, i) =>
+      honest(`Pager vendor ${i + 1}`, 40 + i, 6, 24, { claims: [{ value: 1e-5 }, { value: 1e-5 }, { value: 1e-5 }] }),
+    ),
   });
   for (const [key, email] of Object.entries(ACCOUNTS)) as[key] = await signInAs(email);
 });
@@ -159,7 +168,10 @@ describe("the review queue", () => {
   beforeAll(async () => {
     // The engineer declares on the fixture tender, with a conflict with its first vendor.
     const body = { conflict: "some", conflictedOrgIds: [technical.vendorOrgIds[0]], statement: "I consulted for the first vendor last year." };
-    const response = await declarePost(request(`/api/v1/tenders/${technical.tenderId}/declaration`, { method: "POST", headers: as.engineer, body }), params({ id: technical.tenderId }));
+    const response = await declarePost(
+      request(`/api/v1/tenders/${technical.tenderId}/declaration`, { method: "POST", headers: as.engineer, body }),
+      params({ id: technical.tenderId }),
+    );
     expect(response.status).toBe(201);
   });
 
@@ -172,7 +184,10 @@ describe("the review queue", () => {
       .innerJoin(offers, eq(offers.id, claims.offerId))
       .innerJoin(tenders, eq(tenders.id, claims.tenderId))
       .where(and(eq(offers.status, "submitted"), tenderId ? eq(claims.tenderId, tenderId) : eq(tenders.state, "technical")));
-    return rows.filter((r) => viewer.ability.can("list", claimSubject(r.claim, r.state))).map((r) => r.claim.id).sort();
+    return rows
+      .filter((r) => viewer.ability.can("list", claimSubject(r.claim, r.state)))
+      .map((r) => r.claim.id)
+      .sort();
   }
 
   it("pages the declared engineer's claims, leaving out the vendor they are conflicted with", async () => {
@@ -191,7 +206,9 @@ describe("the review queue", () => {
   it("filters by vendor (id or name), verdict and mark, and lists the vendors for the filter", async () => {
     const path = `/api/v1/claims?tenderId=${technical.tenderId}`;
     const all = await get(claimsGet, path, "buyer");
-    expect(all.body.vendors.map((v: { name: string }) => v.name)).toEqual(Array.from({ length: 5 }, (_, i) => `Pager vendor ${i + 1} (${all.body.claims[0].tenderReference})`));
+    expect(all.body.vendors.map((v: { name: string }) => v.name)).toEqual(
+      Array.from({ length: 5 }, (_, i) => `Pager vendor ${i + 1} (${all.body.claims[0].tenderReference})`),
+    );
     const byId = await get(claimsGet, `${path}&vendor=${technical.vendorOrgIds[2]}`, "buyer");
     expect(byId.body.total).toBe(3);
     const byName = await get(claimsGet, `${path}&vendor=pager+VENDOR+4`, "buyer");

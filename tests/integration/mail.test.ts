@@ -4,14 +4,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { SMTPServer } from "smtp-server";
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
-import {
-  clearCapturedMail,
-  DEFAULT_MAIL_FROM,
-  flushMail,
-  listCapturedMail,
-  queueMail,
-  sendMail,
-} from "@/lib/mail";
+import { clearCapturedMail, DEFAULT_MAIL_FROM, flushMail, listCapturedMail, queueMail, sendMail } from "@/lib/mail";
 import { MAX_CAPTURED_MAIL, recordCapturedMail, type CapturedMail } from "@/lib/mail/captured-mail";
 import { startFakeSmtp, type FakeSmtp } from "@/lib/mail/fake-smtp";
 import { recordLocalEndpoints } from "@/lib/runtime/local-endpoints";

@@ -63,7 +63,14 @@ describe("the issued memo", () => {
     const approver = await signInAs("approver@tarnwell.example");
     const body = { conflict: "none", conflictedOrgIds: [], statement: "No ties to any of the vendors." };
     await declarePost(request(`/api/v1/tenders/${f.tenderId}/declaration`, { method: "POST", headers: approver, body }), params({ id: f.tenderId }));
-    const decided = await decidePost(request(`/api/v1/tenders/${f.tenderId}/approvals`, { method: "POST", headers: approver, body: { decision: "approve", comment: "Small award, one signature." } }), params({ id: f.tenderId }));
+    const decided = await decidePost(
+      request(`/api/v1/tenders/${f.tenderId}/approvals`, {
+        method: "POST",
+        headers: approver,
+        body: { decision: "approve", comment: "Small award, one signature." },
+      }),
+      params({ id: f.tenderId }),
+    );
     expect((await decided.json()).kind).toBe("awarded");
     const response = await memoGet(request(`/api/v1/tenders/${f.tenderId}/memo`, { headers: buyer }), params({ id: f.tenderId }));
     expect(response.status).toBe(200);
@@ -95,7 +102,13 @@ describe("the issued memo", () => {
     const [rec] = await db.select().from(recommendations).where(eq(recommendations.id, f.recommendationId));
     const [memo] = await db.select().from(memos).where(eq(memos.tenderId, f.tenderId));
     const ledgerHead = { seq: memo.ledgerSeq!, hash: memo.ledgerHash! };
-    const again = await renderMemoFor(db, tender, rec, { identifier: `${f.reference}-M1`, draft: false, issuedAt: tender.awardedAt!, approvals: await approvalsGiven(db, rec.id), ledgerHead });
+    const again = await renderMemoFor(db, tender, rec, {
+      identifier: `${f.reference}-M1`,
+      draft: false,
+      issuedAt: tender.awardedAt!,
+      approvals: await approvalsGiven(db, rec.id),
+      ledgerHead,
+    });
     expect(sha(again)).toBe(sha(file));
   });
 
@@ -132,7 +145,9 @@ describe("Memo check (public)", () => {
     expect(Date.parse(result.awardedAt)).not.toBeNaN();
     const [memo] = await db.select().from(memos).where(eq(memos.tenderId, f.tenderId));
     expect(result.ledgerHead).toMatchObject({ seq: memo.ledgerSeq, hash: memo.ledgerHash, inVerifiedChain: true });
-    expect(result.ledgerHead.standing).toMatch(new RegExp(`^Entry #${memo.ledgerSeq} is in the ledger with the same hash, and the chain is verified through entry #\\d+\\.$`));
+    expect(result.ledgerHead.standing).toMatch(
+      new RegExp(`^Entry #${memo.ledgerSeq} is in the ledger with the same hash, and the chain is verified through entry #\\d+\\.$`),
+    );
   });
 
   it("says when the head the memo was issued at is no longer in the chain", async () => {
@@ -155,7 +170,9 @@ describe("Memo check (public)", () => {
   });
 
   it("confirms a pasted fingerprint, forgiving case and spaces", async () => {
-    const pasted = sha(file).toUpperCase().replace(/(.{16})/g, "$1 ");
+    const pasted = sha(file)
+      .toUpperCase()
+      .replace(/(.{16})/g, "$1 ");
     const result = await (await check({ body: { sha256: pasted } })).json();
     expect(result.authentic).toBe(true);
     expect((await (await check({ body: { sha256: "0".repeat(64) } })).json()).authentic).toBe(false);

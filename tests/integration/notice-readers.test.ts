@@ -19,11 +19,17 @@ afterAll(closeDb);
 
 async function declare(email: string, tenderId: string, conflictedOrgIds: string[] = []) {
   const body = { conflict: conflictedOrgIds.length ? "some" : "none", conflictedOrgIds, statement: "I have named every tie I have." };
-  const response = await declarePost(request(`/api/v1/tenders/${tenderId}/declaration`, { method: "POST", headers: await signInAs(email), body }), params({ id: tenderId }));
+  const response = await declarePost(
+    request(`/api/v1/tenders/${tenderId}/declaration`, { method: "POST", headers: await signInAs(email), body }),
+    params({ id: tenderId }),
+  );
   expect(response.status).toBe(201);
 }
 const approve = async (email: string, f: ApprovalFixture) =>
-  decidePost(request(`/api/v1/tenders/${f.tenderId}/approvals`, { method: "POST", headers: await signInAs(email), body: { decision: "approve", comment: "Fine." } }), params({ id: f.tenderId }));
+  decidePost(
+    request(`/api/v1/tenders/${f.tenderId}/approvals`, { method: "POST", headers: await signInAs(email), body: { decision: "approve", comment: "Fine." } }),
+    params({ id: f.tenderId }),
+  );
 
 const to = <M extends { to: string[] }>(mail: M[], address: string) => mail.filter((m) => m.to.includes(address));
 
@@ -34,13 +40,22 @@ describe("a vendor's answer in a clarification thread", () => {
     const kestrelink = f.orgIds[0];
     await declare("engineer@tarnwell.example", f.tenderId);
     await declare("director@tarnwell.example", f.tenderId, [kestrelink]);
-    const [claim] = await db.select().from(claims).where(and(eq(claims.tenderId, f.tenderId), eq(claims.vendorOrgId, kestrelink)));
-    const [thread] = await db.insert(threads).values({ tenderId: f.tenderId, vendorOrgId: kestrelink, claimId: claim.id, subject: "Frame length", createdBy: ids.engineer }).returning();
+    const [claim] = await db
+      .select()
+      .from(claims)
+      .where(and(eq(claims.tenderId, f.tenderId), eq(claims.vendorOrgId, kestrelink)));
+    const [thread] = await db
+      .insert(threads)
+      .values({ tenderId: f.tenderId, vendorOrgId: kestrelink, claimId: claim.id, subject: "Frame length", createdBy: ids.engineer })
+      .returning();
     await db.insert(threadMessages).values({ threadId: thread.id, authorId: ids.engineer, authorLabel: "Ravi Okonjo", body: "Which frame length?" });
 
     clearCapturedMail();
     const vendor = await signInAs("sales@kestrelink.example");
-    const posted = await messagePost(request(`/api/v1/threads/${thread.id}/messages`, { method: "POST", headers: vendor, body: { body: "1536 bits, as stated." } }), params({ id: thread.id }));
+    const posted = await messagePost(
+      request(`/api/v1/threads/${thread.id}/messages`, { method: "POST", headers: vendor, body: { body: "1536 bits, as stated." } }),
+      params({ id: thread.id }),
+    );
     expect(posted.status).toBe(201);
     const [answer] = await mailAbout(f.reference, 1);
     expect(answer.to).toEqual(["engineer@tarnwell.example"]);

@@ -25,7 +25,10 @@ afterAll(closeDb);
 async function objected(): Promise<{ f: ApprovalFixture; objectionId: string }> {
   const f = await createApprovalFixture(db, { value: 120_000 });
   await db.update(tenders).set({ state: "awarded", awardedAt: new Date() }).where(eq(tenders.id, f.tenderId));
-  const lodged = await objectionsPost(request(`/api/v1/tenders/${f.tenderId}/objections`, { method: "POST", headers: await signInAs("bids@oxbow.example"), body: { body: TEXT } }), params({ id: f.tenderId }));
+  const lodged = await objectionsPost(
+    request(`/api/v1/tenders/${f.tenderId}/objections`, { method: "POST", headers: await signInAs("bids@oxbow.example"), body: { body: TEXT } }),
+    params({ id: f.tenderId }),
+  );
   expect(lodged.status).toBe(201);
   return { f, objectionId: (await lodged.json()).id };
 }
@@ -60,9 +63,14 @@ describe("objections on the Desk", () => {
     const again = await answer("buyer@tarnwell.example", objectionId, { answer: ANSWER });
     expect(again.status).toBe(409);
 
-    const seen = await (await objectionsGet(request(`/api/v1/tenders/${f.tenderId}/objections`, { headers: await signInAs("bids@oxbow.example") }), params({ id: f.tenderId }))).json();
+    const seen = await (
+      await objectionsGet(request(`/api/v1/tenders/${f.tenderId}/objections`, { headers: await signInAs("bids@oxbow.example") }), params({ id: f.tenderId }))
+    ).json();
     expect(seen.objections[0]).toMatchObject({ body: TEXT, answer: ANSWER, mayAnswer: false });
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, f.tenderId), eq(ledgerEntries.action, "objection.answered")));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, f.tenderId), eq(ledgerEntries.action, "objection.answered")));
     expect(entry.actorLabel).toBe("Ines Calloway");
     const mail = await mailAbout("answer to your objection", 1);
     expect(mail[0].to).toEqual(["bids@oxbow.example"]);
@@ -71,7 +79,10 @@ describe("objections on the Desk", () => {
 
   it("leave the Desk when the standstill period ends unanswered", async () => {
     const { f } = await objected();
-    await db.update(tenders).set({ awardedAt: new Date(Date.now() - 11 * 86_400_000) }).where(eq(tenders.id, f.tenderId));
+    await db
+      .update(tenders)
+      .set({ awardedAt: new Date(Date.now() - 11 * 86_400_000) })
+      .where(eq(tenders.id, f.tenderId));
     expect((await objectionsOnDesk("buyer@tarnwell.example"))?.ids).not.toContain(f.tenderId);
   });
 });

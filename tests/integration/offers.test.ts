@@ -47,17 +47,21 @@ async function counts() {
   const [o] = await db.select({ n: count() }).from(offers);
   const [c] = await db.select({ n: count() }).from(claims);
   // Closing on read may append "tender.closed" and "offers.unsealed": that is the tender's own change, not the offer's.
-  const [l] = await db.select({ n: count() }).from(ledgerEntries).where(notInArray(ledgerEntries.action, ["tender.closed", "offers.unsealed"]));
+  const [l] = await db
+    .select({ n: count() })
+    .from(ledgerEntries)
+    .where(notInArray(ledgerEntries.action, ["tender.closed", "offers.unsealed"]));
   return { offers: o.n, claims: c.n, ledger: l.n };
 }
 
 /** Keys present anywhere in a JSON value. */
 function keysIn(value: unknown, out = new Set<string>()): Set<string> {
   if (Array.isArray(value)) value.forEach((v) => keysIn(v, out));
-  else if (value && typeof value === "object") for (const [k, v] of Object.entries(value)) {
-    out.add(k);
-    keysIn(v, out);
-  }
+  else if (value && typeof value === "object")
+    for (const [k, v] of Object.entries(value)) {
+      out.add(k);
+      keysIn(v, out);
+    }
   return out;
 }
 
@@ -99,7 +103,10 @@ describe("the demo offers", () => {
   });
 
   it("are in the ledger with their verdicts and without a price", async () => {
-    const entries = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.action, "offer.submitted"), eq(ledgerEntries.tenderId, GAUGES())));
+    const entries = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.action, "offer.submitted"), eq(ledgerEntries.tenderId, GAUGES())));
     expect(entries).toHaveLength(4);
     for (const e of entries) {
       const keys = keysIn(e.data);
@@ -174,7 +181,11 @@ describe("who reads what", () => {
     await db.update(tenders).set({ envelopesOpenedAt: new Date() }).where(eq(tenders.id, GAUGES()));
     try {
       const opened = await (await list(buyer, GAUGES())).json();
-      expect(opened.find((o: { vendorName: string }) => o.vendorName === "Oxbow Wireless")).toMatchObject({ unitPrice: 38.5, leadTimeWeeks: 14, warrantyMonths: 24 });
+      expect(opened.find((o: { vendorName: string }) => o.vendorName === "Oxbow Wireless")).toMatchObject({
+        unitPrice: 38.5,
+        leadTimeWeeks: 14,
+        warrantyMonths: 24,
+      });
     } finally {
       await db.update(tenders).set({ envelopesOpenedAt: null }).where(eq(tenders.id, GAUGES()));
     }
@@ -194,14 +205,21 @@ describe("submitting, resubmitting and withdrawing", () => {
     expect(body.claims[0].verdict).toBe("plausible");
     expect(body.claims[0].result.findings.length).toBeGreaterThan(0);
     expect(body.claims[0].keyFinding.message).toMatch(/BLER/);
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.action, "offer.submitted"), eq(ledgerEntries.subjectId, firstId)));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.action, "offer.submitted"), eq(ledgerEntries.subjectId, firstId)));
     expect(entry.data).toMatchObject({ version: 1, summary: { plausible: 1, impossible: 0 } });
     expect(JSON.stringify(entry.data)).not.toContain("52.5");
   });
 
   it("shows a claim beyond capacity as impossible to the vendor at once", async () => {
     const vendor = await signInAs("sales@kestrelink.example");
-    const response = await submit(vendor, WEIRS(), weirsOffer({ code: { family: "RS", decision: "hard", n: 2048, k: 2040 }, claims: [{ pointIndex: 0, metric: "bler", value: 1e-9 }] }));
+    const response = await submit(
+      vendor,
+      WEIRS(),
+      weirsOffer({ code: { family: "RS", decision: "hard", n: 2048, k: 2040 }, claims: [{ pointIndex: 0, metric: "bler", value: 1e-9 }] }),
+    );
     expect(response.status).toBe(201);
     const body = await response.json();
     expect(body.claims[0].verdict).toBe("impossible");
@@ -218,18 +236,27 @@ describe("submitting, resubmitting and withdrawing", () => {
     expect(first.status).toBe("superseded");
     expect(await db.select().from(claims).where(eq(claims.offerId, firstId))).toHaveLength(1);
     const detail = await (await getOne(vendor, second.id)).json();
-    expect(detail.versions.map((v: { version: number; status: string }) => [v.version, v.status])).toEqual([[1, "superseded"], [2, "submitted"]]);
+    expect(detail.versions.map((v: { version: number; status: string }) => [v.version, v.status])).toEqual([
+      [1, "superseded"],
+      [2, "submitted"],
+    ]);
     const current = await (await list(vendor, WEIRS())).json();
     expect(current.map((o: { version: number }) => o.version)).toEqual([2]);
   });
 
   it("a withdrawal is recorded and kept; withdrawing twice is a conflict", async () => {
     const vendor = await signInAs("bids@oxbow.example");
-    const [current] = await db.select().from(offers).where(and(eq(offers.tenderId, WEIRS()), eq(offers.vendorOrgId, orgIds["Oxbow Wireless"]), eq(offers.version, 2)));
+    const [current] = await db
+      .select()
+      .from(offers)
+      .where(and(eq(offers.tenderId, WEIRS()), eq(offers.vendorOrgId, orgIds["Oxbow Wireless"]), eq(offers.version, 2)));
     const response = await withdraw(vendor, current.id);
     expect(response.status).toBe(200);
     expect((await response.json()).status).toBe("withdrawn");
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.action, "offer.withdrawn"), eq(ledgerEntries.subjectId, current.id)));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.action, "offer.withdrawn"), eq(ledgerEntries.subjectId, current.id)));
     expect(entry.data).toMatchObject({ version: 2 });
     expect(await db.select().from(offers).where(eq(offers.tenderId, WEIRS()))).toHaveLength(3);
     const twice = await withdraw(vendor, current.id);
@@ -239,7 +266,10 @@ describe("submitting, resubmitting and withdrawing", () => {
 
   it("another vendor cannot withdraw someone else's offer", async () => {
     const other = await signInAs("tenders@quillfield.example");
-    const [kestrel] = await db.select().from(offers).where(and(eq(offers.tenderId, WEIRS()), eq(offers.vendorOrgId, orgIds["Kestrelink Radio"])));
+    const [kestrel] = await db
+      .select()
+      .from(offers)
+      .where(and(eq(offers.tenderId, WEIRS()), eq(offers.vendorOrgId, orgIds["Kestrelink Radio"])));
     const response = await withdraw(other, kestrel.id);
     expect([403, 404]).toContain(response.status);
     expect((await db.select().from(offers).where(eq(offers.id, kestrel.id)))[0].status).toBe("submitted");
@@ -260,7 +290,10 @@ describe("refusals write nothing", () => {
   it("after the closing time, even while the tender still says open", async () => {
     const vendor = await signInAs("tenders@quillfield.example");
     const [weirs] = await db.select().from(tenders).where(eq(tenders.id, WEIRS()));
-    await db.update(tenders).set({ closesAt: new Date(Date.now() - 60_000) }).where(eq(tenders.id, WEIRS()));
+    await db
+      .update(tenders)
+      .set({ closesAt: new Date(Date.now() - 60_000) })
+      .where(eq(tenders.id, WEIRS()));
     try {
       await refused(vendor, WEIRS(), weirsOffer(), 409, /closed at .*nothing can be submitted/);
       const [closed] = await db.select().from(tenders).where(eq(tenders.id, WEIRS()));
@@ -311,9 +344,21 @@ describe("refusals write nothing", () => {
     const vendor = await signInAs("tenders@quillfield.example");
     const bad = await refused(vendor, WEIRS(), weirsOffer({ claims: [{ pointIndex: 0, metric: "bler", value: 1.5 }] }), 400, /claims\.0\.value/);
     expect(bad.fieldErrors["claims.0.value"]).toBeTruthy();
-    const missing = await refused(vendor, WEIRS(), weirsOffer({ claims: [{ pointIndex: 3, metric: "bler", value: 1e-5 }] }), 400, /check the highlighted fields/);
+    const missing = await refused(
+      vendor,
+      WEIRS(),
+      weirsOffer({ claims: [{ pointIndex: 3, metric: "bler", value: 1e-5 }] }),
+      400,
+      /check the highlighted fields/,
+    );
     expect(missing.fieldErrors.claims[0]).toMatch(/each of the tender's 1 operating point/);
-    const foreign = await refused(vendor, WEIRS(), weirsOffer({ envelope: { unitPrice: 10, currency: "USD", leadTimeWeeks: 4, warrantyMonths: 12, priceBreaks: [] } }), 400, /highlighted/);
+    const foreign = await refused(
+      vendor,
+      WEIRS(),
+      weirsOffer({ envelope: { unitPrice: 10, currency: "USD", leadTimeWeeks: 4, warrantyMonths: 12, priceBreaks: [] } }),
+      400,
+      /highlighted/,
+    );
     expect(foreign.fieldErrors["envelope.currency"][0]).toMatch(/EUR/);
   });
 
@@ -325,7 +370,16 @@ describe("refusals write nothing", () => {
 
   it("price breaks out of order, and a zero price", async () => {
     const vendor = await signInAs("tenders@quillfield.example");
-    const envelope = { unitPrice: 0, currency: "EUR", leadTimeWeeks: 4, warrantyMonths: 12, priceBreaks: [{ minQuantity: 500, unitPrice: 9 }, { minQuantity: 100, unitPrice: 8 }] };
+    const envelope = {
+      unitPrice: 0,
+      currency: "EUR",
+      leadTimeWeeks: 4,
+      warrantyMonths: 12,
+      priceBreaks: [
+        { minQuantity: 500, unitPrice: 9 },
+        { minQuantity: 100, unitPrice: 8 },
+      ],
+    };
     const json = await refused(vendor, WEIRS(), weirsOffer({ envelope }), 400, /envelope/);
     expect(Object.keys(json.fieldErrors)).toEqual(expect.arrayContaining(["envelope.unitPrice", "envelope.priceBreaks.1.minQuantity"]));
   });
@@ -333,7 +387,10 @@ describe("refusals write nothing", () => {
   it("malformed JSON", async () => {
     const vendor = await signInAs("tenders@quillfield.example");
     const before = await counts();
-    const response = await submitPost(request(`/api/v1/tenders/${WEIRS()}/offers`, { method: "POST", headers: vendor, rawBody: "{oops" }), params({ id: WEIRS() }));
+    const response = await submitPost(
+      request(`/api/v1/tenders/${WEIRS()}/offers`, { method: "POST", headers: vendor, rawBody: "{oops" }),
+      params({ id: WEIRS() }),
+    );
     expect(response.status).toBe(400);
     expect(await counts()).toEqual(before);
   });

@@ -30,9 +30,13 @@ beforeAll(async () => {
   db = await freshDatabase();
   fx = await reviewFixtures(db);
   for (const [key, email] of Object.entries({
-    engineer: "engineer@tarnwell.example", director: "director@tarnwell.example", buyer: "buyer@tarnwell.example",
-    marram: "offers@marram.example", oxbow: "bids@oxbow.example",
-  })) as[key] = await signInAs(email);
+    engineer: "engineer@tarnwell.example",
+    director: "director@tarnwell.example",
+    buyer: "buyer@tarnwell.example",
+    marram: "offers@marram.example",
+    oxbow: "bids@oxbow.example",
+  }))
+    as[key] = await signInAs(email);
 });
 afterAll(async () => {
   await flushMail();
@@ -65,7 +69,13 @@ describe("conflict-of-interest declaration", () => {
     expect((await declare("engineer", { conflict: "some", conflictedOrgIds: [], statement: "I hold shares somewhere." })).status).toBe(400);
     const stranger = await declare("engineer", { conflict: "some", conflictedOrgIds: [buyerOrg.id], statement: "I used to work there." });
     expect(stranger.status).toBe(400);
-    expect(await db.select().from(declarations).where(eq(declarations.tenderId, fx.tenderId)).then((r) => r.filter((d) => d.statement.includes("work there")))).toHaveLength(0);
+    expect(
+      await db
+        .select()
+        .from(declarations)
+        .where(eq(declarations.tenderId, fx.tenderId))
+        .then((r) => r.filter((d) => d.statement.includes("work there"))),
+    ).toHaveLength(0);
   });
 
   it("records a declared conflict once, in the ledger, and then hides that vendor's claims", async () => {
@@ -118,16 +128,21 @@ describe("marks and clarification threads", () => {
   it("opens a thread with a clarification request and e-mails the vendor", async () => {
     const before = await ledger("thread.opened");
     const response = await mark("engineer", fx.evidenceClaimId, {
-      mark: "clarification-requested", subject: "Decoder iterations at storm fade", comment: "How many decoder iterations give this BLER?",
+      mark: "clarification-requested",
+      subject: "Decoder iterations at storm fade",
+      comment: "How many decoder iterations give this BLER?",
     });
     expect(response.status).toBe(201);
     threadId = (await response.json()).threadId;
     expect(threadId).toBeTruthy();
     expect(await ledger("thread.opened")).toBe(before + 1);
-    await vi.waitFor(async () => {
-      await flushMail();
-      expect(mailTo("offers@marram.example", /question from the evaluators/)).toHaveLength(1);
-    }, { timeout: 15_000 });
+    await vi.waitFor(
+      async () => {
+        await flushMail();
+        expect(mailTo("offers@marram.example", /question from the evaluators/)).toHaveLength(1);
+      },
+      { timeout: 15_000 },
+    );
   });
 
   it("shows a vendor only its own organisation's threads", async () => {
@@ -137,7 +152,10 @@ describe("marks and clarification threads", () => {
     expect(oxbowThreads).toHaveLength(0);
     expect((await messagesGet(request(`/api/v1/threads/${threadId}/messages`, { headers: as.oxbow }), params({ id: threadId }))).status).toBe(404);
     const post = (who: string) =>
-      messagePost(request(`/api/v1/threads/${threadId}/messages`, { method: "POST", headers: as[who], body: { body: "Not ours to answer." } }), params({ id: threadId }));
+      messagePost(
+        request(`/api/v1/threads/${threadId}/messages`, { method: "POST", headers: as[who], body: { body: "Not ours to answer." } }),
+        params({ id: threadId }),
+      );
     expect((await post("oxbow")).status).toBe(404);
   });
 
@@ -150,13 +168,22 @@ describe("marks and clarification threads", () => {
     expect(answer.status).toBe(201);
     expect(await ledger("thread.message")).toBe(before + 1);
     const thread = await (await messagesGet(request(`/api/v1/threads/${threadId}/messages`, { headers: as.engineer }), params({ id: threadId }))).json();
-    expect(thread.messages.map((m: { body: string }) => m.body)).toEqual(["How many decoder iterations give this BLER?", "Twenty iterations, layered schedule."]);
-    await vi.waitFor(async () => {
-      await flushMail();
-      expect(mailTo("engineer@tarnwell.example", /vendor answer/)).toHaveLength(1);
-      expect(mailTo("director@tarnwell.example", /vendor answer/)).toHaveLength(1);
-    }, { timeout: 15_000 });
-    const empty = await messagePost(request(`/api/v1/threads/${threadId}/messages`, { method: "POST", headers: as.marram, body: { body: " " } }), params({ id: threadId }));
+    expect(thread.messages.map((m: { body: string }) => m.body)).toEqual([
+      "How many decoder iterations give this BLER?",
+      "Twenty iterations, layered schedule.",
+    ]);
+    await vi.waitFor(
+      async () => {
+        await flushMail();
+        expect(mailTo("engineer@tarnwell.example", /vendor answer/)).toHaveLength(1);
+        expect(mailTo("director@tarnwell.example", /vendor answer/)).toHaveLength(1);
+      },
+      { timeout: 15_000 },
+    );
+    const empty = await messagePost(
+      request(`/api/v1/threads/${threadId}/messages`, { method: "POST", headers: as.marram, body: { body: " " } }),
+      params({ id: threadId }),
+    );
     expect(empty.status).toBe(400);
   });
 });
@@ -171,8 +198,12 @@ describe("technical sign-off", () => {
 
   it("is refused with 409 while a claim is unmarked, naming how many, and writes nothing", async () => {
     const [director] = await db.select().from(users).where(eq(users.email, "director@tarnwell.example"));
-    const held = await db.select().from(declarations).where(and(eq(declarations.tenderId, fx.tenderId), eq(declarations.userId, director.id)));
-    if (held.length === 0) expect((await declare("director", { conflict: "none", conflictedOrgIds: [], statement: "No ties to any invited vendor." })).status).toBe(201);
+    const held = await db
+      .select()
+      .from(declarations)
+      .where(and(eq(declarations.tenderId, fx.tenderId), eq(declarations.userId, director.id)));
+    if (held.length === 0)
+      expect((await declare("director", { conflict: "none", conflictedOrgIds: [], statement: "No ties to any invited vendor." })).status).toBe(201);
     const before = await ledger("tender.technical-signed");
     const refused = await sign("director", statement);
     expect(refused.status).toBe(409);
@@ -197,10 +228,13 @@ describe("technical sign-off", () => {
     expect(await ledger("tender.technical-signed")).toBe(1);
     expect((await sign("director", statement)).status).toBe(409);
     expect((await mark("director", fx.claimIds.oxbow[0], { mark: "accepted" })).status).toBe(409);
-    await vi.waitFor(async () => {
-      await flushMail();
-      expect(mailTo("buyer@tarnwell.example", /technical evaluation signed/)).toHaveLength(1);
-    }, { timeout: 15_000 });
+    await vi.waitFor(
+      async () => {
+        await flushMail();
+        expect(mailTo("buyer@tarnwell.example", /technical evaluation signed/)).toHaveLength(1);
+      },
+      { timeout: 15_000 },
+    );
   });
 
   it("keeps the threads readable by the vendor after the sign-off", async () => {

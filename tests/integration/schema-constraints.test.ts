@@ -21,9 +21,23 @@ async function refuses(write: () => Promise<unknown>, constraint: string) {
 describe("state, verdict and role columns", () => {
   it("accept only their listed values", async () => {
     const [tender] = await db.select().from(tenders).limit(1);
-    await refuses(() => db.update(tenders).set({ state: "paused" as never }).where(eq(tenders.id, tender.id)), "tenders_state_check");
+    await refuses(
+      () =>
+        db
+          .update(tenders)
+          .set({ state: "paused" as never })
+          .where(eq(tenders.id, tender.id)),
+      "tenders_state_check",
+    );
     const [claim] = await db.select().from(claims).limit(1);
-    await refuses(() => db.update(claims).set({ verdict: "probably" as never }).where(eq(claims.id, claim.id)), "claims_verdict_check");
+    await refuses(
+      () =>
+        db
+          .update(claims)
+          .set({ verdict: "probably" as never })
+          .where(eq(claims.id, claim.id)),
+      "claims_verdict_check",
+    );
     const [user] = await db.select().from(users).limit(1);
     await refuses(() => db.insert(userRoles).values({ userId: user.id, role: "superuser" as never }), "user_roles_role_check");
     await refuses(() => db.execute(sql`update ${organisations} set kind = 'neither'`), "organisations_kind_check");

@@ -29,22 +29,40 @@ const BUYING_SIDE = ["buyer@tarnwell.example", "engineer@tarnwell.example", "app
 const REASON = "The weir programme moved to next year's budget.";
 
 const cancel = async (tenderId: string) =>
-  cancelPost(request(`/api/v1/tenders/${tenderId}/cancel`, { method: "POST", headers: await signInAs("buyer@tarnwell.example"), body: { reason: REASON } }), params({ id: tenderId }));
+  cancelPost(
+    request(`/api/v1/tenders/${tenderId}/cancel`, { method: "POST", headers: await signInAs("buyer@tarnwell.example"), body: { reason: REASON } }),
+    params({ id: tenderId }),
+  );
 const cancelEntry = async (tenderId: string) =>
-  (await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, tenderId), eq(ledgerEntries.action, "tender.cancelled"))))[0];
-const refused = async <T>(work: Promise<T>) => work.then(() => "read", (error: Error) => error.message);
+  (
+    await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, tenderId), eq(ledgerEntries.action, "tender.cancelled")))
+  )[0];
+const refused = async <T>(work: Promise<T>) =>
+  work.then(
+    () => "read",
+    (error: Error) => error.message,
+  );
 
 beforeAll(async () => {
   db = await freshDatabase();
   [{ id: weirs }] = await db.select({ id: tenders.id }).from(tenders).where(eq(tenders.reference, "RC-2027-003"));
   const vendor = await signInAs("bids@oxbow.example");
-  const submitted = await submitPost(request(`/api/v1/tenders/${weirs}/offers`, { method: "POST", headers: vendor, body: weirsOffer("Never unsealed") }), params({ id: weirs }));
+  const submitted = await submitPost(
+    request(`/api/v1/tenders/${weirs}/offers`, { method: "POST", headers: vendor, body: weirsOffer("Never unsealed") }),
+    params({ id: weirs }),
+  );
   expect(submitted.status).toBe(201);
   offerId = (await submitted.json()).id;
   [{ id: claimId }] = await db.select({ id: claims.id }).from(claims).where(eq(claims.offerId, offerId));
   for (const email of ["engineer@tarnwell.example", "approver@tarnwell.example"]) {
     const body = { conflict: "none", conflictedOrgIds: [], statement: "No interest in any vendor of this tender." };
-    expect((await declarePost(request(`/api/v1/tenders/${weirs}/declaration`, { method: "POST", headers: await signInAs(email), body }), params({ id: weirs }))).status).toBe(201);
+    expect(
+      (await declarePost(request(`/api/v1/tenders/${weirs}/declaration`, { method: "POST", headers: await signInAs(email), body }), params({ id: weirs })))
+        .status,
+    ).toBe(201);
   }
   expect((await cancel(weirs)).status).toBe(200);
 });
@@ -71,9 +89,15 @@ describe("a tender cancelled while open", () => {
     expect(listedOffers).toEqual([]);
     expect(await refused(getOffer(viewer, offerId))).not.toBe("read");
     expect(await refused(getClaimDetail(viewer, claimId))).not.toBe("read");
-    const queue = await listClaimQueue(viewer, { tenderId: weirs, page: 1, size: 100 }).then((q) => q.claims, () => []);
+    const queue = await listClaimQueue(viewer, { tenderId: weirs, page: 1, size: 100 }).then(
+      (q) => q.claims,
+      () => [],
+    );
     expect(queue).toEqual([]);
-    const comparison = await getComparison(viewer, weirs).then((c) => JSON.stringify(c), () => "");
+    const comparison = await getComparison(viewer, weirs).then(
+      (c) => JSON.stringify(c),
+      () => "",
+    );
     expect(comparison).not.toContain("Never unsealed");
   });
 
@@ -87,7 +111,10 @@ describe("a tender cancelled while open", () => {
   });
 
   it("does not unseal when the closing time passes later", async () => {
-    await db.update(tenders).set({ closesAt: new Date(Date.now() - 1000) }).where(eq(tenders.id, weirs));
+    await db
+      .update(tenders)
+      .set({ closesAt: new Date(Date.now() - 1000) })
+      .where(eq(tenders.id, weirs));
     await closeDueTenders(db);
     const offer = await offerGet(request(`/api/v1/offers/${offerId}`, { headers: await signInAs("buyer@tarnwell.example") }), params({ id: offerId }));
     expect(offer.status).toBe(403);

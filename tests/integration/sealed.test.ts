@@ -65,9 +65,15 @@ describe("while the tender is open", () => {
 
 describe("at closing", () => {
   it("unseals the technical offers to the buying side, with a ledger entry, and keeps prices shut", async () => {
-    await db.update(tenders).set({ closesAt: new Date(Date.now() - 1000) }).where(eq(tenders.id, weirs));
+    await db
+      .update(tenders)
+      .set({ closesAt: new Date(Date.now() - 1000) })
+      .where(eq(tenders.id, weirs));
     expect(await closeDueTenders(db)).toBe(1);
-    const [entry] = await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, weirs), eq(ledgerEntries.action, "offers.unsealed")));
+    const [entry] = await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, weirs), eq(ledgerEntries.action, "offers.unsealed")));
     expect(entry.actorLabel).toBe("system");
     expect(entry.data).toMatchObject({ offers: 1 });
 

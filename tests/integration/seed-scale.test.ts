@@ -14,9 +14,20 @@ const TINY = { tenders: 10, vendors: 6, wide: { offers: 7, points: 3 }, seed: 7 
 /** What a run wrote, without the parts that differ by nature (ids, hashes, timestamps). */
 async function fingerprint() {
   const db = await getDb();
-  const tenderRows = await db.select({ reference: tenders.reference, state: tenders.state, title: tenders.title }).from(tenders).orderBy(asc(tenders.reference));
+  const tenderRows = await db
+    .select({ reference: tenders.reference, state: tenders.state, title: tenders.title })
+    .from(tenders)
+    .orderBy(asc(tenders.reference));
   const claimRows = await db
-    .select({ reference: tenders.reference, vendor: organisations.name, point: claims.pointIndex, value: claims.value, verdict: claims.verdict, status: offers.status, version: offers.version })
+    .select({
+      reference: tenders.reference,
+      vendor: organisations.name,
+      point: claims.pointIndex,
+      value: claims.value,
+      verdict: claims.verdict,
+      status: offers.status,
+      version: offers.version,
+    })
     .from(claims)
     .innerJoin(offers, eq(offers.id, claims.offerId))
     .innerJoin(tenders, eq(tenders.id, claims.tenderId))

@@ -50,7 +50,11 @@ describe("the demo gateway tender (RC-2027-004)", () => {
   });
 
   it("has one offer per verdict, the impossible one through a curve point beyond the limit", async () => {
-    const rows = await db.select({ org: organisations.name, verdict: claims.verdict, radio: claims.radio }).from(claims).innerJoin(organisations, eq(organisations.id, claims.vendorOrgId)).where(eq(claims.tenderId, gateways.id));
+    const rows = await db
+      .select({ org: organisations.name, verdict: claims.verdict, radio: claims.radio })
+      .from(claims)
+      .innerJoin(organisations, eq(organisations.id, claims.vendorOrgId))
+      .where(eq(claims.tenderId, gateways.id));
     const by = new Map(rows.map((r) => [r.org, r]));
     expect(by.get("Oxbow Wireless")?.verdict).toBe("plausible");
     expect(by.get("Marram Telemetry")?.verdict).toBe("needs-evidence");
@@ -81,7 +85,10 @@ describe("drafting a tender in sensitivity terms (API)", () => {
   const draft = (over: Record<string, unknown> = {}) => ({
     title: "Reservoir gateway receivers",
     channelModel: "biawgn",
-    operatingPoints: [{ label: "Dam wall", value: -128, sensitivity: { bitRate: 2400, payloadBits: 200, targetPer: 1e-2 } }, { label: "Nominal", value: 3 }],
+    operatingPoints: [
+      { label: "Dam wall", value: -128, sensitivity: { bitRate: 2400, payloadBits: 200, targetPer: 1e-2 } },
+      { label: "Nominal", value: 3 },
+    ],
     targetMetric: "bler",
     targetValue: 1e-2,
     assumedNoiseFigureDb: 5,
@@ -104,7 +111,10 @@ describe("drafting a tender in sensitivity terms (API)", () => {
     expect(row.operatingPoints[1]).toEqual({ label: "Nominal", value: 3 });
     expect(row.assumedNoiseFigureDb).toBe(5);
     const plain = await post(buyer, draft({ assumedNoiseFigureDb: undefined }));
-    const [again] = await db.select().from(tenders).where(eq(tenders.id, (await plain.json()).id));
+    const [again] = await db
+      .select()
+      .from(tenders)
+      .where(eq(tenders.id, (await plain.json()).id));
     expect(again.assumedNoiseFigureDb).toBe(6);
     const changed = await tenderPatch(request(`/api/v1/tenders/${id}`, { method: "PATCH", headers: buyer, body: { assumedNoiseFigureDb: 3 } }), params({ id }));
     expect(changed.status).toBe(200);
@@ -118,10 +128,20 @@ describe("drafting a tender in sensitivity terms (API)", () => {
       expect(response.status).toBe(400);
       return (await response.json()).fieldErrors as Record<string, string[]>;
     };
-    expect(await fields(draft({ operatingPoints: [{ label: "A", value: -120, sensitivity: { bitRate: -1200, payloadBits: 160, targetPer: 1e-2 } }] }))).toHaveProperty(["operatingPoints.0.sensitivity.bitRate"]);
-    expect((await fields(draft({ operatingPoints: [{ label: "A", value: 31, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }] })))["operatingPoints.0.value"][0]).toMatch(/\+30 dBm/);
+    expect(
+      await fields(draft({ operatingPoints: [{ label: "A", value: -120, sensitivity: { bitRate: -1200, payloadBits: 160, targetPer: 1e-2 } }] })),
+    ).toHaveProperty(["operatingPoints.0.sensitivity.bitRate"]);
+    expect(
+      (await fields(draft({ operatingPoints: [{ label: "A", value: 31, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }] })))[
+        "operatingPoints.0.value"
+      ][0],
+    ).toMatch(/\+30 dBm/);
     expect((await fields(draft({ assumedNoiseFigureDb: -1 })))["assumedNoiseFigureDb"][0]).toMatch(/at least 0 dB/);
-    expect(await fields(draft({ channelModel: "bsc", operatingPoints: [{ label: "A", value: -120, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }] }))).toHaveProperty(["operatingPoints.0.sensitivity"]);
+    expect(
+      await fields(
+        draft({ channelModel: "bsc", operatingPoints: [{ label: "A", value: -120, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }] }),
+      ),
+    ).toHaveProperty(["operatingPoints.0.sensitivity"]);
   });
 });
 
@@ -129,12 +149,24 @@ describe("sensitivity offers (API)", () => {
   it("judges a sensitivity line and a curve, stores both with the engine version, the worst point and its margin", async () => {
     const vendor = await signInAs("tenders@quillfield.example");
     const body = gatewayOffer({
-      dbm: -135, noiseFigureDb: 3, modulation: "qpsk", n: 320, k: 160,
-      curve: [{ x: -138, unit: "dBm", metric: "per", value: 1e-1 }, { x: 0.5, unit: "ebn0Db", metric: "bler", value: 1e-2 }, { x: 4, unit: "ebn0Db", metric: "ber", value: 1e-5 }],
+      dbm: -135,
+      noiseFigureDb: 3,
+      modulation: "qpsk",
+      n: 320,
+      k: 160,
+      curve: [
+        { x: -138, unit: "dBm", metric: "per", value: 1e-1 },
+        { x: 0.5, unit: "ebn0Db", metric: "bler", value: 1e-2 },
+        { x: 4, unit: "ebn0Db", metric: "ber", value: 1e-5 },
+      ],
     });
     const response = await submit(vendor, gateways.id, body);
     expect(response.status).toBe(201);
-    const [row] = await db.select().from(claims).innerJoin(offers, eq(offers.id, claims.offerId)).where(eq(offers.id, (await response.json()).id));
+    const [row] = await db
+      .select()
+      .from(claims)
+      .innerJoin(offers, eq(offers.id, claims.offerId))
+      .where(eq(offers.id, (await response.json()).id));
     const radio = row.claims.radio as RadioClaim;
     expect(radio.curve).toHaveLength(3);
     // 0.5 dB is below the 1959 bound for (320, 160) at BLER 1e-2 (about 1.1 dB): beyond the limit.
@@ -156,7 +188,9 @@ describe("sensitivity offers (API)", () => {
     };
     expect(await fields(gatewayOffer({ dbm: 31 }))).toContain("claims.0.sensitivity.dbm");
     expect(await fields(gatewayOffer({ dbm: -130, noiseFigureDb: -1 }))).toContain("claims.0.sensitivity.noiseFigureDb");
-    expect(await fields(gatewayOffer({ dbm: -130, curve: [{ x: -130, unit: "dBm", metric: "per", value: 2 }] }))).toContain("claims.0.sensitivity.curve.0.value");
+    expect(await fields(gatewayOffer({ dbm: -130, curve: [{ x: -130, unit: "dBm", metric: "per", value: 2 }] }))).toContain(
+      "claims.0.sensitivity.curve.0.value",
+    );
     expect(await fields(gatewayOffer({ dbm: -130, n: 320 }))).toContain("claims.0.sensitivity.k");
     const missing = await submit(vendor, gateways.id, { ...gatewayOffer({}), claims: [{ pointIndex: 0, metric: "bler", value: 1e-2 }] });
     expect(missing.status).toBe(400);
@@ -182,7 +216,10 @@ describe("sensitivity offers (server action)", () => {
 describe("the comparison of a sensitivity tender", () => {
   it("scores each claim on its worst point's margin, shows the margin in dB with where it lies, and holds the line to the buyer's level", async () => {
     // Close the gateway tender (it closes on read) so that its offers are unsealed to the buyer.
-    await db.update(tenders).set({ closesAt: new Date(Date.now() - 60_000) }).where(eq(tenders.id, gateways.id));
+    await db
+      .update(tenders)
+      .set({ closesAt: new Date(Date.now() - 60_000) })
+      .where(eq(tenders.id, gateways.id));
     const buyer = await signInAs("buyer@tarnwell.example");
     const response = await comparisonGet(request(`/api/v1/tenders/${gateways.id}/comparison`, { headers: buyer }), params({ id: gateways.id }));
     expect(response.status).toBe(200);

@@ -42,8 +42,7 @@ const cookiesOf = (response: Response) =>
     .map((c) => c.split(";")[0])
     .join("; ");
 
-const formHeaders = (address: string, cookie?: string) =>
-  new Headers({ origin: BASE, "x-forwarded-for": address, ...(cookie ? { cookie } : {}) });
+const formHeaders = (address: string, cookie?: string) => new Headers({ origin: BASE, "x-forwarded-for": address, ...(cookie ? { cookie } : {}) });
 
 async function failTimes(email: string, times: number, address: string) {
   for (let i = 0; i < times; i++) expect((await endpointSignIn(email, `wrong-${i}-pass`, { address })).status).toBe(401);
@@ -106,7 +105,9 @@ describe("the account lockout", () => {
     const wrong = await endpointSignIn("tenders@quillfield.example", "not-the-password", { address });
     expect(wrong.status).toBe(401);
     expect(JSON.stringify(await wrong.json())).not.toMatch(/deactivated/);
-    await expect(signIn({ email: "tenders@quillfield.example", password: "not-the-password" }, formHeaders(address))).rejects.toThrow("Wrong e-mail or password.");
+    await expect(signIn({ email: "tenders@quillfield.example", password: "not-the-password" }, formHeaders(address))).rejects.toThrow(
+      "Wrong e-mail or password.",
+    );
     const right = await endpointSignIn("tenders@quillfield.example", DEMO_PASSWORD, { address });
     expect(right.status).toBe(403);
     expect((await right.json()).message).toMatch(/deactivated/);

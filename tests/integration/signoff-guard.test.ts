@@ -19,13 +19,17 @@ const statement = { statement: "Every claim reviewed against the bounds and the 
 
 beforeAll(async () => {
   db = await freshDatabase();
-  for (const [key, email] of Object.entries({ engineer: "engineer@tarnwell.example", director: "director@tarnwell.example", buyer: "buyer@tarnwell.example" })) {
+  for (const [key, email] of Object.entries({
+    engineer: "engineer@tarnwell.example",
+    director: "director@tarnwell.example",
+    buyer: "buyer@tarnwell.example",
+  })) {
     as[key] = await signInAs(email);
   }
 });
 afterAll(closeDb);
 
-const post = <T,>(handler: (r: Request, c: { params: Promise<{ id: string }> }) => Promise<Response>, url: string, who: string, id: string, body: T) =>
+const post = <T>(handler: (r: Request, c: { params: Promise<{ id: string }> }) => Promise<Response>, url: string, who: string, id: string, body: T) =>
   handler(request(url, { method: "POST", headers: as[who], body }), params({ id }));
 const declare = (who: string, tenderId: string) =>
   post(declarePost, `/api/v1/tenders/${tenderId}/declaration`, who, tenderId, { conflict: "none", statement: "No ties to any invited vendor." });
@@ -33,7 +37,12 @@ const sign = (who: string, tenderId: string) => post(signPost, `/api/v1/tenders/
 const mark = (who: string, claimId: string, body: unknown) => post(markPost, `/api/v1/claims/${claimId}/marks`, who, claimId, body);
 const stateOf = async (id: string) => (await db.select().from(tenders).where(eq(tenders.id, id)))[0].state;
 const ledgerFor = async (tenderId: string, action: string) =>
-  (await db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, tenderId), eq(ledgerEntries.action, action)))).length;
+  (
+    await db
+      .select()
+      .from(ledgerEntries)
+      .where(and(eq(ledgerEntries.tenderId, tenderId), eq(ledgerEntries.action, action)))
+  ).length;
 
 async function technicalTender(offers: Parameters<typeof createCommercialTender>[1]["offers"], safetyRelevant = false) {
   const fixture = await createCommercialTender(db, { offers, signed: false });
@@ -52,9 +61,14 @@ describe("accepting a claim the engine proved impossible", () => {
     expect(bare.status).toBe(400);
     expect((await bare.json()).error).toMatch(/write a justification of at least 40 characters/);
     expect((await db.select().from(marks).where(eq(marks.claimId, claimId))).length).toBe(before);
-    const justified = await mark("engineer", claimId, { mark: "accepted", comment: "The vendor's lab report shows the stated frame length was a typo; the real one is longer." });
+    const justified = await mark("engineer", claimId, {
+      mark: "accepted",
+      comment: "The vendor's lab report shows the stated frame length was a typo; the real one is longer.",
+    });
     expect(justified.status).toBe(201);
-    const comparison: Comparison = await (await comparisonGet(request(`/api/v1/tenders/${fx.tenderId}/comparison`, { headers: as.buyer }), params({ id: fx.tenderId }))).json();
+    const comparison: Comparison = await (
+      await comparisonGet(request(`/api/v1/tenders/${fx.tenderId}/comparison`, { headers: as.buyer }), params({ id: fx.tenderId }))
+    ).json();
     const wren = comparison.sheet.offers.find((o) => o.vendorName.startsWith("Wren"))!;
     expect(wren.flags.join(" ")).toMatch(/Accepted although the engine found it impossible \(Storm fade\)/);
   });
@@ -64,7 +78,10 @@ describe("the technical sign-off guard", () => {
   it("is refused while a question waits, and allowed once it is closed with a reason", async () => {
     const fx = await technicalTender([honest("Ash", 40, 8, 24)]);
     const claimId = fx.claimIds[0][0];
-    const asked = await post(threadPost, `/api/v1/claims/${claimId}/threads`, "engineer", claimId, { subject: "Interleaver depth", body: "Which interleaver depth was used?" });
+    const asked = await post(threadPost, `/api/v1/claims/${claimId}/threads`, "engineer", claimId, {
+      subject: "Interleaver depth",
+      body: "Which interleaver depth was used?",
+    });
     expect(asked.status).toBe(201);
     const threadId = (await asked.json()).id;
     const refused = await sign("engineer", fx.tenderId);
@@ -79,7 +96,9 @@ describe("the technical sign-off guard", () => {
     expect(closed.status).toBe(200);
     expect((await closed.json()).closeReason).toBe("Answered in the datasheet, section 4.");
     expect(await ledgerFor(fx.tenderId, "thread.closed")).toBe(1);
-    expect((await post(closePost, `/api/v1/threads/${threadId}/close`, "engineer", threadId, { reason: "Answered in the datasheet, section 4." })).status).toBe(409);
+    expect((await post(closePost, `/api/v1/threads/${threadId}/close`, "engineer", threadId, { reason: "Answered in the datasheet, section 4." })).status).toBe(
+      409,
+    );
     expect((await sign("engineer", fx.tenderId)).status).toBe(201);
     expect(await stateOf(fx.tenderId)).toBe("commercial");
   });
@@ -100,7 +119,13 @@ describe("a safety-relevant tender", () => {
     expect(refused.status).toBe(409);
     expect((await refused.json()).error).toMatch(/safety-relevant: 1 accepted claim has no lab run that verifies it/);
     const claimId = fx.claimIds[0][1];
-    const run = await post(evidencePost, `/api/v1/claims/${claimId}/evidence`, "engineer", claimId, { channelValue: 5e-3, unit: "frames", trials: 2_000_000, errors: 0, confidence: 0.95 });
+    const run = await post(evidencePost, `/api/v1/claims/${claimId}/evidence`, "engineer", claimId, {
+      channelValue: 5e-3,
+      unit: "frames",
+      trials: 2_000_000,
+      errors: 0,
+      confidence: 0.95,
+    });
     expect((await run.json()).status).toBe("verified");
 
     expect((await sign("engineer", fx.tenderId)).status).toBe(201);

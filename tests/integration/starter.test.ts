@@ -12,7 +12,12 @@ function start(mode: "dev" | "start", env: Record<string, string>) {
   const clean = Object.fromEntries(
     Object.entries(process.env).filter(([name]) => !/^(NODE_ENV|DEMO|SEED|BETTER_AUTH_|LEDGER_KEY|SMTP_|MAIL_|S3_|DB_MEMORY|DATABASE_URL)/.test(name)),
   );
-  const result = spawnSync(tsx, ["lib/runtime/start.ts", mode], { cwd: root, env: { ...clean, ...env } as NodeJS.ProcessEnv, encoding: "utf8", timeout: 60_000 });
+  const result = spawnSync(tsx, ["lib/runtime/start.ts", mode], {
+    cwd: root,
+    env: { ...clean, ...env } as NodeJS.ProcessEnv,
+    encoding: "utf8",
+    timeout: 60_000,
+  });
   return { code: result.status, output: `${result.stdout}${result.stderr}` };
 }
 
@@ -22,7 +27,17 @@ describe("the starter", () => {
   it("refuses a production start without its settings, naming each one", () => {
     const { code, output } = start("start", { DATA_DIR: dataDir });
     expect(code).toBe(1);
-    for (const name of ["BETTER_AUTH_SECRET", "BETTER_AUTH_URL", "LEDGER_KEY", "SMTP_URL", "MAIL_FROM", "S3_ENDPOINT", "S3_BUCKET", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"]) {
+    for (const name of [
+      "BETTER_AUTH_SECRET",
+      "BETTER_AUTH_URL",
+      "LEDGER_KEY",
+      "SMTP_URL",
+      "MAIL_FROM",
+      "S3_ENDPOINT",
+      "S3_BUCKET",
+      "S3_ACCESS_KEY_ID",
+      "S3_SECRET_ACCESS_KEY",
+    ]) {
       expect(output).toContain(`${name}:`);
     }
     expect(output).toContain("DEMO=1");

@@ -200,7 +200,12 @@ describe("startLocalServices", () => {
   });
 
   it("starts nothing for services the settings already name", async () => {
-    const restore = setEnv({ SMTP_URL: "smtp://127.0.0.1:1", S3_ENDPOINT: fake.endpoint, S3_ACCESS_KEY_ID: credentials.accessKeyId, S3_SECRET_ACCESS_KEY: credentials.secretAccessKey });
+    const restore = setEnv({
+      SMTP_URL: "smtp://127.0.0.1:1",
+      S3_ENDPOINT: fake.endpoint,
+      S3_ACCESS_KEY_ID: credentials.accessKeyId,
+      S3_SECRET_ACCESS_KEY: credentials.secretAccessKey,
+    });
     recordLocalEndpoints({ objectStore: undefined });
     const services = await startLocalServices({ dataDir: path.join(folder, "data2"), s3Port: 0 });
     try {
@@ -216,7 +221,19 @@ describe("startLocalServices", () => {
   });
 
   it("never starts in production without DEMO: there the settings name the services", async () => {
-    const restore = setEnv({ NODE_ENV: "production", DEMO: undefined, BETTER_AUTH_SECRET: "x".repeat(32), BETTER_AUTH_URL: "https://rc.example.org", LEDGER_KEY: "l".repeat(32), SMTP_URL: "smtp://127.0.0.1:1", MAIL_FROM: "rc@example.org", S3_ENDPOINT: "http://127.0.0.1:1", S3_BUCKET: "rc-bucket", S3_ACCESS_KEY_ID: "k", S3_SECRET_ACCESS_KEY: "s" });
+    const restore = setEnv({
+      NODE_ENV: "production",
+      DEMO: undefined,
+      BETTER_AUTH_SECRET: "x".repeat(32),
+      BETTER_AUTH_URL: "https://rc.example.org",
+      LEDGER_KEY: "l".repeat(32),
+      SMTP_URL: "smtp://127.0.0.1:1",
+      MAIL_FROM: "rc@example.org",
+      S3_ENDPOINT: "http://127.0.0.1:1",
+      S3_BUCKET: "rc-bucket",
+      S3_ACCESS_KEY_ID: "k",
+      S3_SECRET_ACCESS_KEY: "s",
+    });
     try {
       await expect(startLocalServices({ dataDir: path.join(folder, "prod") })).rejects.toThrow(/only in demo mode/);
       expect(existsSync(objectStoreCredentialsFile(path.join(folder, "prod")))).toBe(false);

@@ -33,7 +33,8 @@ beforeAll(async () => {
     admin: "admin@tarnwell.example",
     kestrelink: "sales@kestrelink.example",
     oxbow: "bids@oxbow.example",
-  })) as[key] = await signInAs(email);
+  }))
+    as[key] = await signInAs(email);
 });
 afterAll(async () => {
   await flushMail();
@@ -48,7 +49,10 @@ const draftBody = (extra: Record<string, unknown> = {}) => ({
   title: "Culvert sensor radios",
   description: "Radios for culvert water-level sensors.",
   channelModel: "bsc",
-  operatingPoints: [{ label: "Clear", value: 1e-3 }, { label: "Fade", value: 4e-3 }],
+  operatingPoints: [
+    { label: "Clear", value: 1e-3 },
+    { label: "Fade", value: 4e-3 },
+  ],
   targetMetric: "bler",
   targetValue: 1e-4,
   maxFrameBits: 1024,
@@ -71,7 +75,10 @@ const cancel = (headers: Headers, id: string, body: unknown) =>
 const get = (headers: Headers, id: string) => tenderGet(request(`/api/v1/tenders/${id}`, { headers }), params({ id }));
 const row = async (id: string) => (await db.select().from(tenders).where(eq(tenders.id, id)))[0];
 const entries = (tenderId: string, action: string) =>
-  db.select().from(ledgerEntries).where(and(eq(ledgerEntries.tenderId, tenderId), eq(ledgerEntries.action, action)));
+  db
+    .select()
+    .from(ledgerEntries)
+    .where(and(eq(ledgerEntries.tenderId, tenderId), eq(ledgerEntries.action, action)));
 const tenderCount = async () => (await db.select().from(tenders)).length;
 
 async function createDraft(extra: Record<string, unknown> = {}): Promise<string> {
@@ -125,7 +132,14 @@ describe("drafting a tender", () => {
 
   it("answers 400 naming the fields, and 401 when signed out", async () => {
     const before = await tenderCount();
-    const response = await post(as.buyer, draftBody({ currency: "euro", operatingPoints: [{ label: "x", value: 0.7 }], weights: { technical: 0, evidence: 0, price: 0, leadTime: 0, warranty: 0 } }));
+    const response = await post(
+      as.buyer,
+      draftBody({
+        currency: "euro",
+        operatingPoints: [{ label: "x", value: 0.7 }],
+        weights: { technical: 0, evidence: 0, price: 0, leadTime: 0, warranty: 0 },
+      }),
+    );
     expect(response.status).toBe(400);
     expect(Object.keys((await response.json()).fieldErrors)).toEqual(expect.arrayContaining(["currency", "operatingPoints.0.value", "weights"]));
     expect((await post(new Headers(), draftBody())).status).toBe(401);
@@ -179,7 +193,12 @@ describe("opening a tender", () => {
 
     await flushMail();
     const mail = listCapturedMail().filter((m) => m.subject.includes(stored.reference));
-    expect(mail.map((m) => m.to).flat().sort()).toEqual(["offers@marram.example", "sales@kestrelink.example"]);
+    expect(
+      mail
+        .map((m) => m.to)
+        .flat()
+        .sort(),
+    ).toEqual(["offers@marram.example", "sales@kestrelink.example"]);
     expect(mail[0].subject).toContain("Culvert sensor radios");
     expect(mail[0].text).toContain("(Europe/Berlin)");
     expect(mail[0].text).toContain(`/tenders/${id}`);
@@ -249,7 +268,12 @@ describe("cancelling a tender", () => {
 
     await flushMail();
     const mail = listCapturedMail().filter((m) => m.subject.includes(stored.reference));
-    expect(mail.map((m) => m.to).flat().sort()).toEqual(["buyer@tarnwell.example", "offers@marram.example", "sales@kestrelink.example"]);
+    expect(
+      mail
+        .map((m) => m.to)
+        .flat()
+        .sort(),
+    ).toEqual(["buyer@tarnwell.example", "offers@marram.example", "sales@kestrelink.example"]);
     expect(mail[0].text).toContain("postponed a year");
     expect((await cancel(as.buyer, id, { reason: "Cancelling it a second time." })).status).toBe(409);
   });
@@ -261,7 +285,10 @@ describe("closing on time", () => {
     await open(as.buyer, id);
     const later = await createDraft();
     await open(as.buyer, later);
-    await db.update(tenders).set({ closesAt: new Date(Date.now() - 1000) }).where(eq(tenders.id, id));
+    await db
+      .update(tenders)
+      .set({ closesAt: new Date(Date.now() - 1000) })
+      .where(eq(tenders.id, id));
 
     expect(await closeDueTenders(db)).toBe(1);
     expect((await row(id)).state).toBe("technical");
@@ -275,7 +302,10 @@ describe("closing on time", () => {
   it("closes on read: the list itself moves a tender whose time has come", async () => {
     const id = await createDraft();
     await open(as.buyer, id);
-    await db.update(tenders).set({ closesAt: new Date(Date.now() - 1000) }).where(eq(tenders.id, id));
+    await db
+      .update(tenders)
+      .set({ closesAt: new Date(Date.now() - 1000) })
+      .where(eq(tenders.id, id));
     const list = await (await listGet(request("/api/v1/tenders?size=100", { headers: as.engineer }), undefined)).json();
     expect(list.tenders.find((t: { id: string }) => t.id === id)?.state).toBe("technical");
     expect(await entries(id, "tender.closed")).toHaveLength(1);
@@ -286,7 +316,10 @@ describe("closing on read of one tender", () => {
   it("closes a tender whose time has come when it alone is read, once, and then reads it closed", async () => {
     const id = await createDraft();
     await open(as.buyer, id);
-    await db.update(tenders).set({ closesAt: new Date(Date.now() - 1000) }).where(eq(tenders.id, id));
+    await db
+      .update(tenders)
+      .set({ closesAt: new Date(Date.now() - 1000) })
+      .where(eq(tenders.id, id));
     const [first, second] = await Promise.all([get(as.engineer, id), get(as.buyer, id)]);
     expect((await first.json()).state).toBe("technical");
     expect((await second.json()).state).toBe("technical");

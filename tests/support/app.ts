@@ -9,9 +9,7 @@ export const BASE = process.env.BETTER_AUTH_URL ?? "http://localhost:3000";
 export async function freshDatabase() {
   const db = await getDb();
   if (process.env.DATABASE_URL) {
-    const { rows } = (await db.execute(
-      sql`select tablename from pg_tables where schemaname = 'public'`,
-    )) as unknown as { rows: { tablename: string }[] };
+    const { rows } = (await db.execute(sql`select tablename from pg_tables where schemaname = 'public'`)) as unknown as { rows: { tablename: string }[] };
     const names = rows.map((r) => `"${r.tablename}"`).join(", ");
     if (names) await db.execute(sql.raw(`truncate ${names} restart identity cascade`));
     await seedDemoData(db);

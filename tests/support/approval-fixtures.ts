@@ -42,7 +42,12 @@ export async function ensureDemoBands(db: Db) {
 
 function sheetFor(quantity: number, offerIds: string[]): ScoreSheet {
   const line = (criterion: OfferScore["lines"][number]["criterion"], normalised: number | null, rawText: string) => ({
-    criterion, raw: null, rawText, normalised, weight: WEIGHTS[criterion], contribution: normalised === null ? null : (normalised * WEIGHTS[criterion]) / 100,
+    criterion,
+    raw: null,
+    rawText,
+    normalised,
+    weight: WEIGHTS[criterion],
+    contribution: normalised === null ? null : (normalised * WEIGHTS[criterion]) / 100,
   });
   return {
     tenderReference: "fixture",
@@ -92,10 +97,18 @@ export interface ApprovalFixture {
 let sequence = 100;
 
 /** A tender in approval with a pending recommendation of the winner (Kestrelink) at the given value. */
-export async function createApprovalFixture(db: Db, options: { value: number; storeRule?: boolean } ): Promise<ApprovalFixture> {
+export async function createApprovalFixture(db: Db, options: { value: number; storeRule?: boolean }): Promise<ApprovalFixture> {
   await ensureDemoBands(db);
   const ids = await idsByEmail(db);
-  const orgRows = await db.select().from(organisations).where(inArray(organisations.name, FIXTURE_OFFERS.map((o) => o.org)));
+  const orgRows = await db
+    .select()
+    .from(organisations)
+    .where(
+      inArray(
+        organisations.name,
+        FIXTURE_OFFERS.map((o) => o.org),
+      ),
+    );
   const orgIds = FIXTURE_OFFERS.map((o) => orgRows.find((r) => r.name === o.org)!.id);
   const reference = `RC-2099-${++sequence}`;
   const title = `Fixture gauge radios ${sequence}`;
@@ -103,10 +116,24 @@ export async function createApprovalFixture(db: Db, options: { value: number; st
   const [tender] = await db
     .insert(tenders)
     .values({
-      reference, title, description: "Radios for an invented fixture.", state: "approval", channelModel: "bsc", operatingPoints: POINTS,
-      targetMetric: "bler", targetValue: 1e-4, maxFrameBits: 2048, quantity: 4000, currency: "EUR", weights: WEIGHTS,
-      closesAt: new Date(now - 9 * 86_400_000), closesZone: "Europe/London", openedAt: new Date(now - 40 * 86_400_000),
-      technicalSignedAt: new Date(now - 5 * 86_400_000), envelopesOpenedAt: new Date(now - 4 * 86_400_000), createdBy: ids.buyer,
+      reference,
+      title,
+      description: "Radios for an invented fixture.",
+      state: "approval",
+      channelModel: "bsc",
+      operatingPoints: POINTS,
+      targetMetric: "bler",
+      targetValue: 1e-4,
+      maxFrameBits: 2048,
+      quantity: 4000,
+      currency: "EUR",
+      weights: WEIGHTS,
+      closesAt: new Date(now - 9 * 86_400_000),
+      closesZone: "Europe/London",
+      openedAt: new Date(now - 40 * 86_400_000),
+      technicalSignedAt: new Date(now - 5 * 86_400_000),
+      envelopesOpenedAt: new Date(now - 4 * 86_400_000),
+      createdBy: ids.buyer,
     })
     .returning();
   await db.insert(tenderInvitations).values(orgIds.map((organisationId) => ({ tenderId: tender.id, organisationId })));
@@ -117,8 +144,20 @@ export async function createApprovalFixture(db: Db, options: { value: number; st
     const [offer] = await db
       .insert(offers)
       .values({
-        tenderId: tender.id, vendorOrgId: orgIds[i], version: 1, moduleName: o.module, partNumber: `P-${i + 1}`, codeFamily: "LDPC",
-        decision: "hard", n: o.n, k: o.k, rate: o.k / o.n, unitPrice: o.unitPrice, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24,
+        tenderId: tender.id,
+        vendorOrgId: orgIds[i],
+        version: 1,
+        moduleName: o.module,
+        partNumber: `P-${i + 1}`,
+        codeFamily: "LDPC",
+        decision: "hard",
+        n: o.n,
+        k: o.k,
+        rate: o.k / o.n,
+        unitPrice: o.unitPrice,
+        currency: "EUR",
+        leadTimeWeeks: 8,
+        warrantyMonths: 24,
         submittedBy: vendorUsers.find((u) => u.organisationId === orgIds[i])!.id,
       })
       .returning();
@@ -126,12 +165,28 @@ export async function createApprovalFixture(db: Db, options: { value: number; st
     for (const [pointIndex, point] of POINTS.entries()) {
       const result = evaluateClaim({ channel: { model: "bsc", p: point.value }, code: { n: o.n, k: o.k }, target: { metric: "bler", value: 1e-4 } });
       await db.insert(claims).values({
-        offerId: offer.id, tenderId: tender.id, vendorOrgId: orgIds[i], pointIndex, pointLabel: point.label, channelValue: point.value,
-        metric: "bler", value: 1e-4, verdict: result.verdict, result: result as unknown as Record<string, unknown>, engineVersion: result.engineVersion,
+        offerId: offer.id,
+        tenderId: tender.id,
+        vendorOrgId: orgIds[i],
+        pointIndex,
+        pointLabel: point.label,
+        channelValue: point.value,
+        metric: "bler",
+        value: 1e-4,
+        verdict: result.verdict,
+        result: result as unknown as Record<string, unknown>,
+        engineVersion: result.engineVersion,
       });
     }
   }
-  const recommendationId = await insertRecommendation(db, { tenderId: tender.id, offerId: offerIds[0], value: options.value, preparedBy: ids.buyer, offerIds, storeRule: options.storeRule });
+  const recommendationId = await insertRecommendation(db, {
+    tenderId: tender.id,
+    offerId: offerIds[0],
+    value: options.value,
+    preparedBy: ids.buyer,
+    offerIds,
+    storeRule: options.storeRule,
+  });
   return { tenderId: tender.id, reference, title, recommendationId, offerIds, orgIds, value: options.value };
 }
 
@@ -143,9 +198,15 @@ export async function insertRecommendation(
   const [rec] = await db
     .insert(recommendations)
     .values({
-      tenderId: r.tenderId, offerId: r.offerId, quantity: 4000, value: r.value, currency: "EUR",
+      tenderId: r.tenderId,
+      offerId: r.offerId,
+      quantity: 4000,
+      value: r.value,
+      currency: "EUR",
       justification: r.justification ?? "Best total score; honest claims at both operating points.",
-      status: "pending", scoreSheet: sheetFor(4000, r.offerIds) as unknown as Record<string, unknown>, preparedBy: r.preparedBy,
+      status: "pending",
+      scoreSheet: sheetFor(4000, r.offerIds) as unknown as Record<string, unknown>,
+      preparedBy: r.preparedBy,
       ...(r.storeRule ? { approvalsNeeded: r.value >= 250_000 ? 2 : 1, minApproverLimit: r.value >= 50_000 ? 250_000 : 50_000 } : {}),
     })
     .returning();

@@ -56,9 +56,11 @@ const userId = async (db: Db, email: string) => (await db.select({ id: users.id 
 /** A run whose Clopper-Pearson assessment gives the wanted status against claimed rate q. */
 function runFor(status: EvidenceStatus, q: number) {
   const counts =
-    status === "verified" ? { errors: 0, trials: Math.ceil(4 / q) }
-    : status === "contradicted" ? { errors: 100, trials: Math.ceil(10 / q) }
-    : { errors: 0, trials: 10 };
+    status === "verified"
+      ? { errors: 0, trials: Math.ceil(4 / q) }
+      : status === "contradicted"
+        ? { errors: 100, trials: Math.ceil(10 / q) }
+        : { errors: 0, trials: 10 };
   const result = assessEvidence({ ...counts, claimed: q, confidence: 0.95 });
   if (result.status !== status) throw new Error(`fixture run is ${result.status}, wanted ${status}`);
   return { ...counts, result };
@@ -105,7 +107,10 @@ export async function createCommercialTender(db: Db, options: FixtureOptions): P
 
   const fixture: Fixture = { tenderId: tender.id, offerIds: [], claimIds: [], vendorOrgIds: [] };
   for (const spec of options.offers) {
-    const [org] = await db.insert(organisations).values({ name: `${spec.vendor} (${reference})`, kind: "vendor" }).returning();
+    const [org] = await db
+      .insert(organisations)
+      .values({ name: `${spec.vendor} (${reference})`, kind: "vendor" })
+      .returning();
     const vendorUser = await db
       .insert(users)
       .values({ name: `${spec.vendor} sales`, email: `sales-${org.id}@vendor.example`, organisationId: org.id })
@@ -154,7 +159,9 @@ export async function createCommercialTender(db: Db, options: FixtureOptions): P
         .returning();
       ids.push(claim.id);
       const base = { claimId: claim.id, tenderId: tender.id, vendorOrgId: org.id };
-      await db.insert(marks).values({ ...base, mark: c.mark ?? "accepted", comment: c.mark && c.mark !== "accepted" ? "Fixture mark." : "", markedBy: engineerId });
+      await db
+        .insert(marks)
+        .values({ ...base, mark: c.mark ?? "accepted", comment: c.mark && c.mark !== "accepted" ? "Fixture mark." : "", markedBy: engineerId });
       if (c.evidence) {
         const run = runFor(c.evidence, c.value);
         await db.insert(evidenceRuns).values({

@@ -42,7 +42,10 @@ export interface ReviewFixtures {
  */
 export async function reviewFixtures(db: Db): Promise<ReviewFixtures> {
   const [tender] = await db.select().from(tenders).where(eq(tenders.reference, "RC-2027-001"));
-  const orgRows = await db.select().from(organisations).where(inArray(organisations.name, Object.values(NAMES)));
+  const orgRows = await db
+    .select()
+    .from(organisations)
+    .where(inArray(organisations.name, Object.values(NAMES)));
   const orgIds = Object.fromEntries(VENDORS.map((v) => [v, orgRows.find((o) => o.name === NAMES[v])!.id])) as Record<VendorKey, string>;
   const existing = await db.select({ id: claims.id }).from(claims).where(eq(claims.tenderId, tender.id));
   if (existing.length === 0) {
@@ -52,18 +55,40 @@ export async function reviewFixtures(db: Db): Promise<ReviewFixtures> {
       const [offer] = await db
         .insert(offers)
         .values({
-          tenderId: tender.id, vendorOrgId: orgIds[vendor], version: 1, moduleName: `${NAMES[vendor]} G-${code.n}`,
-          partNumber: `${vendor.slice(0, 3).toUpperCase()}-${code.n}`, codeFamily: "LDPC", decision: "hard", n: code.n, k: code.k,
-          rate: code.k / code.n, overhead: code.n / code.k - 1, unitPrice: code.price, currency: "EUR", leadTimeWeeks: 8,
-          warrantyMonths: 24, priceBreaks: [{ minQuantity: 2000, unitPrice: code.price - 2 }], submittedBy: submitter.id,
+          tenderId: tender.id,
+          vendorOrgId: orgIds[vendor],
+          version: 1,
+          moduleName: `${NAMES[vendor]} G-${code.n}`,
+          partNumber: `${vendor.slice(0, 3).toUpperCase()}-${code.n}`,
+          codeFamily: "LDPC",
+          decision: "hard",
+          n: code.n,
+          k: code.k,
+          rate: code.k / code.n,
+          overhead: code.n / code.k - 1,
+          unitPrice: code.price,
+          currency: "EUR",
+          leadTimeWeeks: 8,
+          warrantyMonths: 24,
+          priceBreaks: [{ minQuantity: 2000, unitPrice: code.price - 2 }],
+          submittedBy: submitter.id,
         })
         .returning();
       for (const [pointIndex, point] of tender.operatingPoints.entries()) {
         const value = code.bler[pointIndex];
         const result = evaluateClaim({ channel: { model: "bsc", p: point.value }, code: { n: code.n, k: code.k }, target: { metric: "bler", value } });
         await db.insert(claims).values({
-          offerId: offer.id, tenderId: tender.id, vendorOrgId: orgIds[vendor], pointIndex, pointLabel: point.label,
-          channelValue: point.value, metric: "bler", value, verdict: result.verdict, result, engineVersion: result.engineVersion,
+          offerId: offer.id,
+          tenderId: tender.id,
+          vendorOrgId: orgIds[vendor],
+          pointIndex,
+          pointLabel: point.label,
+          channelValue: point.value,
+          metric: "bler",
+          value,
+          verdict: result.verdict,
+          result,
+          engineVersion: result.engineVersion,
         });
       }
     }
@@ -74,9 +99,10 @@ export async function reviewFixtures(db: Db): Promise<ReviewFixtures> {
     .innerJoin(offers, eq(offers.id, claims.offerId))
     .where(and(eq(claims.tenderId, tender.id), eq(offers.status, "submitted")))
     .orderBy(claims.pointIndex);
-  const claimIds = Object.fromEntries(
-    VENDORS.map((v) => [v, rows.filter((r) => r.claim.vendorOrgId === orgIds[v]).map((r) => r.claim.id)]),
-  ) as Record<VendorKey, string[]>;
+  const claimIds = Object.fromEntries(VENDORS.map((v) => [v, rows.filter((r) => r.claim.vendorOrgId === orgIds[v]).map((r) => r.claim.id)])) as Record<
+    VendorKey,
+    string[]
+  >;
   const needs = rows.find((r) => r.claim.vendorOrgId === orgIds.marram && r.claim.verdict === "needs-evidence");
   return { tenderId: tender.id, orgIds, claimIds, evidenceClaimId: needs?.claim.id ?? claimIds.marram[0] };
 }

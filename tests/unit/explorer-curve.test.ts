@@ -9,12 +9,17 @@ import { explorerIssues, explorerSchema, parseCurveText } from "@/lib/validation
 describe("the energy-limit curve (PPV 2011 converse solved for the BLER)", () => {
   it("inverts the converse's least Eb/N0, and falls as Eb/N0 grows", () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 1_000_000 }), fc.double({ min: Math.log(1e-30), max: Math.log(0.3), noNaN: true }), fc.double({ min: 0.01, max: 3, noNaN: true }), (k, lnEps, d) => {
-        const db = energyConverseEbn0Db(k, lnEps);
-        if (db === null) return;
-        expect(Math.abs(energyConverseLogBler(k, db) - lnEps)).toBeLessThan(1e-9 * Math.max(1, -lnEps));
-        expect(energyConverseLogBler(k, db + d)).toBeLessThan(energyConverseLogBler(k, db));
-      }),
+      fc.property(
+        fc.integer({ min: 1, max: 1_000_000 }),
+        fc.double({ min: Math.log(1e-30), max: Math.log(0.3), noNaN: true }),
+        fc.double({ min: 0.01, max: 3, noNaN: true }),
+        (k, lnEps, d) => {
+          const db = energyConverseEbn0Db(k, lnEps);
+          if (db === null) return;
+          expect(Math.abs(energyConverseLogBler(k, db) - lnEps)).toBeLessThan(1e-9 * Math.max(1, -lnEps));
+          expect(energyConverseLogBler(k, db + d)).toBeLessThan(energyConverseLogBler(k, db));
+        },
+      ),
       { numRuns: 80, seed: 2011 },
     );
   });
@@ -29,16 +34,28 @@ describe("the energy-limit curve (PPV 2011 converse solved for the BLER)", () =>
 
 describe("a vendor curve in the explorer's address", () => {
   it("parses Eb/N0:rate pairs, separated by commas or semicolons", () => {
-    expect(parseCurveText(" 1.5:1e-2, 2 : 1E-4;2.5:3e-7 ")).toEqual({ points: [{ ebn0Db: 1.5, value: 1e-2 }, { ebn0Db: 2, value: 1e-4 }, { ebn0Db: 2.5, value: 3e-7 }] });
+    expect(parseCurveText(" 1.5:1e-2, 2 : 1E-4;2.5:3e-7 ")).toEqual({
+      points: [
+        { ebn0Db: 1.5, value: 1e-2 },
+        { ebn0Db: 2, value: 1e-4 },
+        { ebn0Db: 2.5, value: 3e-7 },
+      ],
+    });
     expect(parseCurveText("")).toEqual({ points: [] });
   });
   it("says what is wrong with a bad point, in words", () => {
     expect(explorerIssues(explorerSchema.safeParse({ model: "biawgn", curve: "1.5:1e-2, 2-1e-4" }).error!)).toEqual([
       'Vendor curve point 2 ("2-1e-4") must be written as Eb/N0 in dB, a colon and the error rate, e.g. 2.5:1e-4.',
     ]);
-    expect(explorerIssues(explorerSchema.safeParse({ model: "biawgn", curve: "1:0.7" }).error!)).toEqual(["Vendor curve point 1 must have an error rate above 0 and below 0.5."]);
-    expect(explorerIssues(explorerSchema.safeParse({ model: "biawgn", curve: "40:1e-3" }).error!)).toEqual(["Vendor curve point 1 must have Eb/N0 from -5 to 20 dB."]);
-    expect(explorerIssues(explorerSchema.safeParse({ model: "biawgn", curve: Array(13).fill("2:1e-3").join(",") }).error!)).toEqual(["The vendor curve may have at most 12 points."]);
+    expect(explorerIssues(explorerSchema.safeParse({ model: "biawgn", curve: "1:0.7" }).error!)).toEqual([
+      "Vendor curve point 1 must have an error rate above 0 and below 0.5.",
+    ]);
+    expect(explorerIssues(explorerSchema.safeParse({ model: "biawgn", curve: "40:1e-3" }).error!)).toEqual([
+      "Vendor curve point 1 must have Eb/N0 from -5 to 20 dB.",
+    ]);
+    expect(explorerIssues(explorerSchema.safeParse({ model: "biawgn", curve: Array(13).fill("2:1e-3").join(",") }).error!)).toEqual([
+      "The vendor curve may have at most 12 points.",
+    ]);
     expect(explorerSchema.safeParse({ model: "biawgn", metric: "ser" }).success).toBe(false);
   });
   it("judges each point as a claim of the view's code; a PER as a BLER; only on the soft-decision channel", () => {

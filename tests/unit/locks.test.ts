@@ -20,9 +20,7 @@ describe("advisory locks", () => {
   });
 
   it("are taken only through db/locks.ts, never with a number written in place", () => {
-    const offenders = ["app", "lib", "db"]
-      .flatMap(sourceFiles)
-      .filter((file) => /pg_advisory\w*\(\s*\d/.test(fs.readFileSync(path.join(root, file), "utf8")));
+    const offenders = ["app", "lib", "db"].flatMap(sourceFiles).filter((file) => /pg_advisory\w*\(\s*\d/.test(fs.readFileSync(path.join(root, file), "utf8")));
     expect(offenders).toEqual([]);
   });
 });

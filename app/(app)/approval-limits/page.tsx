@@ -16,20 +16,22 @@ export default async function ApprovalLimitsPage() {
     <div className="space-y-5">
       <h1>Approval limits</h1>
       <p className="max-w-3xl text-sm text-ink-soft">
-        An award goes to the approvers whose own limit covers its value and reaches the band&apos;s least limit; it needs the band&apos;s number of
-        approvals, each from a different person. A recommendation keeps the rule in force when it entered approval: changing a band never changes
-        one already in approval. Each approver&apos;s own limit is set on the People page.
+        An award goes to the approvers whose own limit covers its value and reaches the band&apos;s least limit; it needs the band&apos;s number of approvals,
+        each from a different person. A recommendation keeps the rule in force when it entered approval: changing a band never changes one already in approval.
+        Each approver&apos;s own limit is set on the People page.
       </p>
       <BandsTable bands={bands} editable={editable} />
       {gaps.length ? (
         <p className="text-sm text-verdict-evidence" role="note">
-          Not covered:{" "}
-          {gaps.map((g) => `${formatMoney(g.from, g.currency)} to ${g.to === null ? "any value" : formatMoney(g.to, g.currency)}`).join("; ")}. Awards in a gap cannot be approved.
+          Not covered: {gaps.map((g) => `${formatMoney(g.from, g.currency)} to ${g.to === null ? "any value" : formatMoney(g.to, g.currency)}`).join("; ")}.
+          Awards in a gap cannot be approved.
         </p>
       ) : null}
       {warnings.length ? (
         <div className="space-y-1 text-sm text-verdict-evidence" role="note" aria-label="Bands the approvers cannot meet">
-          {warnings.map((w) => <p key={w}>{w}</p>)}
+          {warnings.map((w) => (
+            <p key={w}>{w}</p>
+          ))}
           <p>A recommendation in such a band is refused when the buyer submits it. Raise an approver&apos;s limit or add an approver on the People page.</p>
         </div>
       ) : null}

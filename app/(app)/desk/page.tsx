@@ -28,7 +28,9 @@ export default async function DeskPage() {
                 <li key={t.id} className="py-2 text-sm">
                   <div className="flex items-center gap-3">
                     <span className="w-28 font-mono text-xs text-ink-soft">{t.reference}</span>
-                    <Link href={`/tenders/${t.id}${section.tab ? `/${section.tab}` : ""}`} className="flex-1">{t.title}</Link>
+                    <Link href={`/tenders/${t.id}${section.tab ? `/${section.tab}` : ""}`} className="flex-1">
+                      {t.title}
+                    </Link>
                     <StateTag state={t.state} />
                     <span className="text-xs text-ink-soft">
                       closes <DateTime value={t.closesAt} zone={t.closesZone} />

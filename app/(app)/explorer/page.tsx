@@ -14,14 +14,21 @@ import { ClaimFindings, ClaimNumbers } from "@/app/_components/claim-numbers";
 
 export const metadata: Metadata = { title: "Bound explorer" };
 
-
 /** The form keeps what was typed; empty fields show the channel's defaults. */
 function formValues(raw: SearchParams): ExplorerFormValues {
   const model = CHANNEL_MODELS.find((m) => m === paramText(raw.model)) ?? "bsc";
   const d = EXPLORER_DEFAULTS[model];
   const or = (v: string, fallback: number) => (v === "" ? String(fallback) : v);
   const metric = CURVE_METRICS.find((m) => m === paramText(raw.metric)) ?? "bler";
-  return { model, x: or(paramText(raw.x), d.x), n: or(paramText(raw.n), d.n), k: or(paramText(raw.k), d.k), target: or(paramText(raw.target), 1e-4), curve: paramText(raw.curve), metric };
+  return {
+    model,
+    x: or(paramText(raw.x), d.x),
+    n: or(paramText(raw.n), d.n),
+    k: or(paramText(raw.k), d.k),
+    target: or(paramText(raw.target), 1e-4),
+    curve: paramText(raw.curve),
+    metric,
+  };
 }
 
 export default async function ExplorerPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
@@ -36,8 +43,8 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
       <div>
         <h1>Bound explorer</h1>
         <p className="text-sm text-ink-soft">
-          What any code of length n carrying k bits can do on a channel: the least possible block error rate, what a random
-          code is guaranteed to reach, and the normal approximation. The view lives in the address: copy it to share.
+          What any code of length n carrying k bits can do on a channel: the least possible block error rate, what a random code is guaranteed to reach, and the
+          normal approximation. The view lives in the address: copy it to share.
         </p>
       </div>
       <ExplorerForm view={formValues(raw)} />
@@ -45,12 +52,16 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
         <div role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
           <p>This view cannot be judged until these are corrected:</p>
           <ul className="list-disc pl-5">
-            {explorerIssues(parsed.error).map((m) => <li key={m}>{m}</li>)}
+            {explorerIssues(parsed.error).map((m) => (
+              <li key={m}>{m}</li>
+            ))}
           </ul>
         </div>
       ) : null}
       {refusal !== undefined ? (
-        <p role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">{refusal}</p>
+        <p role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
+          {refusal}
+        </p>
       ) : null}
       {charts && view ? (
         <>
@@ -58,7 +69,8 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
             <div className="flex flex-wrap items-center gap-3">
               <VerdictBadge verdict={charts.result.verdict} />
               <span className="text-sm">
-                Rate {charts.result.rate?.toFixed(4) ?? "–"} bits per channel use, capacity {charts.result.capacity?.toFixed(4) ?? "–"}; BLER {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
+                Rate {charts.result.rate?.toFixed(4) ?? "–"} bits per channel use, capacity {charts.result.capacity?.toFixed(4) ?? "–"}; BLER{" "}
+                {formatSci(view.target)} at n = {view.n.toLocaleString("en-GB")}.
               </span>
             </div>
           </section>
@@ -69,12 +81,15 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
               <ChannelChart charts={charts} vendorCurve={charts.vendorCurve} />
               {charts.vendorCurve.length > 0 ? (
                 <p className="text-xs text-ink-soft">
-                  Each vendor point is judged as a claim of this code (n = {view.n.toLocaleString("en-GB")}, k = {view.k.toLocaleString("en-GB")}); a
-                  PER counts as a block error rate (one packet, one codeword). The verdict judges only the physical limit.
+                  Each vendor point is judged as a claim of this code (n = {view.n.toLocaleString("en-GB")}, k = {view.k.toLocaleString("en-GB")}); a PER counts
+                  as a block error rate (one packet, one codeword). The verdict judges only the physical limit.
                 </p>
               ) : null}
             </section>
-            <section className="panel space-y-2"><h2>Best rate against block length at BLER {formatSci(view.target)}</h2><RateChart charts={charts} /></section>
+            <section className="panel space-y-2">
+              <h2>Best rate against block length at BLER {formatSci(view.target)}</h2>
+              <RateChart charts={charts} />
+            </section>
           </div>
           <ClaimNumbers result={charts.result} />
         </>

@@ -15,8 +15,8 @@ export default async function LedgerCheckPage() {
     <div className="space-y-5">
       <h1>Ledger check</h1>
       <p className="max-w-3xl text-sm text-ink-soft">
-        Every view of a ledger hashes only the entries added since the last check, and compares the newest signed checkpoints with the
-        chain. A full check hashes every entry again, in batches, and finds an old entry edited in place as well.
+        Every view of a ledger hashes only the entries added since the last check, and compares the newest signed checkpoints with the chain. A full check
+        hashes every entry again, in batches, and finds an old entry edited in place as well.
       </p>
       <section className="panel space-y-1" aria-label="Chain now">
         <h2>The chain now</h2>
@@ -39,17 +39,34 @@ export default async function LedgerCheckPage() {
       <section className="panel overflow-x-auto" aria-label="Recent full checks">
         <h2>Recent full checks</h2>
         <table className="data-table mt-2">
-          <thead><tr><th>Started</th><th>By</th><th>Entries</th><th>Result</th></tr></thead>
+          <thead>
+            <tr>
+              <th>Started</th>
+              <th>By</th>
+              <th>Entries</th>
+              <th>Result</th>
+            </tr>
+          </thead>
           <tbody>
             {checks.map((c) => (
               <tr key={c.id}>
-                <td className="whitespace-nowrap"><DateTime value={c.createdAt} /></td>
+                <td className="whitespace-nowrap">
+                  <DateTime value={c.createdAt} />
+                </td>
                 <td>{c.startedByName}</td>
-                <td className="tabular-nums">{c.checked} of {c.total}</td>
+                <td className="tabular-nums">
+                  {c.checked} of {c.total}
+                </td>
                 <td>{c.status === "running" ? "Not finished" : c.status === "intact" ? "Intact" : `Broken at entry #${c.brokenAt}: ${c.reason}`}</td>
               </tr>
             ))}
-            {checks.length === 0 ? <tr><td colSpan={4} className="text-ink-soft">No full check yet.</td></tr> : null}
+            {checks.length === 0 ? (
+              <tr>
+                <td colSpan={4} className="text-ink-soft">
+                  No full check yet.
+                </td>
+              </tr>
+            ) : null}
           </tbody>
         </table>
       </section>

@@ -27,13 +27,19 @@ export default async function MailroomPage({ searchParams }: { searchParams: Sea
     <div className="space-y-4">
       <div>
         <h1>Mailroom</h1>
-        <p className="text-sm text-ink-soft">E-mail the system sent, caught by the local mail server. Development only: with a real mail server configured this page does not exist.</p>
+        <p className="text-sm text-ink-soft">
+          E-mail the system sent, caught by the local mail server. Development only: with a real mail server configured this page does not exist.
+        </p>
       </div>
       <FilterForm action="/mailroom" label="Find mail" filtered={filtered}>
         <FilterText id="mail-to" name="to" label="Recipient contains" value={query.to} maxLength={254} />
         <FilterText id="mail-subject" name="subject" label="Subject contains" value={query.subject} />
       </FilterForm>
-      {problem ? <p role="alert" className="text-sm text-verdict-impossible">{problem}</p> : null}
+      {problem ? (
+        <p role="alert" className="text-sm text-verdict-impossible">
+          {problem}
+        </p>
+      ) : null}
       {found.total === 0 ? <p className="text-sm text-ink-soft">{filtered ? "No mail matches these filters." : "No mail yet."}</p> : null}
       <ul className="space-y-3">
         {found.mail.map((m) => (
@@ -41,7 +47,9 @@ export default async function MailroomPage({ searchParams }: { searchParams: Sea
             <div className="flex flex-wrap items-baseline gap-x-4 text-sm">
               <strong>{m.subject}</strong>
               <span className="text-ink-soft">to {m.to.join(", ")}</span>
-              <span className="ml-auto text-xs text-ink-soft"><DateTime value={m.receivedAt} /></span>
+              <span className="ml-auto text-xs text-ink-soft">
+                <DateTime value={m.receivedAt} />
+              </span>
             </div>
             <pre className="mt-2 whitespace-pre-wrap font-sans text-sm text-ink">{m.text}</pre>
           </li>

@@ -27,11 +27,32 @@ export default async function PeoplePage({ searchParams }: { searchParams: Searc
       <h1>People</h1>
       <FilterForm action="/people" label="Find people" filtered={filtered}>
         <FilterText id="people-q" name="q" label="Name or e-mail contains" value={query.q} />
-        <FilterSelect id="people-org" name="organisationId" label="Organisation" value={query.organisationId} any="Any organisation" options={organisations.map((o) => [o.id, o.name])} />
+        <FilterSelect
+          id="people-org"
+          name="organisationId"
+          label="Organisation"
+          value={query.organisationId}
+          any="Any organisation"
+          options={organisations.map((o) => [o.id, o.name])}
+        />
         <FilterSelect id="people-role" name="role" label="Role" value={query.role} any="Any role" options={ROLES.map((r) => [r, r])} />
-        <FilterSelect id="people-status" name="status" label="Status" value={query.status} any="Any status" options={[["active", "active"], ["deactivated", "deactivated"]]} />
+        <FilterSelect
+          id="people-status"
+          name="status"
+          label="Status"
+          value={query.status}
+          any="Any status"
+          options={[
+            ["active", "active"],
+            ["deactivated", "deactivated"],
+          ]}
+        />
       </FilterForm>
-      {problem ? <p role="alert" className="text-sm text-verdict-impossible">{problem}</p> : null}
+      {problem ? (
+        <p role="alert" className="text-sm text-verdict-impossible">
+          {problem}
+        </p>
+      ) : null}
       <PeopleGrid people={people.users} selfId={viewer.actor.id} />
       <Pager info={people} noun={["person", "people"]} href={(page) => pageHref("/people", keep, page)} />
       <div className="grid gap-5 md:grid-cols-2">

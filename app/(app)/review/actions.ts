@@ -24,5 +24,7 @@ export async function recordEvidenceAction(claimId: string, values: unknown): Pr
 }
 
 export async function openThreadAction(claimId: string, values: unknown): Promise<FormResult> {
-  return runForm(threadSchema, values, (viewer, input) => openThread(viewer, String(claimId), input), claimPaths(claimId), "Question sent to the vendor.", { claimId });
+  return runForm(threadSchema, values, (viewer, input) => openThread(viewer, String(claimId), input), claimPaths(claimId), "Question sent to the vendor.", {
+    claimId,
+  });
 }

@@ -15,7 +15,9 @@ export default async function ReviewBenchPage() {
     <div className="space-y-5">
       <div>
         <h1>Review bench</h1>
-        <p className="text-sm text-ink-soft">Every claim of the tenders in technical evaluation, with the engine&apos;s verdict, your marks and the lab evidence. Prices are never shown here.</p>
+        <p className="text-sm text-ink-soft">
+          Every claim of the tenders in technical evaluation, with the engine&apos;s verdict, your marks and the lab evidence. Prices are never shown here.
+        </p>
       </div>
       {undeclared.length > 0 ? (
         <section className="panel" aria-label="Declarations to make">
@@ -26,7 +28,9 @@ export default async function ReviewBenchPage() {
               <li key={t.id} className="flex items-baseline gap-3">
                 <span className="font-mono text-ink-soft">{t.reference}</span>
                 <span className="flex-1">{t.title}</span>
-                <Link href={`/tenders/${t.id}/review`} aria-label={`Declare to review ${t.reference}`}>Declare to review</Link>
+                <Link href={`/tenders/${t.id}/review`} aria-label={`Declare to review ${t.reference}`}>
+                  Declare to review
+                </Link>
               </li>
             ))}
           </ul>

@@ -25,14 +25,20 @@ export default async function TendersPage({ searchParams }: { searchParams: Sear
       <div className="flex items-center justify-between gap-3">
         <h1>Tenders</h1>
         {viewer.ability.can("create", "Tender") ? (
-          <Link href="/tenders/new" className="btn no-underline hover:no-underline">New tender</Link>
+          <Link href="/tenders/new" className="btn no-underline hover:no-underline">
+            New tender
+          </Link>
         ) : null}
       </div>
       <FilterForm action="/tenders" label="Find tenders" filtered={filtered}>
         <FilterText id="tender-q" name="q" label="Reference or title contains" value={query.q} />
         <FilterSelect id="tender-state" name="state" label="State" value={query.state} any="Any state" options={Object.entries(STATE_LABELS)} />
       </FilterForm>
-      {problem ? <p role="alert" className="text-sm text-verdict-impossible">{problem}</p> : null}
+      {problem ? (
+        <p role="alert" className="text-sm text-verdict-impossible">
+          {problem}
+        </p>
+      ) : null}
       <div className="panel overflow-x-auto p-0">
         <table className="data-table">
           <thead>
@@ -49,15 +55,25 @@ export default async function TendersPage({ searchParams }: { searchParams: Sear
             {tenders.map((t) => (
               <tr key={t.id}>
                 <td className="font-mono text-xs">{t.reference}</td>
-                <td><Link href={`/tenders/${t.id}`}>{t.title}</Link></td>
+                <td>
+                  <Link href={`/tenders/${t.id}`}>{t.title}</Link>
+                </td>
                 <td className="text-ink-soft">{CHANNEL_LABELS[t.channelModel].name}</td>
-                <td><StateTag state={t.state} /></td>
+                <td>
+                  <StateTag state={t.state} />
+                </td>
                 <td className="text-right tabular-nums">{t.quantity.toLocaleString("en-GB")}</td>
-                <td><DateTime value={t.closesAt} zone={t.closesZone} /></td>
+                <td>
+                  <DateTime value={t.closesAt} zone={t.closesZone} />
+                </td>
               </tr>
             ))}
             {tenders.length === 0 ? (
-              <tr><td colSpan={6} className="text-ink-soft">{filtered ? "No tender matches these filters." : "No tender to show."}</td></tr>
+              <tr>
+                <td colSpan={6} className="text-ink-soft">
+                  {filtered ? "No tender matches these filters." : "No tender to show."}
+                </td>
+              </tr>
             ) : null}
           </tbody>
         </table>

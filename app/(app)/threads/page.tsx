@@ -13,7 +13,9 @@ export default async function ThreadsPage() {
     <div className="space-y-4">
       <div>
         <h1>Questions from the evaluators</h1>
-        <p className="text-sm text-ink-soft">Clarification threads between the buyer&apos;s engineers and the vendor. Each message is recorded in the tender&apos;s ledger.</p>
+        <p className="text-sm text-ink-soft">
+          Clarification threads between the buyer&apos;s engineers and the vendor. Each message is recorded in the tender&apos;s ledger.
+        </p>
       </div>
       <ThreadList threads={threads} path="/threads" empty="No question has been asked." />
     </div>

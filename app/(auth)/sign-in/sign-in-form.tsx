@@ -33,12 +33,16 @@ export function SignInForm({ next }: { next?: string }) {
         </p>
       ) : null}
       <div>
-        <label htmlFor="email" className="label">E-mail</label>
+        <label htmlFor="email" className="label">
+          E-mail
+        </label>
         <input id="email" type="email" autoComplete="username" className="field" {...register("email")} />
         {fieldError("email") ? <p className="mt-1 text-xs text-verdict-impossible">{fieldError("email")}</p> : null}
       </div>
       <div>
-        <label htmlFor="password" className="label">Password</label>
+        <label htmlFor="password" className="label">
+          Password
+        </label>
         <input id="password" type="password" autoComplete="current-password" className="field" {...register("password")} />
         {fieldError("password") ? <p className="mt-1 text-xs text-verdict-impossible">{fieldError("password")}</p> : null}
       </div>

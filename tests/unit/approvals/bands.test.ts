@@ -31,7 +31,10 @@ describe("value bands", () => {
 
   it("reports the values a currency leaves uncovered", () => {
     expect(bandGaps(demo, "EUR")).toEqual([]);
-    expect(bandGaps([demo[1]], "EUR")).toEqual([{ from: 0, to: 50_000 }, { from: 250_000, to: null }]);
+    expect(bandGaps([demo[1]], "EUR")).toEqual([
+      { from: 0, to: 50_000 },
+      { from: 250_000, to: null },
+    ]);
     expect(describeBand(demo[2])).toBe("[250,000, ∞) EUR");
   });
 });

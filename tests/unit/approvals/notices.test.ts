@@ -5,8 +5,27 @@ import { standingsOf } from "@/lib/approvals/score-sheet";
 const tender = { id: "t1", reference: "RC-2099-007", title: "Harbour buoy radios" };
 const sheet = {
   offers: [
-    { offerId: "a", vendorName: "Alder Links", total: 80.25, rank: 1, disqualified: false, flags: [], lines: [{ criterion: "price", normalised: 100, weight: 30, rawText: "€400,000.00 (4,000 × €100.00)" }] },
-    { offerId: "b", vendorName: "Birch Radio", total: 61, rank: 2, disqualified: false, flags: [], lines: [{ criterion: "price", normalised: 80, weight: 30, rawText: "€500,000.00 (4,000 × €125.00)" }, { criterion: "technical", normalised: 55.56, weight: 40 }] },
+    {
+      offerId: "a",
+      vendorName: "Alder Links",
+      total: 80.25,
+      rank: 1,
+      disqualified: false,
+      flags: [],
+      lines: [{ criterion: "price", normalised: 100, weight: 30, rawText: "€400,000.00 (4,000 × €100.00)" }],
+    },
+    {
+      offerId: "b",
+      vendorName: "Birch Radio",
+      total: 61,
+      rank: 2,
+      disqualified: false,
+      flags: [],
+      lines: [
+        { criterion: "price", normalised: 80, weight: 30, rawText: "€500,000.00 (4,000 × €125.00)" },
+        { criterion: "technical", normalised: 55.56, weight: 40 },
+      ],
+    },
     { offerId: "c", vendorName: "Cedar RF", total: null, rank: null, disqualified: true, flags: ["Disqualified: confirmed impossible claim"], lines: [] },
   ],
 };
@@ -15,7 +34,11 @@ describe("notices to vendors", () => {
   const standings = standingsOf(sheet);
 
   it("reads the score-sheet snapshot defensively", () => {
-    expect(standings.map((s) => [s.vendorName, s.rank])).toEqual([["Alder Links", 1], ["Birch Radio", 2], ["Cedar RF", null]]);
+    expect(standings.map((s) => [s.vendorName, s.rank])).toEqual([
+      ["Alder Links", 1],
+      ["Birch Radio", 2],
+      ["Cedar RF", null],
+    ]);
     expect(standingsOf(null)).toEqual([]);
     expect(standingsOf({ offers: [7, { vendorName: 3 }] })).toEqual([
       { offerId: "", vendorName: "3", total: null, rank: null, disqualified: false, flags: [], criteria: [] },
@@ -59,7 +82,12 @@ describe("notices to vendors", () => {
   });
 
   it("gives the winner its own award", () => {
-    const { subject, text } = awardNotice(tender, { vendorName: "Alder Links", moduleName: "AL-9", quantity: 4000, value: 400_000, currency: "EUR" }, "RC-2099-007-M1", disclosure("rank"));
+    const { subject, text } = awardNotice(
+      tender,
+      { vendorName: "Alder Links", moduleName: "AL-9", quantity: 4000, value: 400_000, currency: "EUR" },
+      "RC-2099-007-M1",
+      disclosure("rank"),
+    );
     expect(subject).toBe("Award notice: RC-2099-007 Harbour buoy radios");
     expect(text).toContain("4,000 units for €400,000.00");
     expect(text).toContain("RC-2099-007-M1");

@@ -98,6 +98,8 @@ describe("chart series (Bound explorer)", () => {
     expect(pts[0].n).toBe(10);
     expect(pts[pts.length - 1].n).toBe(100_000);
     // equal-energy codes need not be binary: their ceiling is the unconstrained AWGN, 1/2 log2(1 + 2 Es/N0) = 0.79 at 0 dB
-    expect(pts.every((pt) => pt.achievableRate === null && pt.normalRate <= pt.capacity && pt.converseRate! >= pt.normalRate && pt.converseRate! <= 0.7925)).toBe(true);
+    expect(
+      pts.every((pt) => pt.achievableRate === null && pt.normalRate <= pt.capacity && pt.converseRate! >= pt.normalRate && pt.converseRate! <= 0.7925),
+    ).toBe(true);
   });
 });

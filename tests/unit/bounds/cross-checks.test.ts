@@ -4,15 +4,7 @@
 import { describe, expect, it } from "vitest";
 import jStat from "jstat";
 import { binomial, logBinomRange } from "@/lib/bounds/sums";
-import {
-  becConverseLog,
-  becAchievLog,
-  becAchievableLog,
-  biawgnCapDisp,
-  clopperPearsonLower,
-  clopperPearsonUpper,
-  dbToLinear,
-} from "@/lib/bounds";
+import { becConverseLog, becAchievLog, becAchievableLog, biawgnCapDisp, clopperPearsonLower, clopperPearsonUpper, dbToLinear } from "@/lib/bounds";
 
 describe("binomial tails agree with jstat (jStat.binomial.cdf, jstat documentation)", () => {
   const cases: [number, number][] = [

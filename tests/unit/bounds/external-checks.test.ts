@@ -91,8 +91,7 @@ describe("conversions and evidence", () => {
 
 describe("optical hard-decision FEC thresholds (common practice; capacity check)", () => {
   // A 7% overhead code: R = 1/1.07 = 0.9346; 1 - h2(3.8e-3) = 0.964 > R but 1 - h2(1e-2) = 0.919 < R.
-  const claim = (p: number) =>
-    evaluateClaim({ channel: { model: "bsc", p }, code: { overhead: 0.07 }, target: { metric: "ber", value: 1e-15 } });
+  const claim = (p: number) => evaluateClaim({ channel: { model: "bsc", p }, code: { overhead: 0.07 }, target: { metric: "ber", value: 1e-15 } });
   it("is possible at a pre-decoder BER of 3.8e-3", () => {
     expect(claim(3.8e-3).verdict).not.toBe("impossible");
     expect(1 - h2(3.8e-3)).toBeGreaterThan(1 / 1.07);

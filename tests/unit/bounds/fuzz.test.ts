@@ -26,8 +26,7 @@ function nonFinite(v: unknown, at = ""): string[] {
 }
 
 /** A field's extreme values, mixed with the whole range between them. */
-const edgy = (edges: number[], min: number, max: number) =>
-  fc.oneof(fc.constantFrom(...edges), fc.double({ min, max, noNaN: true }));
+const edgy = (edges: number[], min: number, max: number) => fc.oneof(fc.constantFrom(...edges), fc.double({ min, max, noNaN: true }));
 const tiny = [Number.MIN_VALUE, 1e-300];
 
 const db = edgy([-50, 50, 0, -49.999], -50, 50);
@@ -53,7 +52,9 @@ const frac = edgy([0, 1, 1e-9], 0, 1);
 const rate = edgy([1, 0.5, 0.9999, ...tiny], Number.MIN_VALUE, 1);
 const overhead = edgy([0, 1000, 1e-12], 0, 1000);
 const code = fc.oneof(
-  fc.tuple(n, frac, fc.constantFrom(undefined, "bpsk", "qpsk")).map(([n, f, modulation]) => ({ n, k: Math.max(1, Math.min(n, Math.round(f * n))), modulation })),
+  fc
+    .tuple(n, frac, fc.constantFrom(undefined, "bpsk", "qpsk"))
+    .map(([n, f, modulation]) => ({ n, k: Math.max(1, Math.min(n, Math.round(f * n))), modulation })),
   fc.oneof(fc.constantFrom(1, 2, MAX_N), fc.integer({ min: 1, max: MAX_N })).map((k) => ({ k })),
   rate.map((rate) => ({ rate })),
   fc.tuple(n, rate).map(([n, rate]) => ({ n, rate })),

@@ -37,7 +37,15 @@ describe("fast orthogonal inverse agrees with the adaptive path (1e-6 dB)", () =
   // 1e-6 in ln BLER moves the amplitude by less than 1e-6 / 3 (|d ln BLER / da| > 3 here), far
   // below 1e-6 dB; at k = 10^6 the two quadratures differ by about 2e-7 (terms of size y^2/2 ~ 7e5).
   it("the forward value agrees to 1e-6 in ln BLER, across the waterfall", () => {
-    for (const [k, a] of [[1, 4], [8, 6.2], [30, 14], [64, 20], [160, 17.8], [10_000, 120.8], [1_000_000, 1180.5]])
+    for (const [k, a] of [
+      [1, 4],
+      [8, 6.2],
+      [30, 14],
+      [64, 20],
+      [160, 17.8],
+      [10_000, 120.8],
+      [1_000_000, 1180.5],
+    ])
       for (const da of [-1, 0, 1]) {
         const slow = orthogonalLogBler(k, a + da);
         expect(Math.abs(orthogonalLogBlerFast(k, a + da) - slow)).toBeLessThan(1e-6);

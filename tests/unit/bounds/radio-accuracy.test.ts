@@ -71,8 +71,7 @@ describe("sensitivity conversion (1e-9 dB)", () => {
   it("S = -174 + 10 log10(bandwidth) + NF + required SNR, and back (common practice)", () => {
     // at Rb = 1200 bit/s and NF 2 dB, Eb/N0 = -121.5 + 173.97518719422810 - 30.791812460476248 - 2
     expect(Math.abs(sensitivityToEbn0Db(-121.5, 1200, 2) - 19.683374733751852)).toBeLessThan(1e-9);
-    for (const ebn0 of [-1.59, 0, 9.6])
-      expect(Math.abs(sensitivityToEbn0Db(ebn0ToSensitivityDbm(ebn0, 250_000, 6), 250_000, 6) - ebn0)).toBeLessThan(1e-9);
+    for (const ebn0 of [-1.59, 0, 9.6]) expect(Math.abs(sensitivityToEbn0Db(ebn0ToSensitivityDbm(ebn0, 250_000, 6), 250_000, 6) - ebn0)).toBeLessThan(1e-9);
   });
 });
 
@@ -92,7 +91,11 @@ function normals(seed: number) {
 describe("cross-checks of the 1959 bound (Shannon 1959; the libraries' documentation)", () => {
   it("agrees with a Monte Carlo count of received points outside the cone, n = 8 to 16 (seed 1959)", () => {
     const z = normals(1959);
-    for (const [n, k, db] of [[8, 4, 2], [12, 6, 1], [16, 8, 3]]) {
+    for (const [n, k, db] of [
+      [8, 4, 2],
+      [12, 6, 1],
+      [16, 8, 3],
+    ]) {
       const c = coneCot(n, k);
       const s = Math.sqrt(2 * k * 10 ** (db / 10));
       const trials = 200_000;
@@ -109,7 +112,12 @@ describe("cross-checks of the 1959 bound (Shannon 1959; the libraries' documenta
     }
   });
   it("agrees with jstat's noncentral t, P[T < sqrt(n-1) cot theta], where its double precision holds", () => {
-    for (const [n, k, db] of [[16, 8, 4], [64, 32, 2], [128, 64, 3], [200, 100, 2.5]]) {
+    for (const [n, k, db] of [
+      [16, 8, 4],
+      [64, 32, 2],
+      [128, 64, 3],
+      [200, 100, 2.5],
+    ]) {
       const c = coneCot(n, k);
       const s = Math.sqrt(2 * k * 10 ** (db / 10));
       const t = jStat.noncentralt.cdf(Math.sqrt(n - 1) * c, n - 1, s);
@@ -117,7 +125,12 @@ describe("cross-checks of the 1959 bound (Shannon 1959; the libraries' documenta
     }
   });
   it("theta_n holds 2^-k of the sphere by @stdlib's incomplete beta: 1/2 I_{sin^2 theta}((n-1)/2, 1/2) = 2^-k", () => {
-    for (const [n, k] of [[10, 3], [100, 50], [1000, 900], [4000, 500]]) {
+    for (const [n, k] of [
+      [10, 3],
+      [100, 50],
+      [1000, 900],
+      [4000, 500],
+    ]) {
       const c = coneCot(n, k);
       const sin2 = 1 / (1 + c * c);
       expect(rel(0.5 * betainc(sin2, (n - 1) / 2, 0.5), 2 ** -k)).toBeLessThan(1e-9);

@@ -2,15 +2,7 @@
 // 1959 converse below the normal approximation at usual rates, inverses that invert.
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import {
-  biawgnCapDisp,
-  ebn0ToEsn0,
-  energyConverseEbn0Db,
-  normalApproxLogBler,
-  orthogonalEbn0Db,
-  spherePackingEbn0Db,
-  spherePackingLog,
-} from "@/lib/bounds";
+import { biawgnCapDisp, ebn0ToEsn0, energyConverseEbn0Db, normalApproxLogBler, orthogonalEbn0Db, spherePackingEbn0Db, spherePackingLog } from "@/lib/bounds";
 
 const SEED = 1959;
 const RUNS = { numRuns: 60, seed: SEED };

@@ -53,7 +53,12 @@ describe("external checks (BOUNDS.md section 10)", () => {
   });
   it("thermal noise is -174 dBm/Hz at 290 K (common practice)", () => expect(THERMAL_DBM_PER_HZ).toBeCloseTo(-174, 1));
   it("orthogonal signalling needs at least the converse's energy (PPV 2011: achievability >= converse)", () => {
-    for (const [k, eps] of [[1, 1e-3], [16, 1e-4], [160, 1e-2], [1024, 1e-6]])
+    for (const [k, eps] of [
+      [1, 1e-3],
+      [16, 1e-4],
+      [160, 1e-2],
+      [1024, 1e-6],
+    ])
       expect(orthogonalEbn0Db(k, Math.log(eps))!).toBeGreaterThanOrEqual(energyConverseEbn0Db(k, Math.log(eps))!);
   });
 });
@@ -84,7 +89,9 @@ describe("BI-AWGN claims with n and k (section 8)", () => {
     expect(r.thresholds.normal!).toBeLessThan(1.6);
     expect(r.verdict).toBe("needs-evidence");
     expect(codes(r)).toContain("normal-approximation-unreliable");
-    expect(r.findings.find((f) => f.code === "beyond-random-coding")!.message).toMatch(/not relied on here, since the claimed BLER 1\.0e-10 lies below 1\.0e-6/);
+    expect(r.findings.find((f) => f.code === "beyond-random-coding")!.message).toMatch(
+      /not relied on here, since the claimed BLER 1\.0e-10 lies below 1\.0e-6/,
+    );
     const ok = at(2.0);
     expect(ok.verdict).toBe("plausible");
     expect(ok.findings.find((f) => f.code === "within-random-coding")!.message).toMatch(/rests on this rigorous bound/);
@@ -131,7 +138,11 @@ describe("sensitivity claims (section 9): k = 160 bits at 1,200 bit/s, PER 1e-2"
   });
   it("with n and k the 1959 bound judges too", () => {
     // -142.5 dBm is Eb/N0 0.68 dB: above the energy converse, below the 1959 bound's 1.11 dB at n = 320
-    const r = evaluate({ channel: { model: "biawgn", sensitivityDbm: -142.5, bitRate: 1200 }, code: { n: 320, k: 160 }, target: { metric: "bler", value: 1e-2 } });
+    const r = evaluate({
+      channel: { model: "biawgn", sensitivityDbm: -142.5, bitRate: 1200 },
+      code: { n: 320, k: 160 },
+      target: { metric: "bler", value: 1e-2 },
+    });
     expect(codes(r)).toContain("within-energy-converse");
     expect(r.thresholds.spherePacking!).toBeGreaterThan(r.energy!.converseEbn0Db!);
     expect(r.verdict).toBe("impossible");
@@ -156,7 +167,11 @@ describe("the contract refuses bad radio input with a clear message in its place
     ["a sensitivity without a bit rate", { ...ok, channel: { model: "biawgn", sensitivityDbm: -120 } }, /channel\.bitRate: is required with sensitivityDbm/],
     ["a bit rate without a sensitivity", { ...ok, channel: { model: "biawgn", ebn0Db: 2, bitRate: 10 } }, /channel\.bitRate: goes only with sensitivityDbm/],
     ["k alone on the BSC", { ...ok, channel: { model: "bsc", p: 0.01 } }, /code\.n: is required with k/],
-    ["a modulation off the BI-AWGN channel", { channel: { model: "bsc", p: 0.01 }, code: { n: 10, k: 5, modulation: "qpsk" }, target: ok.target }, /code\.modulation: applies only/],
+    [
+      "a modulation off the BI-AWGN channel",
+      { channel: { model: "bsc", p: 0.01 }, code: { n: 10, k: 5, modulation: "qpsk" }, target: ok.target },
+      /code\.modulation: applies only/,
+    ],
     ["an unknown modulation", { ...ok, code: { k: 160, modulation: "qam16" } }, /code\.modulation: must be "bpsk" or "qpsk"/],
   ];
   for (const [name, input, message] of cases)

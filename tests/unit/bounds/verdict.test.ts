@@ -1,15 +1,6 @@
 // Verdict rules of BOUNDS.md section 5 on worked examples, and the claim contract of the API and CLI.
 import { describe, expect, it } from "vitest";
-import {
-  ENGINE_VERSION,
-  bscConverseLog,
-  claimSchema,
-  evaluateClaim,
-  formatClaimError,
-  netCodingGainDb,
-  rawBerForNcg,
-  type ClaimInput,
-} from "@/lib/bounds";
+import { ENGINE_VERSION, bscConverseLog, claimSchema, evaluateClaim, formatClaimError, netCodingGainDb, rawBerForNcg, type ClaimInput } from "@/lib/bounds";
 
 const bsc = (p: number, code: ClaimInput["code"], value = 1e-6, metric: "bler" | "ber" = "bler") =>
   evaluateClaim({ channel: { model: "bsc", p }, code, target: { metric, value } });

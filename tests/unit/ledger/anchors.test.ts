@@ -30,10 +30,16 @@ describe("signed checkpoints", () => {
     const checkpoint = signCheckpoint(KEY, HEAD, "verified", AT);
     const at = "the checkpoint signed at entry #40 (2027-03-04T10:15:00.000Z)";
     expect(checkpointProblem(KEY, checkpoint, HEAD.hash, 45)).toBeNull();
-    expect(checkpointProblem(KEY, checkpoint, "ef".repeat(32), 45)).toBe(`entry #40 no longer has the hash signed at ${at}: entries up to it were rewritten and their hashes recomputed`);
-    expect(checkpointProblem(KEY, checkpoint, undefined, 35)).toBe(`the ledger ends at entry #35, but ${at} shows it reached that far: the newest entries were removed`);
+    expect(checkpointProblem(KEY, checkpoint, "ef".repeat(32), 45)).toBe(
+      `entry #40 no longer has the hash signed at ${at}: entries up to it were rewritten and their hashes recomputed`,
+    );
+    expect(checkpointProblem(KEY, checkpoint, undefined, 35)).toBe(
+      `the ledger ends at entry #35, but ${at} shows it reached that far: the newest entries were removed`,
+    );
     expect(checkpointProblem(KEY, checkpoint, undefined, 45)).toBe(`entry #40, signed at ${at}, is missing: entries were removed`);
-    expect(checkpointProblem("another key of forty characters, or more", checkpoint, HEAD.hash, 45)).toBe(`${at} has a signature that does not match: it was forged or edited`);
+    expect(checkpointProblem("another key of forty characters, or more", checkpoint, HEAD.hash, 45)).toBe(
+      `${at} has a signature that does not match: it was forged or edited`,
+    );
   });
 
   it("quote a head in memos and notices by its number and the first 12 digits of its hash", () => {

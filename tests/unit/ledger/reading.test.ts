@@ -3,9 +3,24 @@ import { asSubject, defineAbilityFor, type SubjectRecords, type SubjectType } fr
 import { ledgerSentence, readableDetails, type EntryContext, type LedgerEntryIn } from "@/lib/ledger/reading";
 import { actorFor, T1, VENDOR_A, VENDOR_B } from "../policies/fixtures";
 
-const context: EntryContext = { tenderId: T1, tenderState: "commercial", tenderCreatedBy: "user-buyer", envelopeOpened: true, invitedOrgIds: [VENDOR_A, VENDOR_B], vendorOrgId: VENDOR_A };
+const context: EntryContext = {
+  tenderId: T1,
+  tenderState: "commercial",
+  tenderCreatedBy: "user-buyer",
+  envelopeOpened: true,
+  invitedOrgIds: [VENDOR_A, VENDOR_B],
+  vendorOrgId: VENDOR_A,
+};
 const entry = (action: string, data: Record<string, unknown>, actorLabel = "Ravi Okonjo"): LedgerEntryIn => ({
-  seq: 1, at: "2027-01-01T00:00:00.000Z", actorId: "user-engineer", actorLabel, action, subjectType: "Claim", subjectId: "claim-a", data, hash: "h",
+  seq: 1,
+  at: "2027-01-01T00:00:00.000Z",
+  actorId: "user-engineer",
+  actorLabel,
+  action,
+  subjectType: "Claim",
+  subjectId: "claim-a",
+  data,
+  hash: "h",
 });
 const readerFor = (roles: Parameters<typeof actorFor>[0], over: Parameters<typeof actorFor>[1] = {}) => {
   const ability = defineAbilityFor(actorFor(roles, over));
@@ -46,7 +61,9 @@ describe("ledger sentences", () => {
     expect(ledgerSentence(entry("tender.cancelled", { offersSealed: true }, "Ines Calloway"), "RC-2027-003")).toBe(
       "Ines Calloway cancelled RC-2027-003 before its closing time; its offers stay sealed to the buying side.",
     );
-    expect(ledgerSentence(entry("tender.cancelled", { offersSealed: false }, "Ines Calloway"), "RC-2027-001")).toMatch(/after its closing time; its offers stay as unsealed at closing/);
+    expect(ledgerSentence(entry("tender.cancelled", { offersSealed: false }, "Ines Calloway"), "RC-2027-001")).toMatch(
+      /after its closing time; its offers stay as unsealed at closing/,
+    );
     expect(ledgerSentence(entry("tender.cancelled", {}, "Ines Calloway"), "RC-2027-001")).toBe("Ines Calloway cancelled RC-2027-001.");
   });
 });

@@ -1,6 +1,18 @@
 import { describe, expect, it } from "vitest";
 import { claimSchema, evaluateClaim } from "@/lib/bounds";
-import { claimInputFor, codeRate, currentVersion, engineCode, evaluateOffer, keyFinding, nextVersion, submissionRefusal, termsErrors, verdictSummary, worstVerdict } from "@/lib/offers";
+import {
+  claimInputFor,
+  codeRate,
+  currentVersion,
+  engineCode,
+  evaluateOffer,
+  keyFinding,
+  nextVersion,
+  submissionRefusal,
+  termsErrors,
+  verdictSummary,
+  worstVerdict,
+} from "@/lib/offers";
 
 const nk = { n: 2048, k: 1536, rate: null, overhead: null };
 
@@ -56,7 +68,10 @@ const tender = {
   state: "open",
   closesAt: new Date("2027-03-01T12:00:00Z"),
   channelModel: "bsc" as const,
-  operatingPoints: [{ label: "Clear", value: 1e-3 }, { label: "Storm", value: 5e-3 }],
+  operatingPoints: [
+    { label: "Clear", value: 1e-3 },
+    { label: "Storm", value: 5e-3 },
+  ],
   currency: "EUR",
 };
 const claims = [0, 1].map((pointIndex) => ({ pointIndex, metric: "bler" as const, value: 1e-5, ncgOutputBer: null }));
@@ -81,7 +96,9 @@ describe("submission rules", () => {
 
   it("refuse a soft-decision code on a hard-decision (BSC) tender, saying what to do", () => {
     const soft = { code: { decision: "soft" as const }, claims, envelope: { currency: "EUR" } };
-    expect(termsErrors({ ...tender, channelModel: "bsc" }, soft)["code.decision"][0]).toMatch(/hard decision \(binary symmetric channel\).*offer the module with a hard-decision decoder/);
+    expect(termsErrors({ ...tender, channelModel: "bsc" }, soft)["code.decision"][0]).toMatch(
+      /hard decision \(binary symmetric channel\).*offer the module with a hard-decision decoder/,
+    );
     expect(termsErrors({ ...tender, channelModel: "bsc" }, { ...soft, code: { decision: "hard" } })).toEqual({});
     expect(termsErrors({ ...tender, channelModel: "biawgn" }, soft)["code.decision"]).toBeUndefined();
   });

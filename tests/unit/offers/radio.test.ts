@@ -45,7 +45,11 @@ describe("mapping a sensitivity claim to the engine contract", () => {
       code: { k: 160 },
       target: { metric: "bler", value: 1e-1 },
     });
-    expect(curvePointInput(TERMS, s, { x: 3, unit: "ebn0Db", metric: "ber", value: 1e-5 })).toEqual({ channel: { model: "biawgn", ebn0Db: 3 }, code: { k: 160 }, target: { metric: "ber", value: 1e-5 } });
+    expect(curvePointInput(TERMS, s, { x: 3, unit: "ebn0Db", metric: "ber", value: 1e-5 })).toEqual({
+      channel: { model: "biawgn", ebn0Db: 3 },
+      code: { k: 160 },
+      target: { metric: "ber", value: 1e-5 },
+    });
   });
 
   it("computes the implied Eb/N0 as S + 173.98 - 10 log10(Rb) - NF (BOUNDS.md section 9; -174 dBm/Hz is common practice)", () => {
@@ -56,7 +60,9 @@ describe("mapping a sensitivity claim to the engine contract", () => {
   });
 
   it("reads the buyer's point as sensitivity terms, and none from an Eb/N0 point", () => {
-    expect(sensitivityTerms({ assumedNoiseFigureDb: 6 }, { label: "A", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } })).toEqual(TERMS);
+    expect(
+      sensitivityTerms({ assumedNoiseFigureDb: 6 }, { label: "A", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }),
+    ).toEqual(TERMS);
     expect(sensitivityTerms({ assumedNoiseFigureDb: 6 }, { label: "B", value: 3 })).toBeNull();
   });
 });
@@ -78,7 +84,12 @@ describe("limit, margin and the worst point", () => {
   });
 
   it("picks the worst verdict first, then the smallest margin; the line when nothing is worse", () => {
-    const p = (verdict: "impossible" | "needs-evidence" | "plausible", marginDb: number | null) => ({ verdict, impliedEbn0Db: null, limitEbn0Db: null, marginDb });
+    const p = (verdict: "impossible" | "needs-evidence" | "plausible", marginDb: number | null) => ({
+      verdict,
+      impliedEbn0Db: null,
+      limitEbn0Db: null,
+      marginDb,
+    });
     expect(worstPoint(p("plausible", 3), [p("plausible", 4), p("needs-evidence", 5), p("needs-evidence", 2)])).toMatchObject({ at: 2, marginDb: 2 });
     expect(worstPoint(p("needs-evidence", 1), [p("impossible", -0.5), p("impossible", -1)])).toMatchObject({ at: 1 });
     expect(worstPoint(p("plausible", 1), [p("plausible", 2)])).toMatchObject({ at: "line" });
@@ -86,17 +97,38 @@ describe("limit, margin and the worst point", () => {
   });
 
   it("lets a curve point beyond the limit make the whole claim impossible", () => {
-    const s = { dbm: -142, curve: [{ x: -145, unit: "dBm" as const, metric: "per" as const, value: 1e-1 }, { x: -142, unit: "dBm" as const, metric: "per" as const, value: 1e-2 }] };
+    const s = {
+      dbm: -142,
+      curve: [
+        { x: -145, unit: "dBm" as const, metric: "per" as const, value: 1e-1 },
+        { x: -142, unit: "dBm" as const, metric: "per" as const, value: 1e-2 },
+      ],
+    };
     const line = evaluateClaim(sensitivityClaimInput(TERMS, s, 1e-2));
-    const radio = radioClaim(TERMS, s, line, s.curve.map((p) => evaluateClaim(curvePointInput(TERMS, s, p))));
+    const radio = radioClaim(
+      TERMS,
+      s,
+      line,
+      s.curve.map((p) => evaluateClaim(curvePointInput(TERMS, s, p))),
+    );
     expect(radio.line.verdict).toBe("needs-evidence");
     expect(radio.worst).toMatchObject({ at: 0, verdict: "impossible" });
     expect(radio.worst.marginDb!).toBeLessThan(0);
   });
 
   it("gives the curve in the charts' shape: each point at its implied Eb/N0 with its verdict, unfinished points left out", () => {
-    const s = { dbm: -142, noiseFigureDb: 2, curve: [{ x: -145, unit: "dBm" as const, metric: "per" as const, value: 1e-1 }, { x: 3, unit: "ebn0Db" as const, metric: "ber" as const, value: 1e-5 }] };
-    const radio = radioClaim(TERMS, s, evaluateClaim(sensitivityClaimInput(TERMS, s, 1e-2)), [evaluateClaim(curvePointInput(TERMS, s, s.curve[0])), { verdict: "needs-evidence" }]);
+    const s = {
+      dbm: -142,
+      noiseFigureDb: 2,
+      curve: [
+        { x: -145, unit: "dBm" as const, metric: "per" as const, value: 1e-1 },
+        { x: 3, unit: "ebn0Db" as const, metric: "ber" as const, value: 1e-5 },
+      ],
+    };
+    const radio = radioClaim(TERMS, s, evaluateClaim(sensitivityClaimInput(TERMS, s, 1e-2)), [
+      evaluateClaim(curvePointInput(TERMS, s, s.curve[0])),
+      { verdict: "needs-evidence" },
+    ]);
     expect(vendorCurvePoints(radio)).toEqual([{ ebn0Db: impliedEbn0Db(-145, 1200, 2), value: 0.1, metric: "per", verdict: radio.curve[0].verdict }]);
   });
 
@@ -110,16 +142,40 @@ describe("limit, margin and the worst point", () => {
     expect(meetsSensitivity({ sensitivityDbm: -131, requiredDbm: -130, targetPer: 1e-2 }, 1e-2).meets).toBe(true);
     expect(meetsSensitivity({ sensitivityDbm: -129, requiredDbm: -130, targetPer: 1e-2 }, 1e-2).note).toMatch(/above the required -130 dBm/);
     expect(meetsSensitivity({ sensitivityDbm: -131, requiredDbm: -130, targetPer: 1e-2 }, 2e-2).meets).toBe(false);
-    const claim = { id: "c", pointIndex: 0, metric: "bler" as const, value: 1e-2, ncgOutputBer: null, verdict: "plausible" as const, k: null, rateGapFraction: null, channelMargin: 4, channelKind: "dB" as const, mark: null, evidence: "none" as const };
+    const claim = {
+      id: "c",
+      pointIndex: 0,
+      metric: "bler" as const,
+      value: 1e-2,
+      ncgOutputBer: null,
+      verdict: "plausible" as const,
+      k: null,
+      rateGapFraction: null,
+      channelMargin: 4,
+      channelKind: "dB" as const,
+      mark: null,
+      evidence: "none" as const,
+    };
     const tender = { targetMetric: "ber" as const, targetValue: 1e-9 };
-    expect(pointScore({ ...claim, sensitivity: { marginDb: 4, meets: true, note: "", place: "the sensitivity line" } }, tender)).toMatchObject({ meets: true, score: 100 });
-    expect(pointScore({ ...claim, sensitivity: { marginDb: 4, meets: false, note: "worse", place: "the sensitivity line" } }, tender)).toMatchObject({ meets: false, score: 0, note: "worse" });
+    expect(pointScore({ ...claim, sensitivity: { marginDb: 4, meets: true, note: "", place: "the sensitivity line" } }, tender)).toMatchObject({
+      meets: true,
+      score: 100,
+    });
+    expect(pointScore({ ...claim, sensitivity: { marginDb: 4, meets: false, note: "worse", place: "the sensitivity line" } }, tender)).toMatchObject({
+      meets: false,
+      score: 0,
+      note: "worse",
+    });
   });
 });
 
 describe("an offer on a sensitivity point, evaluated in process", () => {
   const tender = {
-    state: "open", closesAt: new Date(Date.now() + 86_400_000), channelModel: "biawgn" as const, currency: "EUR", assumedNoiseFigureDb: 6,
+    state: "open",
+    closesAt: new Date(Date.now() + 86_400_000),
+    channelModel: "biawgn" as const,
+    currency: "EUR",
+    assumedNoiseFigureDb: 6,
     operatingPoints: [{ label: "Valley gateway", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }],
   };
   const offer = (sensitivity: Record<string, unknown> | undefined) => ({
@@ -149,7 +205,10 @@ describe("an offer on a sensitivity point, evaluated in process", () => {
 describe("reading a curve from CSV", () => {
   it("reads level_dbm against PER, and Eb/N0 against BER, whatever the header's case and spacing", () => {
     expect(parseCurveCsv("level_dbm,per\n-142,1e-1\n-140,1e-2\n")).toEqual({
-      points: [{ x: -142, unit: "dBm", metric: "per", value: 0.1 }, { x: -140, unit: "dBm", metric: "per", value: 0.01 }],
+      points: [
+        { x: -142, unit: "dBm", metric: "per", value: 0.1 },
+        { x: -140, unit: "dBm", metric: "per", value: 0.01 },
+      ],
       errors: [],
     });
     expect(parseCurveCsv("\uFEFFEbN0 dB,BER\n3,1e-5\n").points).toEqual([{ x: 3, unit: "ebn0Db", metric: "ber", value: 1e-5 }]);
@@ -166,20 +225,83 @@ describe("reading a curve from CSV", () => {
 describe("the memo's words for a sensitivity claim", () => {
   it("print the line's implied Eb/N0, limit and margin, the curve's margins, the worst point, and the sensitivity caution", () => {
     const s = { dbm: -142, curve: [{ x: -145, unit: "dBm" as const, metric: "per" as const, value: 1e-1 }] };
-    const radio = radioClaim(TERMS, s, evaluateClaim(sensitivityClaimInput(TERMS, s, 1e-2)), s.curve.map((p) => evaluateClaim(curvePointInput(TERMS, s, p))));
+    const radio = radioClaim(
+      TERMS,
+      s,
+      evaluateClaim(sensitivityClaimInput(TERMS, s, 1e-2)),
+      s.curve.map((p) => evaluateClaim(curvePointInput(TERMS, s, p))),
+    );
     const at = new Date("2027-03-04T10:15:00.000Z");
     const facts: MemoFacts = {
-      identifier: "M", draft: true, issuedAt: at, zone: "UTC", buyerOrganisation: "Example Water",
-      tender: { reference: "R", title: "Gateways", description: "", channelModel: "biawgn", operatingPoints: [{ label: "Valley", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }], targetMetric: "bler", targetValue: 1e-2, maxFrameBits: null, quantity: 1, currency: "EUR" },
-      offers: [{ vendorName: "V", moduleName: "M", partNumber: "P", codeFamily: "polar", decision: "soft", n: null, k: null, rate: 0.5, claims: [{ pointLabel: "Valley", channelValue: radio.line.impliedEbn0Db!, metric: "bler", value: 1e-2, ncgOutputBer: null, verdict: "impossible", radio, mark: null, markComment: "", runs: [] }] }],
+      identifier: "M",
+      draft: true,
+      issuedAt: at,
+      zone: "UTC",
+      buyerOrganisation: "Example Water",
+      tender: {
+        reference: "R",
+        title: "Gateways",
+        description: "",
+        channelModel: "biawgn",
+        operatingPoints: [{ label: "Valley", value: -130, sensitivity: { bitRate: 1200, payloadBits: 160, targetPer: 1e-2 } }],
+        targetMetric: "bler",
+        targetValue: 1e-2,
+        maxFrameBits: null,
+        quantity: 1,
+        currency: "EUR",
+      },
+      offers: [
+        {
+          vendorName: "V",
+          moduleName: "M",
+          partNumber: "P",
+          codeFamily: "polar",
+          decision: "soft",
+          n: null,
+          k: null,
+          rate: 0.5,
+          claims: [
+            {
+              pointLabel: "Valley",
+              channelValue: radio.line.impliedEbn0Db!,
+              metric: "bler",
+              value: 1e-2,
+              ncgOutputBer: null,
+              verdict: "impossible",
+              radio,
+              mark: null,
+              markComment: "",
+              runs: [],
+            },
+          ],
+        },
+      ],
       scoreSheet: null,
-      recommendation: { vendorName: "V", moduleName: "M", value: 1, computedValue: 1, valueReason: null, quantityReason: null, currency: "EUR", quantity: 1, justification: "-", preparedBy: "P", preparedAt: at },
-      approvals: [], approvalsNeeded: 1, safetyRelevant: false, technical: { signatures: [], declarations: [] }, cautions: "Verdicts judge.",
+      recommendation: {
+        vendorName: "V",
+        moduleName: "M",
+        value: 1,
+        computedValue: 1,
+        valueReason: null,
+        quantityReason: null,
+        currency: "EUR",
+        quantity: 1,
+        justification: "-",
+        preparedBy: "P",
+        preparedAt: at,
+      },
+      approvals: [],
+      approvalsNeeded: 1,
+      safetyRelevant: false,
+      technical: { signatures: [], declarations: [] },
+      cautions: "Verdicts judge.",
     };
     const doc = memoDocument(facts);
     const words = doc.offers[0].claims[0].sensitivity!;
     expect(doc.tender.operatingPoints[0]).toMatch(/input level -130 dBm at 1,200 bit\/s, 160-bit payload/);
-    expect(words).toContain(`implied Eb/N0 ${radio.line.impliedEbn0Db!.toFixed(2)} dB, limit ${radio.line.limitEbn0Db!.toFixed(2)} dB, margin ${formatMarginDb(radio.line.marginDb)}`);
+    expect(words).toContain(
+      `implied Eb/N0 ${radio.line.impliedEbn0Db!.toFixed(2)} dB, limit ${radio.line.limitEbn0Db!.toFixed(2)} dB, margin ${formatMarginDb(radio.line.marginDb)}`,
+    );
     expect(words).toContain(`Worst: curve point 1 (-145 dBm, PER 0.1), margin ${formatMarginDb(radio.worst.marginDb)}`);
     expect(doc.cautions).toContain(SENSITIVITY_CAUTION);
   });
@@ -198,6 +320,9 @@ describe("the schemas of sensitivity points and claims", () => {
     const claim = { pointIndex: 0, metric: "ber", value: 1e-2, sensitivity: { dbm: -130 } };
     expect(offerClaimSchema.safeParse(claim).error!.issues[0].path).toEqual(["metric"]);
     expect(offerClaimSchema.safeParse({ ...claim, metric: "bler", sensitivity: { dbm: 30.5 } }).error!.issues[0].path).toEqual(["sensitivity", "dbm"]);
-    expect(offerClaimSchema.safeParse({ ...claim, metric: "bler", sensitivity: { dbm: -130, curve: [{ x: 60, unit: "ebn0Db", metric: "per", value: 0.1 }] } }).error!.issues[0].path).toEqual(["sensitivity", "curve", 0, "x"]);
+    expect(
+      offerClaimSchema.safeParse({ ...claim, metric: "bler", sensitivity: { dbm: -130, curve: [{ x: 60, unit: "ebn0Db", metric: "per", value: 0.1 }] } }).error!
+        .issues[0].path,
+    ).toEqual(["sensitivity", "curve", 0, "x"]);
   });
 });

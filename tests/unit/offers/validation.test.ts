@@ -41,7 +41,16 @@ describe("the offer schema shared by the form and the API", () => {
   it("wants a positive price, whole weeks and months, and ascending price breaks", () => {
     const errors = errorsOf({
       ...valid,
-      envelope: { unitPrice: 0, currency: "E", leadTimeWeeks: 1.5, warrantyMonths: -1, priceBreaks: [{ minQuantity: 500, unitPrice: 9 }, { minQuantity: 500, unitPrice: 8 }] },
+      envelope: {
+        unitPrice: 0,
+        currency: "E",
+        leadTimeWeeks: 1.5,
+        warrantyMonths: -1,
+        priceBreaks: [
+          { minQuantity: 500, unitPrice: 9 },
+          { minQuantity: 500, unitPrice: 8 },
+        ],
+      },
     });
     expect(Object.keys(errors).sort()).toEqual([
       "envelope.currency",

@@ -34,7 +34,15 @@ function sample(overrides: Partial<MemoDocument> = {}): MemoDocument {
       { rank: "1", vendorName: "Alder Links", total: "81.2", note: "" },
       { rank: "-", vendorName: "Birch Radio", total: "0.0", note: "Disqualified: impossible claim" },
     ],
-    recommendation: { vendorName: "Alder Links", module: "AL-9", value: "€300,000.00", quantity: "4,000 units", deviations: [], justification: "Best score.", prepared: "Prepared by Pat Buyer" },
+    recommendation: {
+      vendorName: "Alder Links",
+      module: "AL-9",
+      value: "€300,000.00",
+      quantity: "4,000 units",
+      deviations: [],
+      justification: "Best score.",
+      prepared: "Prepared by Pat Buyer",
+    },
     approvals: [
       { name: "Quinn Approver", at: "4 Mar 2027, 09:00 UTC", comment: "Fine." },
       { name: "Rowan Director", at: "4 Mar 2027, 10:15 UTC", comment: "" },

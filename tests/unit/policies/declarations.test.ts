@@ -13,13 +13,10 @@ describe("an engineer before declaring", () => {
     expect(allows(ability, "declare", "Tender", make.Tender({ state: "technical" }))).toBe(true);
   });
 
-  it.each(["Offer", "Claim", "Document", "Mark", "Thread", "EvidenceRun"] as const)(
-    "sees no %s of the tender",
-    (subject) => {
-      expect(ability.can("read", subject)).toBe(false);
-      expect(allows(ability, "read", subject, make[subject]() as never)).toBe(false);
-    },
-  );
+  it.each(["Offer", "Claim", "Document", "Mark", "Thread", "EvidenceRun"] as const)("sees no %s of the tender", (subject) => {
+    expect(ability.can("read", subject)).toBe(false);
+    expect(allows(ability, "read", subject, make[subject]() as never)).toBe(false);
+  });
 
   it("may not mark, record, post or sign", () => {
     expect(allows(ability, "mark", "Claim", make.Claim())).toBe(false);
@@ -51,9 +48,7 @@ describe("an engineer with a conflict on vendor B", () => {
 
   it("may not sign the technical evaluation of that tender, and says why", () => {
     expect(allows(ability, "sign", "TechnicalSignoff", make.TechnicalSignoff())).toBe(false);
-    expect(() => assertAllowed(ability, "sign", "TechnicalSignoff", make.TechnicalSignoff())).toThrow(
-      /conflict of interest/,
-    );
+    expect(() => assertAllowed(ability, "sign", "TechnicalSignoff", make.TechnicalSignoff())).toThrow(/conflict of interest/);
   });
 
   it("keeps the conflict to its tender: vendor B on another declared tender is visible", () => {

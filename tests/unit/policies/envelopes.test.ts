@@ -1,11 +1,5 @@
 import { describe, expect, it } from "vitest";
-import {
-  allows,
-  defineAbilityFor,
-  ENVELOPE_FIELDS,
-  permittedFields,
-  pickPermitted,
-} from "@/policies";
+import { allows, defineAbilityFor, ENVELOPE_FIELDS, permittedFields, pickPermitted } from "@/policies";
 import { actorFor, make, VENDOR_B } from "./fixtures";
 
 const sealed = make.Offer({ envelopeOpened: false });
@@ -67,9 +61,7 @@ describe("a vendor and its own envelope", () => {
 
   it("reads every field of its own offer, sealed or not", () => {
     expect(pickPermitted(ability, "read", "Offer", sealed)).toEqual(sealed);
-    expect(pickPermitted(ability, "read", "Envelope", make.Envelope({ opened: false }))).toEqual(
-      make.Envelope({ opened: false }),
-    );
+    expect(pickPermitted(ability, "read", "Envelope", make.Envelope({ opened: false }))).toEqual(make.Envelope({ opened: false }));
   });
 
   it("gets nothing of another vendor's offer", () => {
@@ -94,9 +86,7 @@ describe("one person holding the engineer role and a commercial role", () => {
   });
 
   it("with a conflict on vendor B does not see B's offer even as buyer", () => {
-    const ability = defineAbilityFor(
-      actorFor(["engineer", "buyer"], { declarations: [{ tenderId: opened.tenderId, conflictedVendorOrgIds: [VENDOR_B] }] }),
-    );
+    const ability = defineAbilityFor(actorFor(["engineer", "buyer"], { declarations: [{ tenderId: opened.tenderId, conflictedVendorOrgIds: [VENDOR_B] }] }));
     const offerOfB = make.Offer({ vendorOrgId: VENDOR_B, envelopeOpened: true });
     expect(allows(ability, "read", "Offer", offerOfB)).toBe(false);
     expect(allows(ability, "read", "Envelope", make.Envelope({ vendorOrgId: VENDOR_B }))).toBe(false);

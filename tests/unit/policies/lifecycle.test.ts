@@ -1,16 +1,5 @@
 import { describe, expect, it } from "vitest";
-import {
-  ACTIONS,
-  ROLES,
-  SUBJECTS,
-  abilityFromRules,
-  allows,
-  asSubject,
-  defineAbilityFor,
-  effectiveRoles,
-  serializeRules,
-  type AppAbility,
-} from "@/policies";
+import { ACTIONS, ROLES, SUBJECTS, abilityFromRules, allows, asSubject, defineAbilityFor, effectiveRoles, serializeRules, type AppAbility } from "@/policies";
 import { actorFor, make, VENDOR_A } from "./fixtures";
 import { cellKey, expectedFor, resolve } from "./table";
 

@@ -1,18 +1,14 @@
 import { describe, expect, it } from "vitest";
-import {
-  ACTIONS,
-  ROLES,
-  SUBJECTS,
-  allows,
-  defineAbilityFor,
-  type Action,
-  type SubjectRecords,
-  type SubjectType,
-} from "@/policies";
+import { ACTIONS, ROLES, SUBJECTS, allows, defineAbilityFor, type Action, type SubjectRecords, type SubjectType } from "@/policies";
 import { actorFor, make } from "./fixtures";
 import { cellKey, expectedFor, resolve, type Grant } from "./table";
 
-interface Cell { label: string; action: Action; subject: SubjectType; grant: Grant | undefined }
+interface Cell {
+  label: string;
+  action: Action;
+  subject: SubjectType;
+  grant: Grant | undefined;
+}
 
 function cellsOf(grants: Map<string, Grant>): Cell[] {
   return SUBJECTS.flatMap((subject) =>
@@ -26,8 +22,7 @@ function cellsOf(grants: Map<string, Grant>): Cell[] {
 describe.each(ROLES)("%s", (role) => {
   const me = actorFor(role);
   const ability = defineAbilityFor(me);
-  const check = (action: Action, subject: SubjectType, record: object) =>
-    allows(ability, action, subject, record as SubjectRecords[typeof subject]);
+  const check = (action: Action, subject: SubjectType, record: object) => allows(ability, action, subject, record as SubjectRecords[typeof subject]);
 
   it.each(cellsOf(expectedFor(role)))("$label", ({ action, subject, grant }) => {
     if (grant) {

@@ -3,19 +3,14 @@
  * allowed, each with records it must reach and records of the same subject it must not
  * (another organisation, another tender, a wrong state). Every cell not listed is denied.
  */
-import {
-  ACTIONS,
-  CANCELLABLE_STATES,
-  TENDER_STATES,
-  type Action,
-  type Actor,
-  type Role,
-  type SubjectType,
-} from "@/policies";
+import { ACTIONS, CANCELLABLE_STATES, TENDER_STATES, type Action, type Actor, type Role, type SubjectType } from "@/policies";
 import { BUYER_ORG, LIMIT, make, SOMEONE, T2, VENDOR_A, VENDOR_B } from "./fixtures";
 
 type Given = object | ((me: Actor) => object);
-export interface Grant { allowed: Given[]; denied: Given[] }
+export interface Grant {
+  allowed: Given[];
+  denied: Given[];
+}
 type Entry = [actions: Action | readonly Action[], subject: SubjectType, allowed: Given[], denied?: Given[]];
 
 const READ = ["read", "list"] as const;
@@ -69,32 +64,42 @@ const TABLE: Record<Role, Entry[]> = {
 
   buyer: [
     [READ, "Tender", tendersIn(TENDER_STATES)],
-    ["create", "Tender", [(me) => make.Tender({ state: "draft", createdBy: me.id })],
-      [make.Tender({ state: "draft", createdBy: SOMEONE }), (me) => make.Tender({ state: "open", createdBy: me.id })]],
+    [
+      "create",
+      "Tender",
+      [(me) => make.Tender({ state: "draft", createdBy: me.id })],
+      [make.Tender({ state: "draft", createdBy: SOMEONE }), (me) => make.Tender({ state: "open", createdBy: me.id })],
+    ],
     [["update", "open"], "Tender", tendersIn(["draft"]), tendersIn(statesBut("draft"))],
     ["cancel", "Tender", tendersIn(CANCELLABLE_STATES), tendersIn(["awarded", "cancelled"])],
     [["openEnvelopes", "recommend"], "Tender", tendersIn(["commercial"]), tendersIn(statesBut("commercial"))],
-    ...(["Offer", "Claim", "Document", "Mark", "EvidenceRun"] as const).map(
-      (subject): Entry => [READ, subject, [...scoped(subject).t1, ...scoped(subject).t2], scoped(subject).sealed],
-    ),
-    ...(["TechnicalSignoff", "Score", "Recommendation", "Approval", "Ledger", "Memo"] as const).map(
-      (subject): Entry => [READ, subject, [make[subject](), make[subject]({ tenderId: T2 })]],
-    ),
+    ...(["Offer", "Claim", "Document", "Mark", "EvidenceRun"] as const).map((subject): Entry => [
+      READ,
+      subject,
+      [...scoped(subject).t1, ...scoped(subject).t2],
+      scoped(subject).sealed,
+    ]),
+    ...(["TechnicalSignoff", "Score", "Recommendation", "Approval", "Ledger", "Memo"] as const).map((subject): Entry => [
+      READ,
+      subject,
+      [make[subject](), make[subject]({ tenderId: T2 })],
+    ]),
     [READ, "Declaration", [make.Declaration()]],
     [READ, "ApprovalLimit", [make.ApprovalLimit()]],
     [[...READ, "update"], "Objection", [make.Objection(), make.Objection({ vendorOrgId: VENDOR_B })]],
     [["create", ...READ], "Addendum", [make.Addendum(), make.Addendum({ tenderId: T2 })]],
-    [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })],
-      [make.Envelope({ opened: false }), make.Envelope({ tenderState: "open" })]],
+    [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })], [make.Envelope({ opened: false }), make.Envelope({ tenderState: "open" })]],
     ["export", "Score", [make.Score()]],
     ["export", "Memo", [make.Memo()]],
-    [["create", "update"], "Recommendation", [(me) => make.Recommendation({ preparedBy: me.id })],
-      [make.Recommendation({ preparedBy: SOMEONE })]],
+    [["create", "update"], "Recommendation", [(me) => make.Recommendation({ preparedBy: me.id })], [make.Recommendation({ preparedBy: SOMEONE })]],
     ["withdraw", "Recommendation", [make.Recommendation(), make.Recommendation({ preparedBy: SOMEONE })]],
-    ["read", "Organisation", [own.org, make.Organisation(), make.Organisation({ id: VENDOR_B })],
-      [make.Organisation({ id: "org-other-buyer", kind: "buyer" })]],
-    ["list", "Organisation", [make.Organisation(), make.Organisation({ id: VENDOR_B })],
-      [make.Organisation({ id: BUYER_ORG, kind: "buyer" })]],
+    [
+      "read",
+      "Organisation",
+      [own.org, make.Organisation(), make.Organisation({ id: VENDOR_B })],
+      [make.Organisation({ id: "org-other-buyer", kind: "buyer" })],
+    ],
+    ["list", "Organisation", [make.Organisation(), make.Organisation({ id: VENDOR_B })], [make.Organisation({ id: BUYER_ORG, kind: "buyer" })]],
   ],
 
   engineer: [
@@ -115,29 +120,45 @@ const TABLE: Record<Role, Entry[]> = {
     ...declaredOnT1(READ, ["Offer", "Claim", "Document", "Mark", "EvidenceRun"]),
     ...declaredOnT1(READ, ["TechnicalSignoff", "Score", "Recommendation", "Approval", "Memo", "Ledger"]),
     ...declaredOnT1("export", ["Memo"]),
-    [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })],
-      [make.Envelope({ opened: false }), make.Envelope({ tenderId: T2 })]],
-    [["approve", "return"], "Approval", [make.Approval(), make.Approval({ value: LIMIT })], [
-      make.Approval({ value: LIMIT + 1 }),
-      make.Approval({ tenderId: T2 }),
-      (me) => make.Approval({ recommendationPreparedBy: me.id }),
-      (me) => make.Approval({ tenderCreatedBy: me.id }),
-    ]],
+    [READ, "Envelope", [make.Envelope(), make.Envelope({ vendorOrgId: VENDOR_B })], [make.Envelope({ opened: false }), make.Envelope({ tenderId: T2 })]],
+    [
+      ["approve", "return"],
+      "Approval",
+      [make.Approval(), make.Approval({ value: LIMIT })],
+      [
+        make.Approval({ value: LIMIT + 1 }),
+        make.Approval({ tenderId: T2 }),
+        (me) => make.Approval({ recommendationPreparedBy: me.id }),
+        (me) => make.Approval({ tenderCreatedBy: me.id }),
+      ],
+    ],
   ],
 
   vendor: [
-    [READ, "Tender", [make.Tender(), make.Tender({ state: "awarded", invitedOrgIds: [VENDOR_A] })],
-      [make.Tender({ state: "draft" }), make.Tender({ invitedOrgIds: [VENDOR_B] })]],
+    [
+      READ,
+      "Tender",
+      [make.Tender(), make.Tender({ state: "awarded", invitedOrgIds: [VENDOR_A] })],
+      [make.Tender({ state: "draft" }), make.Tender({ invitedOrgIds: [VENDOR_B] })],
+    ],
     ...(["Offer", "Claim", "Document", "Thread", "Mark"] as const).map((subject): Entry => {
       const maker = make[subject] as (o?: object) => object;
       return [READ, subject, [maker()], [maker({ vendorOrgId: VENDOR_B })]];
     }),
     // Their own envelope, sealed or not.
     [READ, "Envelope", [make.Envelope({ opened: false }), make.Envelope()], [make.Envelope({ vendorOrgId: VENDOR_B })]],
-    [["create", "update", "submit", "withdraw"], "Offer", [make.Offer({ tenderState: "open" })],
-      [make.Offer({ vendorOrgId: VENDOR_B }), make.Offer({ tenderState: "technical" })]],
-    ["create", "Document", [make.Document({ tenderState: "open" })],
-      [make.Document(), make.Document({ tenderState: "technical" }), make.Document({ vendorOrgId: VENDOR_B, tenderState: "open" })]],
+    [
+      ["create", "update", "submit", "withdraw"],
+      "Offer",
+      [make.Offer({ tenderState: "open" })],
+      [make.Offer({ vendorOrgId: VENDOR_B }), make.Offer({ tenderState: "technical" })],
+    ],
+    [
+      "create",
+      "Document",
+      [make.Document({ tenderState: "open" })],
+      [make.Document(), make.Document({ tenderState: "technical" }), make.Document({ vendorOrgId: VENDOR_B, tenderState: "open" })],
+    ],
     ["post", "Thread", [make.Thread()], [make.Thread({ vendorOrgId: VENDOR_B })]],
     [[...READ, "acknowledge"], "Addendum", [make.Addendum()], [make.Addendum({ invitedOrgIds: [VENDOR_B] })]],
     [["create", ...READ], "Objection", [make.Objection()], [make.Objection({ vendorOrgId: VENDOR_B })]],

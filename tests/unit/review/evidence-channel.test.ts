@@ -47,8 +47,15 @@ describe("the channel a run was measured at", () => {
   });
 
   it("refuses a channel outside the model's range, naming the range", () => {
-    expect(assessRun(claim, { ...clean, channelValue: 0.7 })).toMatchObject({ ok: false, field: "channelValue", message: expect.stringMatching(/at most 0.5/) });
-    expect(assessRun({ ...claim, channelModel: "biawgn", channelValue: 3 }, { ...clean, channelValue: 60 })).toMatchObject({ ok: false, field: "channelValue" });
+    expect(assessRun(claim, { ...clean, channelValue: 0.7 })).toMatchObject({
+      ok: false,
+      field: "channelValue",
+      message: expect.stringMatching(/at most 0.5/),
+    });
+    expect(assessRun({ ...claim, channelModel: "biawgn", channelValue: 3 }, { ...clean, channelValue: 60 })).toMatchObject({
+      ok: false,
+      field: "channelValue",
+    });
   });
 
   it("counts stored runs again by the rule, so a run stored before it cannot verify from a milder channel", () => {

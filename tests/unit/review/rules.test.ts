@@ -14,7 +14,10 @@ describe("sign-off rule", () => {
     expect(checkSignoff(base)).toMatchObject({ ok: true, final: 2, total: 2, signaturesNeeded: 1 });
   });
   it("refuses while a claim is unmarked or only at a request for evidence or clarification", () => {
-    const check = checkSignoff({ ...base, claims: [...done, { id: "c", mark: "clarification-requested", evidence: "none" }, { id: "d", mark: null, evidence: "none" }] });
+    const check = checkSignoff({
+      ...base,
+      claims: [...done, { id: "c", mark: "clarification-requested", evidence: "none" }, { id: "d", mark: null, evidence: "none" }],
+    });
     expect(check).toMatchObject({ ok: false, final: 2, status: 409 });
     expect(check.reason).toMatch(/^2 claims have no final mark yet: accept each claim or reject it as impossible/);
   });
@@ -85,8 +88,28 @@ describe("evidence", () => {
 
 describe("CSV rows", () => {
   const claims: CsvClaim[] = [
-    { id: "c1", vendorName: "Marram Telemetry", pointLabel: "Storm fade", pointIndex: 1, metric: "bler", value: 1e-4, ncgOutputBer: null, channelValue: 5e-3, channelModel: "bsc" },
-    { id: "c2", vendorName: "Oxbow Wireless", pointLabel: "Storm fade", pointIndex: 1, metric: "ber", value: 1e-6, ncgOutputBer: null, channelValue: 5e-3, channelModel: "bsc" },
+    {
+      id: "c1",
+      vendorName: "Marram Telemetry",
+      pointLabel: "Storm fade",
+      pointIndex: 1,
+      metric: "bler",
+      value: 1e-4,
+      ncgOutputBer: null,
+      channelValue: 5e-3,
+      channelModel: "bsc",
+    },
+    {
+      id: "c2",
+      vendorName: "Oxbow Wireless",
+      pointLabel: "Storm fade",
+      pointIndex: 1,
+      metric: "ber",
+      value: 1e-6,
+      ncgOutputBer: null,
+      channelValue: 5e-3,
+      channelModel: "bsc",
+    },
   ];
   it("resolves claims by id, by vendor and point, or falls back to the claim imported on", () => {
     const csv = "claim_id,vendor,point,unit,trials,errors\nc2,,,bits,3000000,0\n,Oxbow Wireless,2,bits,100,0\n,,,frames,40000,0\n";

@@ -81,7 +81,11 @@ describe("technical score of a point", () => {
   });
 
   it("reads the margins from the engine's stored result", () => {
-    expect(scoringMargins({ rateGapFraction: 0.08, channelKind: "ratio", channel: { normal: 2.6, capacity: 4.9 } })).toEqual({ rateGapFraction: 0.08, channelMargin: 2.6, channelKind: "ratio" });
+    expect(scoringMargins({ rateGapFraction: 0.08, channelKind: "ratio", channel: { normal: 2.6, capacity: 4.9 } })).toEqual({
+      rateGapFraction: 0.08,
+      channelMargin: 2.6,
+      channelKind: "ratio",
+    });
     expect(scoringMargins({ rateGapFraction: null, channelKind: "dB", channel: { normal: null, capacity: 1.2 } }).channelMargin).toBe(1.2);
     expect(scoringMargins(null)).toEqual({ rateGapFraction: null, channelMargin: null, channelKind: "ratio" });
   });
@@ -98,7 +102,12 @@ describe("evidence score", () => {
     expect(evidenceScore(claims)).toEqual({ score: 62.5, verified: 2, contradicted: 1 });
     // A verified run on a claim an engineer rejected does not count as verified.
     expect(evidenceScore([{ evidence: "verified", mark: "rejected-impossible" }]).score).toBe(0);
-    expect(evidenceScore([{ evidence: "contradicted", mark: "accepted" }, { evidence: "contradicted", mark: null }]).score).toBe(0);
+    expect(
+      evidenceScore([
+        { evidence: "contradicted", mark: "accepted" },
+        { evidence: "contradicted", mark: null },
+      ]).score,
+    ).toBe(0);
     expect(evidenceScore([]).score).toBe(50);
   });
 });
@@ -115,7 +124,11 @@ describe("relative criteria", () => {
   });
 
   it("takes the largest price break at or below the quantity", () => {
-    const breaks = [{ minQuantity: 5000, unitPrice: 9 }, { minQuantity: 1000, unitPrice: 11 }, { minQuantity: 2500, unitPrice: 10 }];
+    const breaks = [
+      { minQuantity: 5000, unitPrice: 9 },
+      { minQuantity: 1000, unitPrice: 11 },
+      { minQuantity: 2500, unitPrice: 10 },
+    ];
     expect(unitPriceAt(12, breaks, 999)).toBe(12);
     expect(unitPriceAt(12, breaks, 2500)).toBe(10);
     expect(unitPriceAt(12, breaks, 4999)).toBe(10);
@@ -125,15 +138,32 @@ describe("relative criteria", () => {
 
 describe("the tender's rule for confirmed impossible claims", () => {
   const base = (id: string, unitPrice: number, claims: ScoringClaim[]): ScoringOffer => ({
-    id, vendorOrgId: id, vendorName: id, moduleName: id, partNumber: id, codeFamily: "LDPC", decision: "hard", n: 1944, k: 1620, rate: 1620 / 1944,
+    id,
+    vendorOrgId: id,
+    vendorName: id,
+    moduleName: id,
+    partNumber: id,
+    codeFamily: "LDPC",
+    decision: "hard",
+    n: 1944,
+    k: 1620,
+    rate: 1620 / 1944,
     envelope: { unitPrice, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24, priceBreaks: [] },
     claims,
   });
   const rejected = claim({ verdict: "impossible", mark: "rejected-impossible" });
   const input = (rule: "disqualify" | "penalty", penalty = 0): ScoringInput => ({
     tender: {
-      reference: "RC-RULE", channelModel: "bsc", operatingPoints: [{ label: "P", value: 1e-3 }], targetMetric: "bler", targetValue: 1e-4,
-      quantity: 100, currency: "EUR", weights: { technical: 50, evidence: 0, price: 50, leadTime: 0, warranty: 0 }, impossibleRule: rule, impossiblePenalty: penalty,
+      reference: "RC-RULE",
+      channelModel: "bsc",
+      operatingPoints: [{ label: "P", value: 1e-3 }],
+      targetMetric: "bler",
+      targetValue: 1e-4,
+      quantity: 100,
+      currency: "EUR",
+      weights: { technical: 50, evidence: 0, price: 50, leadTime: 0, warranty: 0 },
+      impossibleRule: rule,
+      impossiblePenalty: penalty,
     },
     offers: [base("Cheap", 5, [rejected]), base("Fair", 10, [claim()])],
   });
@@ -155,16 +185,22 @@ describe("the tender's rule for confirmed impossible claims", () => {
     expect(cheap.lines.every((l) => l.normalised === null && l.contribution === null)).toBe(true);
     expect(cheap.total).toBeNull();
     expect(cheap.totalPrice).toBe(500);
-    for (const o of sheet.offers) for (const l of o.lines) if (l.normalised !== null) {
-      expect(l.normalised).toBeGreaterThanOrEqual(0);
-      expect(l.normalised).toBeLessThanOrEqual(100);
-    }
+    for (const o of sheet.offers)
+      for (const l of o.lines)
+        if (l.normalised !== null) {
+          expect(l.normalised).toBeGreaterThanOrEqual(0);
+          expect(l.normalised).toBeLessThanOrEqual(100);
+        }
   });
 
   it("flags an acceptance that overrides the engine's impossible verdict", () => {
     const i = input("disqualify");
     i.offers[0].claims = [claim({ verdict: "impossible", mark: "accepted" })];
-    expect(buildScoreSheet(i).offers.find((o) => o.offerId === "Cheap")!.flags.join(" ")).toMatch(/Accepted although the engine found it impossible \(P\)/);
+    expect(
+      buildScoreSheet(i)
+        .offers.find((o) => o.offerId === "Cheap")!
+        .flags.join(" "),
+    ).toMatch(/Accepted although the engine found it impossible \(P\)/);
   });
 
   it("penalty: subtracts the points (floor 0) and keeps the offer ranked", () => {

@@ -51,7 +51,10 @@ const input: ScoringInput = {
     impossiblePenalty: 0,
   },
   offers: [
-    offer("Alder", 12.5, 8, [{ minQuantity: 500, unitPrice: 11.9 }, { minQuantity: 2000, unitPrice: 10 }]),
+    offer("Alder", 12.5, 8, [
+      { minQuantity: 500, unitPrice: 11.9 },
+      { minQuantity: 2000, unitPrice: 10 },
+    ]),
     offer("Birch", 11.75, 12, []),
     offer("Cedar", 13.99, 10, [{ minQuantity: 1000, unitPrice: 11.05 }]),
   ],
@@ -69,7 +72,16 @@ describe("a worked score sheet", () => {
     expect(by("Alder").unitPriceUsed).toBe(11.9);
     expect(by("Cedar").unitPriceUsed).toBe(11.05);
     // A break above the quantity never applies; at 2,000 units Alder's second break does.
-    expect(totalPriceAt(12.5, [{ minQuantity: 500, unitPrice: 11.9 }, { minQuantity: 2000, unitPrice: 10 }], 2000)).toBe(20000);
+    expect(
+      totalPriceAt(
+        12.5,
+        [
+          { minQuantity: 500, unitPrice: 11.9 },
+          { minQuantity: 2000, unitPrice: 10 },
+        ],
+        2000,
+      ),
+    ).toBe(20000);
     expect(totalPriceAt(13.99, [{ minQuantity: 1000, unitPrice: 11.05 }], 999)).toBe(13976.01);
   });
 
@@ -87,7 +99,11 @@ describe("a worked score sheet", () => {
     expect(by("Alder").total).toBeCloseTo(95, 9);
     expect(by("Birch").total).toBeCloseTo(65.829787234042553 + 20, 9);
     expect(by("Cedar").total).toBeCloseTo(94, 9);
-    expect(sheet.offers.map((o) => [o.vendorName, o.rank])).toEqual([["Alder", 1], ["Cedar", 2], ["Birch", 3]]);
+    expect(sheet.offers.map((o) => [o.vendorName, o.rank])).toEqual([
+      ["Alder", 1],
+      ["Cedar", 2],
+      ["Birch", 3],
+    ]);
     // Each contribution is weight * normalised / sum of weights, and they add up to the total.
     expect(line("Birch", "price").contribution).toBeCloseTo((70 * 22100) / 235 / 100, 9);
     const sum = by("Birch").lines.reduce((s, l) => s + (l.contribution ?? 0), 0);

@@ -27,7 +27,11 @@ describe("closing time across zones", () => {
   });
 
   it("gives back the same wall-clock time for the form", () => {
-    for (const [local, zone] of [["2027-11-02T09:15", "Asia/Kolkata"], ["2027-06-30T23:45", "Pacific/Auckland"], ["2027-12-31T23:59", "UTC"]]) {
+    for (const [local, zone] of [
+      ["2027-11-02T09:15", "Asia/Kolkata"],
+      ["2027-06-30T23:45", "Pacific/Auckland"],
+      ["2027-12-31T23:59", "UTC"],
+    ]) {
       expect(closingLocal(closingInstant(local, zone), zone)).toBe(local);
     }
   });

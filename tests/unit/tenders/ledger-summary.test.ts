@@ -9,7 +9,9 @@ describe("ledger details", () => {
   });
 
   it("name invited organisations, leaving their ids to the stored entry", () => {
-    expect(lines({ invited: ["Kestrelink Radio", "Oxbow Wireless"], invitedOrgIds: ["a", "b"], vendorOrgId: "c" })).toEqual(["invited: Kestrelink Radio, Oxbow Wireless"]);
+    expect(lines({ invited: ["Kestrelink Radio", "Oxbow Wireless"], invitedOrgIds: ["a", "b"], vendorOrgId: "c" })).toEqual([
+      "invited: Kestrelink Radio, Oxbow Wireless",
+    ]);
   });
 
   it("read an edit as the changed values", () => {

@@ -43,11 +43,7 @@ describe("opening a draft", () => {
 
   it("names every missing piece at once", () => {
     const problems = openingProblems({ ...draft, operatingPoints: [], invitedOrgIds: [], closesAt: NOW }, NOW);
-    expect(problems).toEqual([
-      "Add at least one operating point.",
-      "Invite at least one vendor organisation.",
-      "Set a closing time in the future.",
-    ]);
+    expect(problems).toEqual(["Add at least one operating point.", "Invite at least one vendor organisation.", "Set a closing time in the future."]);
   });
 
   it("refuses a tender that is not a draft", () => {

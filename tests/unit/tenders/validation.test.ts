@@ -6,7 +6,10 @@ const valid = {
   title: "Culvert sensor radios",
   description: "",
   channelModel: "bsc",
-  operatingPoints: [{ label: "Clear", value: 1e-3 }, { label: "Fade", value: 5e-3 }],
+  operatingPoints: [
+    { label: "Clear", value: 1e-3 },
+    { label: "Fade", value: 5e-3 },
+  ],
   targetMetric: "bler",
   targetValue: 1e-4,
   maxFrameBits: 2048,
@@ -61,12 +64,29 @@ describe("a draft tender", () => {
     expect(errorsOf({ ...valid, operatingPoints: [{ label: "Zero", value: 0 }] })).toHaveProperty(["operatingPoints.0.value"]);
     expect(errorsOf({ ...valid, operatingPoints: [{ label: "Half", value: 0.5 }] })).toEqual({});
     expect(errorsOf({ ...valid, channelModel: "bec", operatingPoints: [{ label: "One", value: 1 }] })).toHaveProperty(["operatingPoints.0.value"]);
-    expect(errorsOf({ ...valid, channelModel: "biawgn", operatingPoints: [{ label: "Low", value: -5 }, { label: "High", value: 20 }] })).toEqual({});
+    expect(
+      errorsOf({
+        ...valid,
+        channelModel: "biawgn",
+        operatingPoints: [
+          { label: "Low", value: -5 },
+          { label: "High", value: 20 },
+        ],
+      }),
+    ).toEqual({});
     expect(errorsOf({ ...valid, channelModel: "biawgn", operatingPoints: [{ label: "Hot", value: 21 }] })).toHaveProperty(["operatingPoints.0.value"]);
   });
 
   it("wants distinct point names, a residual error in (0, 1) and a three-letter currency", () => {
-    const errors = errorsOf({ ...valid, operatingPoints: [{ label: "A", value: 1e-3 }, { label: "a", value: 2e-3 }], targetValue: 1, currency: "EURO" });
+    const errors = errorsOf({
+      ...valid,
+      operatingPoints: [
+        { label: "A", value: 1e-3 },
+        { label: "a", value: 2e-3 },
+      ],
+      targetValue: 1,
+      currency: "EURO",
+    });
     expect(Object.keys(errors).sort()).toEqual(["currency", "operatingPoints.1.label", "targetValue"]);
   });
 

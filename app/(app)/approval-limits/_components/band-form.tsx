@@ -10,7 +10,6 @@ import { FieldError, FormStatus } from "@/app/_components/form-status";
 import { approvalBandSchema, type ApprovalBandInput } from "@/lib/validation/approvals";
 import { createBandAction, updateBandAction } from "../actions";
 
-
 /** Adds a band, or changes one when `band` is given. Overlaps are refused by the server with the bands named. */
 export function BandForm({ band, onDone }: { band?: ApprovalBandInput & { id: string }; onDone?: () => void }) {
   const [result, setResult] = useState<FormResult>({});
@@ -32,8 +31,15 @@ export function BandForm({ band, onDone }: { band?: ApprovalBandInput & { id: st
   const e = formState.errors;
   const field = (name: keyof ApprovalBandInput, label: string, numeric = true) => (
     <div>
-      <label className="label" htmlFor={`${prefix}-${name}`}>{label}</label>
-      <input id={`${prefix}-${name}`} className="field" inputMode={numeric ? "decimal" : undefined} {...register(name, numeric ? { setValueAs: name === "maxValue" ? formOptionalDecimal : name === "approvalsNeeded" ? formCount : formDecimal } : {})} />
+      <label className="label" htmlFor={`${prefix}-${name}`}>
+        {label}
+      </label>
+      <input
+        id={`${prefix}-${name}`}
+        className="field"
+        inputMode={numeric ? "decimal" : undefined}
+        {...register(name, numeric ? { setValueAs: name === "maxValue" ? formOptionalDecimal : name === "approvalsNeeded" ? formCount : formDecimal } : {})}
+      />
       <FieldError message={e[name]?.message} />
     </div>
   );
@@ -47,7 +53,9 @@ export function BandForm({ band, onDone }: { band?: ApprovalBandInput & { id: st
         {field("minApproverLimit", "Least approver limit")}
       </div>
       <FormStatus result={result} />
-      <button type="submit" className="btn" disabled={pending}>{pending ? "Saving…" : band ? "Save band" : "Add band"}</button>
+      <button type="submit" className="btn" disabled={pending}>
+        {pending ? "Saving…" : band ? "Save band" : "Add band"}
+      </button>
     </form>
   );
 }

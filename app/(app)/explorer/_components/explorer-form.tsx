@@ -47,7 +47,9 @@ export function ExplorerForm({ view }: { view: ExplorerFormValues }) {
       }}
     >
       <div>
-        <label className="label" htmlFor="ex-model">Channel</label>
+        <label className="label" htmlFor="ex-model">
+          Channel
+        </label>
         <select
           id="ex-model"
           className="field"
@@ -66,18 +68,42 @@ export function ExplorerForm({ view }: { view: ExplorerFormValues }) {
           <option value="biawgn">Soft decision (BI-AWGN)</option>
         </select>
       </div>
-      <div className="w-40"><label className="label" htmlFor="ex-x">{PARAMETER[model]}</label><input id="ex-x" className="field" inputMode="decimal" value={values.x} onChange={set("x")} /></div>
-      <div className="w-32"><label className="label" htmlFor="ex-n">n (bits)</label><input id="ex-n" className="field" inputMode="numeric" value={values.n} onChange={set("n")} /></div>
-      <div className="w-32"><label className="label" htmlFor="ex-k">k (bits)</label><input id="ex-k" className="field" inputMode="numeric" value={values.k} onChange={set("k")} /></div>
-      <div className="w-32"><label className="label" htmlFor="ex-target">Target BLER</label><input id="ex-target" className="field" inputMode="decimal" value={values.target} onChange={set("target")} /></div>
+      <div className="w-40">
+        <label className="label" htmlFor="ex-x">
+          {PARAMETER[model]}
+        </label>
+        <input id="ex-x" className="field" inputMode="decimal" value={values.x} onChange={set("x")} />
+      </div>
+      <div className="w-32">
+        <label className="label" htmlFor="ex-n">
+          n (bits)
+        </label>
+        <input id="ex-n" className="field" inputMode="numeric" value={values.n} onChange={set("n")} />
+      </div>
+      <div className="w-32">
+        <label className="label" htmlFor="ex-k">
+          k (bits)
+        </label>
+        <input id="ex-k" className="field" inputMode="numeric" value={values.k} onChange={set("k")} />
+      </div>
+      <div className="w-32">
+        <label className="label" htmlFor="ex-target">
+          Target BLER
+        </label>
+        <input id="ex-target" className="field" inputMode="decimal" value={values.target} onChange={set("target")} />
+      </div>
       {model === "biawgn" ? (
         <div className="flex w-full flex-wrap items-end gap-4">
           <div className="min-w-0 flex-1 basis-64">
-            <label className="label" htmlFor="ex-curve">Vendor curve (Eb/N0 dB : error rate, comma between points)</label>
+            <label className="label" htmlFor="ex-curve">
+              Vendor curve (Eb/N0 dB : error rate, comma between points)
+            </label>
             <input id="ex-curve" className="field" placeholder="e.g. 1.5:1e-2, 2:1e-4, 2.5:1e-6" value={values.curve} onChange={set("curve")} />
           </div>
           <div className="w-32">
-            <label className="label" htmlFor="ex-metric">Curve states</label>
+            <label className="label" htmlFor="ex-metric">
+              Curve states
+            </label>
             <select id="ex-metric" className="field" value={values.metric} onChange={set("metric")}>
               <option value="bler">BLER</option>
               <option value="ber">BER</option>
@@ -86,7 +112,9 @@ export function ExplorerForm({ view }: { view: ExplorerFormValues }) {
           </div>
         </div>
       ) : null}
-      <button type="submit" className="btn" disabled={pending}>{pending ? "Computing…" : "Show"}</button>
+      <button type="submit" className="btn" disabled={pending}>
+        {pending ? "Computing…" : "Show"}
+      </button>
     </form>
   );
 }

@@ -38,7 +38,9 @@ export function SensitivityForm({ values: initial }: { values: Record<Key, strin
     >
       {FIELDS.map(([key, label, width]) => (
         <div key={key} className={width}>
-          <label className="label" htmlFor={`sens-${key}`}>{label}</label>
+          <label className="label" htmlFor={`sens-${key}`}>
+            {label}
+          </label>
           <input
             id={`sens-${key}`}
             className="field"
@@ -48,7 +50,9 @@ export function SensitivityForm({ values: initial }: { values: Record<Key, strin
           />
         </div>
       ))}
-      <button type="submit" className="btn" disabled={pending}>{pending ? "Computing…" : "Convert"}</button>
+      <button type="submit" className="btn" disabled={pending}>
+        {pending ? "Computing…" : "Convert"}
+      </button>
     </form>
   );
 }

@@ -21,30 +21,42 @@ export function SensitivityPanel({ raw }: { raw: SearchParams }) {
     <section className="panel space-y-3" aria-label="Sensitivity calculator">
       <h2>Sensitivity and energy per bit</h2>
       <p className="text-sm text-ink-soft">
-        Eb/N0 = input level + 173.98 dBm/Hz (thermal noise at 290 K) - 10 log10(information bit rate) - noise figure. The
-        limit is the least energy per bit with which any code, modulation and bandwidth sends the payload at the PER.
+        Eb/N0 = input level + 173.98 dBm/Hz (thermal noise at 290 K) - 10 log10(information bit rate) - noise figure. The limit is the least energy per bit with
+        which any code, modulation and bandwidth sends the payload at the PER.
       </p>
       <SensitivityForm values={values} />
       {!parsed.success ? (
         <div role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
-          <ul className="list-disc pl-5">{explorerIssues(parsed.error).map((m) => <li key={m}>{m}</li>)}</ul>
+          <ul className="list-disc pl-5">
+            {explorerIssues(parsed.error).map((m) => (
+              <li key={m}>{m}</li>
+            ))}
+          </ul>
         </div>
       ) : null}
       {r && parsed.success ? (
         <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[auto_1fr]" aria-label="Sensitivity result">
           <dt className="text-ink-soft">Input level and Eb/N0</dt>
-          <dd>{dB(r.levelDbm, "dBm")} is Eb/N0 = {dB(r.ebn0Db, "dB")} at {parsed.data.rb.toLocaleString("en-GB")} bit/s and noise figure {dB(parsed.data.nf, "dB")}</dd>
-          <dt className="text-ink-soft">Least level for {parsed.data.payload.toLocaleString("en-GB")} bits at PER {formatSci(parsed.data.per)}</dt>
-          <dd>{dB(r.limitLevelDbm, "dBm")} (Eb/N0 {dB(r.limitEbn0Db, "dB")}; Polyanskiy, Poor, Verdu 2011): a sensitivity below it is impossible</dd>
+          <dd>
+            {dB(r.levelDbm, "dBm")} is Eb/N0 = {dB(r.ebn0Db, "dB")} at {parsed.data.rb.toLocaleString("en-GB")} bit/s and noise figure{" "}
+            {dB(parsed.data.nf, "dB")}
+          </dd>
+          <dt className="text-ink-soft">
+            Least level for {parsed.data.payload.toLocaleString("en-GB")} bits at PER {formatSci(parsed.data.per)}
+          </dt>
+          <dd>
+            {dB(r.limitLevelDbm, "dBm")} (Eb/N0 {dB(r.limitEbn0Db, "dB")}; Polyanskiy, Poor, Verdu 2011): a sensitivity below it is impossible
+          </dd>
           <dt className="text-ink-soft">Reached by orthogonal signalling from</dt>
-          <dd>{dB(r.achievableLevelDbm, "dBm")} (Eb/N0 {dB(r.achievableEbn0Db, "dB")})</dd>
+          <dd>
+            {dB(r.achievableLevelDbm, "dBm")} (Eb/N0 {dB(r.achievableEbn0Db, "dB")})
+          </dd>
           <dt className="text-ink-soft">Margin to the limit</dt>
           <dd>{r.limitEbn0Db === null ? "no limit applies" : dB(r.ebn0Db - r.limitEbn0Db, "dB")}</dd>
         </dl>
       ) : null}
       <p className="text-xs text-ink-soft">
-        Measured sensitivity depends on test conditions (conducted or radiated, temperature, interference); this judges only
-        the physical limit.
+        Measured sensitivity depends on test conditions (conducted or radiated, temperature, interference); this judges only the physical limit.
       </p>
     </section>
   );

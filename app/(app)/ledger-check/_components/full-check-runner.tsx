@@ -38,11 +38,17 @@ export function FullCheckRunner() {
 
   return (
     <div className="space-y-2">
-      <button type="button" className="btn" onClick={run} disabled={running}>{running ? "Checking…" : "Check the whole ledger"}</button>
+      <button type="button" className="btn" onClick={run} disabled={running}>
+        {running ? "Checking…" : "Check the whole ledger"}
+      </button>
       {progress ? (
         <div className="space-y-1">
           <progress className="w-full" max={Math.max(progress.total, 1)} value={progress.checked} aria-label="Entries checked" />
-          <p role="status" aria-label="Full check progress" className={`text-sm ${progress.status === "broken" ? "font-semibold text-verdict-impossible" : ""}`}>
+          <p
+            role="status"
+            aria-label="Full check progress"
+            className={`text-sm ${progress.status === "broken" ? "font-semibold text-verdict-impossible" : ""}`}
+          >
             {progress.status === "running"
               ? `${progress.checked.toLocaleString("en-GB")} of ${progress.total.toLocaleString("en-GB")} entries checked…`
               : progress.status === "intact"
@@ -51,7 +57,11 @@ export function FullCheckRunner() {
           </p>
         </div>
       ) : null}
-      {error ? <p role="alert" className="text-sm text-verdict-impossible">{error}</p> : null}
+      {error ? (
+        <p role="alert" className="text-sm text-verdict-impossible">
+          {error}
+        </p>
+      ) : null}
     </div>
   );
 }

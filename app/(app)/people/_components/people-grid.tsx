@@ -28,7 +28,13 @@ export function PeopleGrid({ people, selfId }: { people: PersonRow[]; selfId: st
       { field: "organisationName", headerName: "Organisation", flex: 1.2 },
       { headerName: "Roles", valueGetter: (p) => p.data?.roles.join(", "), flex: 1 },
       { headerName: "Status", valueGetter: (p) => (p.data?.active ? "active" : "deactivated"), width: 120 },
-      { field: "approvalLimit", headerName: "Approval limit", type: "rightAligned", width: 150, valueFormatter: (p) => (p.value == null ? "" : Number(p.value).toLocaleString("en-GB")) },
+      {
+        field: "approvalLimit",
+        headerName: "Approval limit",
+        type: "rightAligned",
+        width: 150,
+        valueFormatter: (p) => (p.value == null ? "" : Number(p.value).toLocaleString("en-GB")),
+      },
     ],
     [],
   );
@@ -46,7 +52,9 @@ export function PeopleGrid({ people, selfId }: { people: PersonRow[]; selfId: st
         height={360}
         empty={{ title: "No people in this view", hint: "Create one with the New account form on this page; it appears here at once." }}
       />
-      {selected ? <PersonEditor key={selected.id} person={selected} isSelf={selected.id === selfId} /> : (
+      {selected ? (
+        <PersonEditor key={selected.id} person={selected} isSelf={selected.id === selfId} />
+      ) : (
         <p className="text-sm text-ink-soft">Select a person to change roles, approval limit or access.</p>
       )}
     </div>
@@ -63,23 +71,40 @@ function PersonEditor({ person, isSelf }: { person: PersonRow; isSelf: boolean }
 
   return (
     <section className="panel space-y-3" aria-label={`Edit ${person.name}`}>
-      <h2>{person.name} <span className="font-normal text-ink-soft">· {person.email}</span></h2>
-      {result.message ? <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>{result.message}</p> : null}
+      <h2>
+        {person.name} <span className="font-normal text-ink-soft">· {person.email}</span>
+      </h2>
+      {result.message ? (
+        <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>
+          {result.message}
+        </p>
+      ) : null}
       <fieldset className="flex flex-wrap items-center gap-3 text-sm">
         <legend className="label">Roles</legend>
         {allowed.map((role) => (
           <label key={role} className="inline-flex items-center gap-1">
-            <input type="checkbox" checked={roles.includes(role)} onChange={(e) => setRoles(e.target.checked ? [...roles, role] : roles.filter((r) => r !== role))} /> {role}
+            <input
+              type="checkbox"
+              checked={roles.includes(role)}
+              onChange={(e) => setRoles(e.target.checked ? [...roles, role] : roles.filter((r) => r !== role))}
+            />{" "}
+            {role}
           </label>
         ))}
-        <button type="button" className="btn-quiet" disabled={pending} onClick={() => save({ roles })}>Save roles</button>
+        <button type="button" className="btn-quiet" disabled={pending} onClick={() => save({ roles })}>
+          Save roles
+        </button>
       </fieldset>
       <div className="flex items-end gap-2 text-sm">
         <div>
-          <label className="label" htmlFor="limit">Approval limit</label>
+          <label className="label" htmlFor="limit">
+            Approval limit
+          </label>
           <input id="limit" className="field w-40" inputMode="decimal" value={limit} onChange={(e) => setLimit(e.target.value)} />
         </div>
-        <button type="button" className="btn-quiet" disabled={pending} onClick={() => save({ approvalLimit: formOptionalDecimal(limit) })}>Save limit</button>
+        <button type="button" className="btn-quiet" disabled={pending} onClick={() => save({ approvalLimit: formOptionalDecimal(limit) })}>
+          Save limit
+        </button>
       </div>
       {!isSelf ? (
         <button type="button" className="btn-quiet" disabled={pending} onClick={() => save({ active: !person.active })}>

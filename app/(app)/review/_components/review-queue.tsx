@@ -56,21 +56,36 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
   };
   const select = (name: Filter, label: string, options: [string, string][]) => (
     <div>
-      <label className="label" htmlFor={`filter-${name}`}>{label}</label>
+      <label className="label" htmlFor={`filter-${name}`}>
+        {label}
+      </label>
       <select id={`filter-${name}`} className="field" value={search.get(name) ?? ""} onChange={(e) => setFilter(name, e.target.value)}>
         <option value="">All</option>
-        {options.map(([value, text]) => <option key={value} value={value}>{text}</option>)}
+        {options.map(([value, text]) => (
+          <option key={value} value={value}>
+            {text}
+          </option>
+        ))}
       </select>
     </div>
   );
 
   const columns = useMemo<ColDef<QueueRow>[]>(
     () => [
-      { field: "verdict", headerName: "Verdict", width: 160, cellRenderer: (p: ICellRendererParams<QueueRow>) => (p.data ? <VerdictBadge verdict={p.data.verdict} /> : null) },
+      {
+        field: "verdict",
+        headerName: "Verdict",
+        width: 160,
+        cellRenderer: (p: ICellRendererParams<QueueRow>) => (p.data ? <VerdictBadge verdict={p.data.verdict} /> : null),
+      },
       { field: "tenderReference", headerName: "Tender", width: 130 },
       { field: "vendorName", headerName: "Vendor", flex: 1 },
       { field: "moduleName", headerName: "Module", flex: 1 },
-      { headerName: "Operating point", flex: 1.2, valueGetter: (p) => p.data && `${p.data.pointLabel}: ${formatCondition(p.data.channelModel, p.data.channelValue)}` },
+      {
+        headerName: "Operating point",
+        flex: 1.2,
+        valueGetter: (p) => p.data && `${p.data.pointLabel}: ${formatCondition(p.data.channelModel, p.data.channelValue)}`,
+      },
       {
         headerName: "Claimed",
         width: 140,
@@ -78,11 +93,23 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
           p.data &&
           (p.data.sensitivityDbm !== null
             ? `${p.data.sensitivityDbm} dBm at PER ${formatSci(p.data.value)}, worst margin ${formatMarginDb(p.data.worstMarginDb)}`
-            : p.data.metric === "ncg" ? `NCG ${p.data.value} dB` : `${p.data.metric.toUpperCase()} ${formatSci(p.data.value)}`),
+            : p.data.metric === "ncg"
+              ? `NCG ${p.data.value} dB`
+              : `${p.data.metric.toUpperCase()} ${formatSci(p.data.value)}`),
       },
       { headerName: "Mark", width: 190, valueGetter: (p) => (p.data?.mark ? MARK_LABELS[p.data.mark as keyof typeof MARK_LABELS] : "Not marked") },
       { headerName: "Evidence", width: 130, valueGetter: (p) => (p.data?.evidence ? EVIDENCE_LABELS[p.data.evidence] : "") },
-      { headerName: "", width: 90, sortable: false, cellRenderer: (p: ICellRendererParams<QueueRow>) => (p.data ? <Link href={`/review/claims/${p.data.id}`} aria-label={`Open claim ${p.data.vendorName} ${p.data.pointLabel}`}>Open</Link> : null) },
+      {
+        headerName: "",
+        width: 90,
+        sortable: false,
+        cellRenderer: (p: ICellRendererParams<QueueRow>) =>
+          p.data ? (
+            <Link href={`/review/claims/${p.data.id}`} aria-label={`Open claim ${p.data.vendorName} ${p.data.pointLabel}`}>
+              Open
+            </Link>
+          ) : null,
+      },
     ],
     [],
   );
@@ -90,9 +117,17 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
   return (
     <section className="space-y-3" aria-label="Claims to review">
       <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
-        {select("tenderId", "Tender", tenders.map((t) => [t.id, t.reference]))}
+        {select(
+          "tenderId",
+          "Tender",
+          tenders.map((t) => [t.id, t.reference]),
+        )}
         {select("vendor", "Vendor", vendors)}
-        {select("verdict", "Verdict", VERDICTS.map((v) => [v, VERDICT_LABELS[v]]))}
+        {select(
+          "verdict",
+          "Verdict",
+          VERDICTS.map((v) => [v, VERDICT_LABELS[v]]),
+        )}
         {select("mark", "Mark", [["unmarked", "Not marked"], ...(Object.entries(MARK_LABELS) as [string, string][])])}
       </div>
       <p className="text-xs text-ink-soft" role="status">
@@ -108,7 +143,10 @@ function Queue({ tenders }: { tenders: { id: string; reference: string }[] }) {
         empty={
           query
             ? { title: "No claims match these filters", hint: "Set a filter above back to “All” to widen the list." }
-            : { title: "No claims to review", hint: "Claims of tenders in technical evaluation appear here once you have declared on them (above); this list refreshes on its own." }
+            : {
+                title: "No claims to review",
+                hint: "Claims of tenders in technical evaluation appear here once you have declared on them (above); this list refreshes on its own.",
+              }
         }
       />
       {data ? <Pager info={data} noun={["claim", "claims"]} href={(page) => pageHref(pathname, asked, page)} /> : null}

@@ -19,7 +19,9 @@ export function NoticeFields() {
       <p className="text-xs text-ink-soft">{SCORES_REVEAL}</p>
       <FieldError id="t-noticeDisclosure-error" message={errorAt(formState.errors, "noticeDisclosure")} />
       <div className="max-w-xs">
-        <label className="label" htmlFor="t-standstillDays">Standstill period (days)</label>
+        <label className="label" htmlFor="t-standstillDays">
+          Standstill period (days)
+        </label>
         <input
           id="t-standstillDays"
           className="field tabular-nums"

@@ -17,8 +17,17 @@ function SensitivityInputs({ i }: { i: number }) {
     const error = errorAt(formState.errors, path);
     return (
       <div>
-        <label className="text-xs text-ink-soft" htmlFor={`op-${i}-${name}`}>{label}</label>
-        <input id={`op-${i}-${name}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(error)} aria-describedby={`op-${i}-${name}-error`} {...register(path, { setValueAs })} />
+        <label className="text-xs text-ink-soft" htmlFor={`op-${i}-${name}`}>
+          {label}
+        </label>
+        <input
+          id={`op-${i}-${name}`}
+          className="field tabular-nums"
+          inputMode="decimal"
+          aria-invalid={Boolean(error)}
+          aria-describedby={`op-${i}-${name}-error`}
+          {...register(path, { setValueAs })}
+        />
         <FieldError id={`op-${i}-${name}-error`} message={error} />
       </div>
     );
@@ -48,8 +57,11 @@ export function OperatingPointsFields() {
     <fieldset className="space-y-2">
       <legend className="label">Operating points</legend>
       <p className="text-xs text-ink-soft">
-        Each point: a name and the {channel.parameter}{unit}; {CONDITION_RANGES[model].words}.
-        {soft ? ` Or state a point as a receiver's input level (dBm) at an information bit rate, payload and packet error rate; ${SENSITIVITY_RANGE.words}.` : ""}
+        Each point: a name and the {channel.parameter}
+        {unit}; {CONDITION_RANGES[model].words}.
+        {soft
+          ? ` Or state a point as a receiver's input level (dBm) at an information bit rate, payload and packet error rate; ${SENSITIVITY_RANGE.words}.`
+          : ""}
       </p>
       {fields.map((field, i) => {
         const labelError = errorAt(errors, `operatingPoints.${i}.label`);
@@ -57,15 +69,31 @@ export function OperatingPointsFields() {
         const inDbm = soft && Boolean(points[i]?.sensitivity);
         const valueWords = inDbm ? "input level (dBm)" : `${channel.parameter}${unit}`;
         return (
-          <div key={field.id} className={`grid items-start gap-2 ${soft ? "grid-cols-1 sm:grid-cols-[1fr_11rem_12rem_auto]" : "grid-cols-1 sm:grid-cols-[1fr_12rem_auto]"}`} role="group" aria-label={`Operating point ${i + 1}`}>
+          <div
+            key={field.id}
+            className={`grid items-start gap-2 ${soft ? "grid-cols-1 sm:grid-cols-[1fr_11rem_12rem_auto]" : "grid-cols-1 sm:grid-cols-[1fr_12rem_auto]"}`}
+            role="group"
+            aria-label={`Operating point ${i + 1}`}
+          >
             <div>
-              <label className="sr-only" htmlFor={`op-${i}-label`}>Point {i + 1} name</label>
-              <input id={`op-${i}-label`} className="field" placeholder="e.g. Storm fade" aria-invalid={Boolean(labelError)} aria-describedby={`op-${i}-label-error`} {...register(`operatingPoints.${i}.label`)} />
+              <label className="sr-only" htmlFor={`op-${i}-label`}>
+                Point {i + 1} name
+              </label>
+              <input
+                id={`op-${i}-label`}
+                className="field"
+                placeholder="e.g. Storm fade"
+                aria-invalid={Boolean(labelError)}
+                aria-describedby={`op-${i}-label-error`}
+                {...register(`operatingPoints.${i}.label`)}
+              />
               <FieldError id={`op-${i}-label-error`} message={labelError} />
             </div>
             {soft ? (
               <div>
-                <label className="sr-only" htmlFor={`op-${i}-form`}>Point {i + 1} stated as</label>
+                <label className="sr-only" htmlFor={`op-${i}-form`}>
+                  Point {i + 1} stated as
+                </label>
                 <select
                   id={`op-${i}-form`}
                   className="field"
@@ -82,14 +110,25 @@ export function OperatingPointsFields() {
               </div>
             ) : null}
             <div>
-              <label className="sr-only" htmlFor={`op-${i}-value`}>Point {i + 1} {valueWords}</label>
+              <label className="sr-only" htmlFor={`op-${i}-value`}>
+                Point {i + 1} {valueWords}
+              </label>
               <div className="flex items-center gap-1">
-                <input id={`op-${i}-value`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(valueError)} aria-describedby={`op-${i}-value-error`} {...register(`operatingPoints.${i}.value`, { setValueAs: formDecimal })} />
-                <span className="text-xs text-ink-soft">{inDbm ? "dBm" : channel.unit ?? ""}</span>
+                <input
+                  id={`op-${i}-value`}
+                  className="field tabular-nums"
+                  inputMode="decimal"
+                  aria-invalid={Boolean(valueError)}
+                  aria-describedby={`op-${i}-value-error`}
+                  {...register(`operatingPoints.${i}.value`, { setValueAs: formDecimal })}
+                />
+                <span className="text-xs text-ink-soft">{inDbm ? "dBm" : (channel.unit ?? "")}</span>
               </div>
               <FieldError id={`op-${i}-value-error`} message={valueError} />
             </div>
-            <button type="button" className="btn-quiet" onClick={() => remove(i)} aria-label={`Remove point ${i + 1}`}>Remove</button>
+            <button type="button" className="btn-quiet" onClick={() => remove(i)} aria-label={`Remove point ${i + 1}`}>
+              Remove
+            </button>
             {inDbm ? <SensitivityInputs i={i} /> : null}
           </div>
         );
@@ -100,10 +139,20 @@ export function OperatingPointsFields() {
       </button>
       {soft ? (
         <div className="max-w-md">
-          <label className="label" htmlFor="t-assumedNoiseFigureDb">Assumed receiver noise figure (dB)</label>
-          <input id="t-assumedNoiseFigureDb" className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(nfError)} aria-describedby="t-assumedNoiseFigureDb-error" {...register("assumedNoiseFigureDb", { setValueAs: formDecimal })} />
+          <label className="label" htmlFor="t-assumedNoiseFigureDb">
+            Assumed receiver noise figure (dB)
+          </label>
+          <input
+            id="t-assumedNoiseFigureDb"
+            className="field tabular-nums"
+            inputMode="decimal"
+            aria-invalid={Boolean(nfError)}
+            aria-describedby="t-assumedNoiseFigureDb-error"
+            {...register("assumedNoiseFigureDb", { setValueAs: formDecimal })}
+          />
           <p className="mt-1 text-xs text-ink-muted">
-            Used to judge plausibility where a vendor states no noise figure (e.g. {DEFAULT_ASSUMED_NF_DB} dB); impossibility is always judged at the vendor&apos;s stated figure or 0 dB, an ideal receiver.
+            Used to judge plausibility where a vendor states no noise figure (e.g. {DEFAULT_ASSUMED_NF_DB} dB); impossibility is always judged at the
+            vendor&apos;s stated figure or 0 dB, an ideal receiver.
           </p>
           <FieldError id="t-assumedNoiseFigureDb-error" message={nfError} />
         </div>

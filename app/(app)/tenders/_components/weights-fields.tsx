@@ -28,8 +28,16 @@ export function WeightsFields() {
           const share = total > 0 && Number.isFinite(weights?.[key]) ? Math.round((Number(weights[key]) / total) * 100) : 0;
           return (
             <div key={key}>
-              <label className="text-xs text-ink-soft" htmlFor={`w-${key}`}>{NAMES[key]} weight</label>
-              <input id={`w-${key}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(message)} {...register(`weights.${key}`, { setValueAs: formDecimal })} />
+              <label className="text-xs text-ink-soft" htmlFor={`w-${key}`}>
+                {NAMES[key]} weight
+              </label>
+              <input
+                id={`w-${key}`}
+                className="field tabular-nums"
+                inputMode="decimal"
+                aria-invalid={Boolean(message)}
+                {...register(`weights.${key}`, { setValueAs: formDecimal })}
+              />
               <span className="text-xs text-ink-muted tabular-nums">{share} %</span>
               <FieldError id={`w-${key}-error`} message={message} />
             </div>

@@ -19,11 +19,15 @@ export function CloseThreadForm({ threadId, path, subject }: { threadId: string;
     <details className="mt-2">
       <summary className="cursor-pointer text-xs text-accent">Close this question with a reason</summary>
       <form onSubmit={submit} aria-label={`Close: ${subject}`} className="mt-2 space-y-2" noValidate>
-        <label className="label" htmlFor={id}>Reason for closing</label>
+        <label className="label" htmlFor={id}>
+          Reason for closing
+        </label>
         <textarea id={id} rows={2} className="field" {...register("reason")} />
         <FieldError message={formState.errors.reason?.message} />
         <FormStatus result={result} />
-        <button type="submit" className="btn-quiet" disabled={pending}>{pending ? "Closing…" : "Close the question"}</button>
+        <button type="submit" className="btn-quiet" disabled={pending}>
+          {pending ? "Closing…" : "Close the question"}
+        </button>
       </form>
     </details>
   );

@@ -22,11 +22,15 @@ export function ReplyForm({ threadId, path, subject }: { threadId: string; path:
   const id = `reply-${threadId}`;
   return (
     <form onSubmit={submit} aria-label={`Reply: ${subject}`} className="mt-3 space-y-2" noValidate>
-      <label className="label" htmlFor={id}>Reply</label>
+      <label className="label" htmlFor={id}>
+        Reply
+      </label>
       <textarea id={id} rows={2} className="field" {...register("body")} />
       <FieldError message={formState.errors.body?.message} />
       <FormStatus result={result} />
-      <button type="submit" className="btn-quiet" disabled={pending}>{pending ? "Sending…" : "Send reply"}</button>
+      <button type="submit" className="btn-quiet" disabled={pending}>
+        {pending ? "Sending…" : "Send reply"}
+      </button>
     </form>
   );
 }

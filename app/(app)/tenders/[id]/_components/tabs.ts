@@ -48,7 +48,9 @@ export function tenderTabs(viewer: Viewer, tender: TenderWithInvites): TenderTab
   if (started && (roles.includes("approver") || approvals)) tabs.push({ href: `${base}/sign-off`, label: "Sign-off" });
 
   // Addenda to every bidder; after the award, the standstill period and objections.
-  const notices = ability.can("read", asSubject("Addendum", { tenderId, invitedOrgIds: tender.invitedOrgIds })) || ability.can("read", asSubject("Objection", { tenderId, vendorOrgId: actor.organisationId }));
+  const notices =
+    ability.can("read", asSubject("Addendum", { tenderId, invitedOrgIds: tender.invitedOrgIds })) ||
+    ability.can("read", asSubject("Objection", { tenderId, vendorOrgId: actor.organisationId }));
   if (started && notices) tabs.push({ href: `${base}/notices`, label: "Notices" });
 
   if (ability.can("read", asSubject("Ledger", { tenderId }))) tabs.push({ href: `${base}/ledger`, label: "Ledger" });

@@ -7,9 +7,7 @@ import { usePathname } from "next/navigation";
 export function TenderTabs({ tabs }: { tabs: { href: string; label: string }[] }) {
   const pathname = usePathname();
   // The longest matching link wins, so /tenders/x/offers/y still marks Offers and not Requirements.
-  const current = tabs
-    .filter((t) => pathname === t.href || pathname.startsWith(`${t.href}/`))
-    .sort((a, b) => b.href.length - a.href.length)[0]?.href;
+  const current = tabs.filter((t) => pathname === t.href || pathname.startsWith(`${t.href}/`)).sort((a, b) => b.href.length - a.href.length)[0]?.href;
   return (
     <nav aria-label="Tender sections" className="flex gap-1 overflow-x-auto border-b border-ink-faint/25 text-sm print:hidden">
       {tabs.map((tab) => {

@@ -9,7 +9,14 @@ import { runForm, type FormResult } from "@/lib/server/form-action";
 const tenderPaths = (tenderId: string) => [`/tenders/${tenderId}`, `/tenders/${tenderId}/comparison`, `/tenders/${tenderId}/ledger`, "/desk"];
 
 export async function openEnvelopesAction(tenderId: string): Promise<FormResult> {
-  return runForm(z.object({}), {}, (viewer) => openEnvelopes(viewer, String(tenderId)), tenderPaths(tenderId), "Envelopes opened: prices, lead times and warranties are now scored.", { tenderId });
+  return runForm(
+    z.object({}),
+    {},
+    (viewer) => openEnvelopes(viewer, String(tenderId)),
+    tenderPaths(tenderId),
+    "Envelopes opened: prices, lead times and warranties are now scored.",
+    { tenderId },
+  );
 }
 
 export async function submitRecommendationAction(tenderId: string, values: unknown): Promise<FormResult> {

@@ -24,15 +24,27 @@ export default async function NoticesPage({ params, searchParams }: { params: Pr
       {addenda ? (
         <section className="panel space-y-3" aria-label="Addenda">
           <h2>Addenda</h2>
-          <p className="text-xs text-ink-soft">Answers that matter to every bidder, sent to all invited vendors without the name of whoever asked. Vendors acknowledge each before they submit.</p>
+          <p className="text-xs text-ink-soft">
+            Answers that matter to every bidder, sent to all invited vendors without the name of whoever asked. Vendors acknowledge each before they submit.
+          </p>
           {addenda.addenda.length === 0 ? <p className="text-sm text-ink-soft">No addendum yet.</p> : null}
           {addenda.addenda.map((a) => (
             <article key={a.id} className="border-t border-ink-faint/20 pt-2">
-              <h3 className="text-sm font-semibold">Addendum {a.number}: {a.title}</h3>
-              <p className="text-xs text-ink-soft">Published <DateTime value={a.publishedAt} /></p>
+              <h3 className="text-sm font-semibold">
+                Addendum {a.number}: {a.title}
+              </h3>
+              <p className="text-xs text-ink-soft">
+                Published <DateTime value={a.publishedAt} />
+              </p>
               <p className="mt-1 whitespace-pre-wrap text-sm">{a.body}</p>
               {"acknowledgedAt" in a ? (
-                a.acknowledgedAt ? <p className="text-xs text-verdict-plausible">Acknowledged <DateTime value={a.acknowledgedAt} /></p> : <AcknowledgeButton tenderId={id} addendumId={a.id} number={a.number} />
+                a.acknowledgedAt ? (
+                  <p className="text-xs text-verdict-plausible">
+                    Acknowledged <DateTime value={a.acknowledgedAt} />
+                  </p>
+                ) : (
+                  <AcknowledgeButton tenderId={id} addendumId={a.id} number={a.number} />
+                )
               ) : (
                 <p className="text-xs text-ink-soft">Acknowledged by: {a.acknowledgedBy?.length ? a.acknowledgedBy.join(", ") : "no vendor yet"}</p>
               )}
@@ -40,7 +52,9 @@ export default async function NoticesPage({ params, searchParams }: { params: Pr
           ))}
           {addenda.mayPublish ? (
             <>
-              {thread ? <p className="text-xs text-ink-soft">This addendum answers a clarification thread; the vendor who asked is not named to the others.</p> : null}
+              {thread ? (
+                <p className="text-xs text-ink-soft">This addendum answers a clarification thread; the vendor who asked is not named to the others.</p>
+              ) : null}
               <AddendumForm tenderId={id} threadId={thread} />
             </>
           ) : null}
@@ -58,11 +72,15 @@ export default async function NoticesPage({ params, searchParams }: { params: Pr
           {objections.objections.length === 0 ? <p className="text-sm text-ink-soft">No objection lodged.</p> : null}
           {objections.objections.map((o) => (
             <article key={o.id} className="border-t border-ink-faint/20 pt-2">
-              <p className="text-xs text-ink-soft">{vendor ? "Your objection" : o.vendorName}, <DateTime value={o.lodgedAt} /></p>
+              <p className="text-xs text-ink-soft">
+                {vendor ? "Your objection" : o.vendorName}, <DateTime value={o.lodgedAt} />
+              </p>
               <p className="whitespace-pre-wrap text-sm">{o.body}</p>
               {o.answer && o.answeredAt ? (
                 <div className="mt-2 border-l-2 border-ink-faint/40 pl-3">
-                  <p className="text-xs text-ink-soft">Answer of the purchasing team, <DateTime value={o.answeredAt} /></p>
+                  <p className="text-xs text-ink-soft">
+                    Answer of the purchasing team, <DateTime value={o.answeredAt} />
+                  </p>
                   <p className="whitespace-pre-wrap text-sm">{o.answer}</p>
                 </div>
               ) : o.mayAnswer ? (

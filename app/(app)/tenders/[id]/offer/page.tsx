@@ -38,7 +38,14 @@ function defaultsFor(tender: TenderWithInvites, current: OfferView | null): Offe
           value: claimAt(i)?.value ?? point.sensitivity.targetPer,
           ncgOutputBer: null,
           sensitivity: radio
-            ? { dbm: radio.sensitivityDbm, noiseFigureDb: radio.noiseFigureDb, modulation: radio.modulation, n: radio.n, k: radio.k, curve: radio.curve.map(({ x, unit, metric, value }) => ({ x, unit, metric, value })) }
+            ? {
+                dbm: radio.sensitivityDbm,
+                noiseFigureDb: radio.noiseFigureDb,
+                modulation: radio.modulation,
+                n: radio.n,
+                k: radio.k,
+                curve: radio.curve.map(({ x, unit, metric, value }) => ({ x, unit, metric, value })),
+              }
             : { dbm: point.value, noiseFigureDb: null, modulation: null, n: null, k: null, curve: [] },
         };
       }
@@ -74,16 +81,23 @@ export default async function OfferFormPage({ params }: { params: Promise<{ id: 
   return (
     <div className="space-y-5">
       <h2>Your offer</h2>
-      {refusal ? <p className="panel text-sm" role="note" aria-label="Submissions">{refusal}</p> : null}
+      {refusal ? (
+        <p className="panel text-sm" role="note" aria-label="Submissions">
+          {refusal}
+        </p>
+      ) : null}
       {current ? (
         <section className="panel space-y-3" aria-label="Verdicts">
           <div className="flex flex-wrap items-baseline gap-3">
             <h3 className="flex-1">
-              Version {current.version}: {current.moduleName}{current.status === "withdrawn" ? " (withdrawn)" : ""}
+              Version {current.version}: {current.moduleName}
+              {current.status === "withdrawn" ? " (withdrawn)" : ""}
             </h3>
             {live && !refusal ? <WithdrawButton tenderId={id} offerId={current.id} /> : null}
           </div>
-          <p className="text-sm"><CodeSummary offer={current as OfferView & { codeFamily: string; decision: "hard" | "soft" }} /></p>
+          <p className="text-sm">
+            <CodeSummary offer={current as OfferView & { codeFamily: string; decision: "hard" | "soft" }} />
+          </p>
           <ClaimVerdicts claims={current.claims} model={tender.channelModel} detail />
           <div className="space-y-2">
             <h3 className="label">Documents (kept for every later version)</h3>
@@ -94,16 +108,26 @@ export default async function OfferFormPage({ params }: { params: Promise<{ id: 
             <details className="text-sm">
               <summary>Earlier versions</summary>
               <ul>
-                {versions.filter((v) => v.id !== current.id).map((v) => (
-                  <li key={v.id}>Version {v.version}, {v.status}, submitted <DateTime value={v.submittedAt} /></li>
-                ))}
+                {versions
+                  .filter((v) => v.id !== current.id)
+                  .map((v) => (
+                    <li key={v.id}>
+                      Version {v.version}, {v.status}, submitted <DateTime value={v.submittedAt} />
+                    </li>
+                  ))}
               </ul>
             </details>
           ) : null}
         </section>
       ) : null}
       {refusal ? null : (
-        <OfferForm tenderId={id} model={tender.channelModel} points={tender.operatingPoints} defaults={defaultsFor(tender, current)} resubmission={current !== null} />
+        <OfferForm
+          tenderId={id}
+          model={tender.channelModel}
+          points={tender.operatingPoints}
+          defaults={defaultsFor(tender, current)}
+          resubmission={current !== null}
+        />
       )}
       <Cautions />
     </div>

@@ -31,7 +31,9 @@ export default async function OffersPage({ params }: { params: Promise<{ id: str
       <div className="flex flex-wrap items-center gap-3">
         <h2 className="flex-1">Offers</h2>
         {vendor && open ? (
-          <Link className="btn" href={`/tenders/${id}/offer`}>{offers && offers.length > 0 ? "Open the offer form" : "Submit an offer"}</Link>
+          <Link className="btn" href={`/tenders/${id}/offer`}>
+            {offers && offers.length > 0 ? "Open the offer form" : "Submit an offer"}
+          </Link>
         ) : null}
       </div>
       {envelopesSealed ? (

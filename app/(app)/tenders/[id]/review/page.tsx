@@ -34,7 +34,13 @@ async function ifAllowed<T>(work: Promise<T>): Promise<T | null> {
 /** The tab pages its claims a hundred at a time (a tender's offers times its operating points). */
 const tabPagingSchema = pagingSchema.extend({ size: pagingSchema.shape.size.default(MAX_PAGE_SIZE) });
 
-export default async function TenderReviewPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function TenderReviewPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { id } = await params;
   const { query: paging, problem } = pageQuery(await searchParams, tabPagingSchema);
   const viewer = await pageViewer();
@@ -55,13 +61,25 @@ export default async function TenderReviewPage({ params, searchParams }: { param
           <h2>Conflict of interest</h2>
           {declaration ? (
             <p className="text-sm">
-              You declared {declaration.conflictedOrgIds.length === 0 ? "no conflict" : `a conflict with ${declaration.conflictedOrgIds.length} vendor${declaration.conflictedOrgIds.length === 1 ? "" : "s"}, whose offers stay hidden from you`} on <DateTime value={declaration.createdAt} />.
+              You declared{" "}
+              {declaration.conflictedOrgIds.length === 0
+                ? "no conflict"
+                : `a conflict with ${declaration.conflictedOrgIds.length} vendor${declaration.conflictedOrgIds.length === 1 ? "" : "s"}, whose offers stay hidden from you`}{" "}
+              on <DateTime value={declaration.createdAt} />.
             </p>
-          ) : mayDeclare ? <DeclarationForm tenderId={id} vendors={vendors} /> : <p className="text-sm text-ink-soft">Declarations open once the tender is published.</p>}
+          ) : mayDeclare ? (
+            <DeclarationForm tenderId={id} vendors={vendors} />
+          ) : (
+            <p className="text-sm text-ink-soft">Declarations open once the tender is published.</p>
+          )}
         </section>
       ) : null}
 
-      {problem ? <p role="alert" className="text-sm text-verdict-impossible">{problem}</p> : null}
+      {problem ? (
+        <p role="alert" className="text-sm text-verdict-impossible">
+          {problem}
+        </p>
+      ) : null}
       {claims ? <ClaimsTable claims={claims.claims} vendor={vendor} /> : null}
       {claims && claims.pages > 1 ? <Pager info={claims} noun={["claim", "claims"]} href={(page) => pageHref(`/tenders/${id}/review`, {}, page)} /> : null}
 
@@ -82,24 +100,48 @@ function ClaimsTable({ claims, vendor }: { claims: QueueRow[]; vendor: boolean }
   return (
     <section className="panel" aria-label={vendor ? "Your claims" : "Claims of this tender"}>
       <h2>{vendor ? "Your claims and their marks" : "Claims of this tender"}</h2>
-      {claims.length === 0 ? <p className="text-sm text-ink-soft">No claim to show.</p> : (
+      {claims.length === 0 ? (
+        <p className="text-sm text-ink-soft">No claim to show.</p>
+      ) : (
         <ScrollBox label={vendor ? "Your claims" : "Claims"} className="mt-2">
-        <table className="data-table">
-          <thead><tr><th>Verdict</th>{vendor ? null : <th>Vendor</th>}<th>Operating point</th><th>Claimed</th><th>Mark</th>{vendor ? null : <th>Evidence</th>}<th><span className="sr-only">Open</span></th></tr></thead>
-          <tbody>
-            {claims.map((c) => (
-              <tr key={c.id}>
-                <td><VerdictBadge verdict={c.verdict} /></td>
-                {vendor ? null : <td>{c.vendorName}</td>}
-                <td>{c.pointLabel}: {formatCondition(c.channelModel, c.channelValue)}</td>
-                <td className="tabular-nums">{c.metric === "ncg" ? `NCG ${c.value} dB` : `${c.metric.toUpperCase()} ${formatSci(c.value)}`}</td>
-                <td>{c.mark ? MARK_LABELS[c.mark as keyof typeof MARK_LABELS] : "Not marked"}</td>
-                {vendor ? null : <td>{c.evidence ? EVIDENCE_LABELS[c.evidence] : ""}</td>}
-                <td>{vendor ? null : <Link href={`/review/claims/${c.id}`} aria-label={`Open claim ${c.vendorName} ${c.pointLabel}`}>Open</Link>}</td>
+          <table className="data-table">
+            <thead>
+              <tr>
+                <th>Verdict</th>
+                {vendor ? null : <th>Vendor</th>}
+                <th>Operating point</th>
+                <th>Claimed</th>
+                <th>Mark</th>
+                {vendor ? null : <th>Evidence</th>}
+                <th>
+                  <span className="sr-only">Open</span>
+                </th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {claims.map((c) => (
+                <tr key={c.id}>
+                  <td>
+                    <VerdictBadge verdict={c.verdict} />
+                  </td>
+                  {vendor ? null : <td>{c.vendorName}</td>}
+                  <td>
+                    {c.pointLabel}: {formatCondition(c.channelModel, c.channelValue)}
+                  </td>
+                  <td className="tabular-nums">{c.metric === "ncg" ? `NCG ${c.value} dB` : `${c.metric.toUpperCase()} ${formatSci(c.value)}`}</td>
+                  <td>{c.mark ? MARK_LABELS[c.mark as keyof typeof MARK_LABELS] : "Not marked"}</td>
+                  {vendor ? null : <td>{c.evidence ? EVIDENCE_LABELS[c.evidence] : ""}</td>}
+                  <td>
+                    {vendor ? null : (
+                      <Link href={`/review/claims/${c.id}`} aria-label={`Open claim ${c.vendorName} ${c.pointLabel}`}>
+                        Open
+                      </Link>
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
         </ScrollBox>
       )}
     </section>

@@ -10,7 +10,14 @@ export async function decideAction(tenderId: string, values: unknown): Promise<F
   const id = String(tenderId);
   const decision = (values as { decision?: unknown } | null)?.decision;
   const message = decision === "return" ? "Returned to the buyer for revision." : "Approval recorded.";
-  return runForm(decisionSchema, values, (viewer, input) => decideRecommendation(viewer, id, input), [`/tenders/${id}/sign-off`, `/tenders/${id}`, "/desk"], message, { tenderId });
+  return runForm(
+    decisionSchema,
+    values,
+    (viewer, input) => decideRecommendation(viewer, id, input),
+    [`/tenders/${id}/sign-off`, `/tenders/${id}`, "/desk"],
+    message,
+    { tenderId },
+  );
 }
 
 export async function withdrawAction(tenderId: string, values: unknown): Promise<FormResult> {

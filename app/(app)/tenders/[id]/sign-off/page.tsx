@@ -44,28 +44,44 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
       <section className="panel space-y-2" aria-label="Recommendation">
         <div className="flex items-baseline justify-between gap-3">
           <h2>Recommendation</h2>
-          <span className="text-sm font-medium" data-status={rec.status}>{STATUS_WORDS[rec.status]}</span>
+          <span className="text-sm font-medium" data-status={rec.status}>
+            {STATUS_WORDS[rec.status]}
+          </span>
         </div>
         <p className="text-sm">
-          Award to <strong>{rec.vendorName}</strong>, {rec.moduleName}: <span className="tabular-nums">{rec.quantity.toLocaleString("en-GB")} units for {money(rec.value)}</span>.
+          Award to <strong>{rec.vendorName}</strong>, {rec.moduleName}:{" "}
+          <span className="tabular-nums">
+            {rec.quantity.toLocaleString("en-GB")} units for {money(rec.value)}
+          </span>
+          .
         </p>
         {rec.deviations.length ? (
           <ul className="space-y-1 text-sm text-verdict-evidence" aria-label="Departures from the offer">
-            {rec.deviations.map((d) => <li key={d}>{d}</li>)}
+            {rec.deviations.map((d) => (
+              <li key={d}>{d}</li>
+            ))}
           </ul>
         ) : rec.computedValue !== null ? (
           <p className="text-xs text-ink-soft">The value is the offer&apos;s price for this quantity, price breaks applied.</p>
         ) : null}
         <p className="whitespace-pre-line text-sm">{rec.justification}</p>
         {rec.withdrawReason ? <p className="text-sm">Withdrawn: {rec.withdrawReason}</p> : null}
-        <p className="text-xs text-ink-soft">Prepared by {rec.preparedBy}, <DateTime value={rec.preparedAt} zone={zone} /></p>
+        <p className="text-xs text-ink-soft">
+          Prepared by {rec.preparedBy}, <DateTime value={rec.preparedAt} zone={zone} />
+        </p>
         <p className="text-sm" aria-label="Approval rule">
           {rec.rule
             ? `This value needs ${rec.rule.approvalsNeeded} approval${rec.rule.approvalsNeeded > 1 ? "s" : ""} from approvers with a limit of at least ${money(Math.max(rec.rule.minApproverLimit, rec.governingValue))}; ${rec.approvalsGiven} given.`
             : "No approval band covers this value: an admin must add one before anyone can approve."}
         </p>
-        {rec.status === "pending" ? <p className="text-xs text-ink-soft">Routed to: {view.routedTo.join(", ") || "no approver holds a limit that covers it"}.</p> : null}
-        {view.stuck ? <p className="text-sm text-verdict-impossible" role="alert" aria-label="Cannot be approved">This recommendation cannot be approved as things stand. {view.stuck}</p> : null}
+        {rec.status === "pending" ? (
+          <p className="text-xs text-ink-soft">Routed to: {view.routedTo.join(", ") || "no approver holds a limit that covers it"}.</p>
+        ) : null}
+        {view.stuck ? (
+          <p className="text-sm text-verdict-impossible" role="alert" aria-label="Cannot be approved">
+            This recommendation cannot be approved as things stand. {view.stuck}
+          </p>
+        ) : null}
       </section>
 
       {view.canWithdraw ? (
@@ -89,22 +105,38 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
           />
         </section>
       ) : view.me.reason && rec.status === "pending" ? (
-        <p className="panel text-sm" role="note" aria-label="Why you cannot decide">{view.me.reason}</p>
+        <p className="panel text-sm" role="note" aria-label="Why you cannot decide">
+          {view.me.reason}
+        </p>
       ) : null}
 
       {view.memo ? (
         <section className="panel space-y-1" aria-label="Award memo">
           <h2>Award memo {view.memo.identifier}</h2>
-          <p className="text-sm">Issued <DateTime value={view.memo.createdAt} zone={zone} />; {view.memo.size.toLocaleString("en-GB")} bytes.</p>
-          <p className="text-sm">SHA-256 fingerprint: <code className="break-all font-mono text-xs" data-testid="memo-fingerprint">{view.memo.sha256}</code></p>
+          <p className="text-sm">
+            Issued <DateTime value={view.memo.createdAt} zone={zone} />; {view.memo.size.toLocaleString("en-GB")} bytes.
+          </p>
+          <p className="text-sm">
+            SHA-256 fingerprint:{" "}
+            <code className="break-all font-mono text-xs" data-testid="memo-fingerprint">
+              {view.memo.sha256}
+            </code>
+          </p>
           <p className="flex gap-4 text-sm">
-            <a href={`/api/v1/tenders/${id}/memo`} download>Download the memo (PDF)</a>
+            <a href={`/api/v1/tenders/${id}/memo`} download>
+              Download the memo (PDF)
+            </a>
             <Link href="/memo-check">Check a memo on Memo check</Link>
           </p>
         </section>
       ) : view.canPreview ? (
         <section className="panel space-y-2 print:hidden" aria-label="Memo preview">
-          <div className="flex items-baseline justify-between"><h2>Memo preview</h2><a href={`/api/v1/tenders/${id}/memo/preview`} target="_blank" rel="noreferrer" className="text-sm">Open the preview (PDF)</a></div>
+          <div className="flex items-baseline justify-between">
+            <h2>Memo preview</h2>
+            <a href={`/api/v1/tenders/${id}/memo/preview`} target="_blank" rel="noreferrer" className="text-sm">
+              Open the preview (PDF)
+            </a>
+          </div>
           <iframe title="Memo preview" src={`/api/v1/tenders/${id}/memo/preview`} className="h-[32rem] w-full rounded border border-ink-faint/30 bg-white" />
         </section>
       ) : null}
@@ -112,12 +144,30 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
       <section className="panel overflow-x-auto" aria-label="Scores">
         <h2>Scores at the time of the recommendation</h2>
         <table className="data-table mt-2">
-          <thead><tr><th>Rank</th><th>Vendor</th><th className="text-right">Total</th><th>Note</th></tr></thead>
+          <thead>
+            <tr>
+              <th>Rank</th>
+              <th>Vendor</th>
+              <th className="text-right">Total</th>
+              <th>Note</th>
+            </tr>
+          </thead>
           <tbody>
             {rec.standings.map((s) => (
-              <tr key={s.vendorName}><td className="tabular-nums">{s.rank ?? "–"}</td><td>{s.vendorName}</td><td className="text-right tabular-nums">{formatScore(s.total)}</td><td className="text-xs text-ink-soft">{s.flags.join("; ")}</td></tr>
+              <tr key={s.vendorName}>
+                <td className="tabular-nums">{s.rank ?? "–"}</td>
+                <td>{s.vendorName}</td>
+                <td className="text-right tabular-nums">{formatScore(s.total)}</td>
+                <td className="text-xs text-ink-soft">{s.flags.join("; ")}</td>
+              </tr>
             ))}
-            {rec.standings.length === 0 ? <tr><td colSpan={4} className="text-ink-soft">No score sheet was recorded.</td></tr> : null}
+            {rec.standings.length === 0 ? (
+              <tr>
+                <td colSpan={4} className="text-ink-soft">
+                  No score sheet was recorded.
+                </td>
+              </tr>
+            ) : null}
           </tbody>
         </table>
       </section>

@@ -6,9 +6,7 @@ import { tenderPatchSchema } from "@/lib/validation/tender";
 
 type Context = { params: Promise<{ id: string }> };
 
-export const GET = jsonRoute(async (request, { params }: Context) =>
-  getTenderView(await requireViewer(request.headers), (await params).id),
-);
+export const GET = jsonRoute(async (request, { params }: Context) => getTenderView(await requireViewer(request.headers), (await params).id));
 
 export const PATCH = jsonRoute(async (request, { params }: Context) => {
   const viewer = await requireViewer(request.headers);

@@ -15,7 +15,9 @@ export async function ClaimCharts({ result, runs = [], vendorCurve = [] }: { res
     return (
       <section className="panel" aria-label="Charts">
         <h2>The claim against the bounds</h2>
-        <p className="mt-2 text-sm text-ink-soft">The offer states a rate without a block length n, so only the asymptotic checks apply and there is no finite-length chart.</p>
+        <p className="mt-2 text-sm text-ink-soft">
+          The offer states a rate without a block length n, so only the asymptotic checks apply and there is no finite-length chart.
+        </p>
       </section>
     );
   }
@@ -25,7 +27,9 @@ export async function ClaimCharts({ result, runs = [], vendorCurve = [] }: { res
     <section className="panel space-y-3" aria-label="Charts">
       <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
         <h2>The claim against the bounds</h2>
-        <a href={`/explorer?${query}`} className="text-sm">Open in the Bound explorer</a>
+        <a href={`/explorer?${query}`} className="text-sm">
+          Open in the Bound explorer
+        </a>
       </div>
       {charts ? (
         <div className="grid gap-5 lg:grid-cols-2">
@@ -33,7 +37,9 @@ export async function ClaimCharts({ result, runs = [], vendorCurve = [] }: { res
           <RateChart charts={charts} />
         </div>
       ) : (
-        <p role="alert" className="text-sm text-verdict-impossible">{refusal}</p>
+        <p role="alert" className="text-sm text-verdict-impossible">
+          {refusal}
+        </p>
       )}
     </section>
   );

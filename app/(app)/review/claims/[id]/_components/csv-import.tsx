@@ -36,7 +36,12 @@ export function CsvImport({ claimId, template }: { claimId: string; template: st
     setReport(body);
     if (!response.ok) return setPhase(body.error ?? "Nothing was stored.");
     const count = body.stored?.length ?? 0;
-    if (preview) return setPhase(count === 0 ? "No row can be stored: see why below." : `${count} row${count === 1 ? "" : "s"} can be stored; ${body.rejected?.length ?? 0} refused. Nothing is stored until you confirm.`);
+    if (preview)
+      return setPhase(
+        count === 0
+          ? "No row can be stored: see why below."
+          : `${count} row${count === 1 ? "" : "s"} can be stored; ${body.rejected?.length ?? 0} refused. Nothing is stored until you confirm.`,
+      );
     setCsv(null);
     setPhase(`Stored ${count} run${count === 1 ? "" : "s"}.`);
     router.refresh();
@@ -59,16 +64,39 @@ export function CsvImport({ claimId, template }: { claimId: string; template: st
     <div className="space-y-2 print:hidden" aria-label="Import lab runs" role="group">
       <h3 className="text-sm font-semibold">Import runs from a CSV file</h3>
       <p className="text-xs text-ink-soft">
-        Columns: claim_id (or vendor and point), channel, unit (bits or frames), trials, errors, confidence, note. Rows without a claim count for this one; rows without a channel are at the claim&apos;s.{" "}
-        <a href={`data:text/csv;charset=utf-8,${encodeURIComponent(template)}`} download="lab-runs-template.csv">Download a template</a>
+        Columns: claim_id (or vendor and point), channel, unit (bits or frames), trials, errors, confidence, note. Rows without a claim count for this one; rows
+        without a channel are at the claim&apos;s.{" "}
+        <a href={`data:text/csv;charset=utf-8,${encodeURIComponent(template)}`} download="lab-runs-template.csv">
+          Download a template
+        </a>
       </p>
-      <label className="label" htmlFor="csv-file">CSV file</label>
+      <label className="label" htmlFor="csv-file">
+        CSV file
+      </label>
       <input id="csv-file" type="file" accept=".csv,text/csv" className="text-sm" onChange={(e) => choose(e.target.files?.[0])} />
-      {phase ? <p role="status" className="text-sm">{phase}</p> : null}
+      {phase ? (
+        <p role="status" className="text-sm">
+          {phase}
+        </p>
+      ) : null}
       {rows.length > 0 ? (
         <table className="data-table" aria-label={report?.preview ? "Rows to import" : "Imported rows"}>
-          <thead><tr><th>Line</th><th>Outcome</th><th>Why</th></tr></thead>
-          <tbody>{rows.map((r) => <tr key={r.line} data-ok={r.ok}><td className="tabular-nums">{r.line}</td><td>{r.outcome}</td><td className="text-xs">{r.why}</td></tr>)}</tbody>
+          <thead>
+            <tr>
+              <th>Line</th>
+              <th>Outcome</th>
+              <th>Why</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={r.line} data-ok={r.ok}>
+                <td className="tabular-nums">{r.line}</td>
+                <td>{r.outcome}</td>
+                <td className="text-xs">{r.why}</td>
+              </tr>
+            ))}
+          </tbody>
         </table>
       ) : null}
       {report?.preview && csv && (report.stored?.length ?? 0) > 0 ? (

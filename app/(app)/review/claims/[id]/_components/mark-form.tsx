@@ -38,14 +38,18 @@ export function MarkForm({ claimId, verdict }: { claimId: string; verdict: Verdi
         <legend className="label">Mark</legend>
         <div className="flex flex-wrap gap-4 text-sm">
           {MARKS.map((m) => (
-            <label key={m} className="inline-flex items-center gap-1"><input type="radio" value={m} {...register("mark")} /> {MARK_LABELS[m]}</label>
+            <label key={m} className="inline-flex items-center gap-1">
+              <input type="radio" value={m} {...register("mark")} /> {MARK_LABELS[m]}
+            </label>
           ))}
         </div>
         <FieldError message={errors.mark?.message} />
       </fieldset>
       {chosen === "clarification-requested" ? (
         <div>
-          <label className="label" htmlFor="mark-subject">Question subject</label>
+          <label className="label" htmlFor="mark-subject">
+            Question subject
+          </label>
           <input id="mark-subject" className="field" {...register("subject")} />
           <FieldError message={errors.subject?.message} />
         </div>
@@ -57,14 +61,17 @@ export function MarkForm({ claimId, verdict }: { claimId: string; verdict: Verdi
         </label>
         {overrides ? (
           <p className="text-xs text-ink-soft" id="mark-comment-help">
-            The engine found this claim impossible. Accepting it needs a written justification of at least {JUSTIFICATION_MIN} characters, and is flagged on the Comparison, the Sign-off tab and the memo.
+            The engine found this claim impossible. Accepting it needs a written justification of at least {JUSTIFICATION_MIN} characters, and is flagged on the
+            Comparison, the Sign-off tab and the memo.
           </p>
         ) : null}
         <textarea id="mark-comment" rows={3} className="field" aria-describedby={overrides ? "mark-comment-help" : undefined} {...register("comment")} />
         <FieldError message={errors.comment?.message} />
       </div>
       <FormStatus result={result} />
-      <button type="submit" className="btn" disabled={pending}>{pending ? "Saving…" : "Record mark"}</button>
+      <button type="submit" className="btn" disabled={pending}>
+        {pending ? "Saving…" : "Record mark"}
+      </button>
     </form>
   );
 }

@@ -24,10 +24,24 @@ export function OpenThreadForm({ claimId }: { claimId: string }) {
     <details className="border-t border-ink-faint/20 pt-3 print:hidden">
       <summary className="cursor-pointer text-sm text-accent">Ask the vendor a question</summary>
       <form onSubmit={submit} aria-label="Ask the vendor" className="mt-2 space-y-2" noValidate>
-        <div><label className="label" htmlFor="thread-subject">Subject</label><input id="thread-subject" className="field" {...register("subject")} /><FieldError message={formState.errors.subject?.message} /></div>
-        <div><label className="label" htmlFor="thread-body">Question</label><textarea id="thread-body" rows={3} className="field" {...register("body")} /><FieldError message={formState.errors.body?.message} /></div>
+        <div>
+          <label className="label" htmlFor="thread-subject">
+            Subject
+          </label>
+          <input id="thread-subject" className="field" {...register("subject")} />
+          <FieldError message={formState.errors.subject?.message} />
+        </div>
+        <div>
+          <label className="label" htmlFor="thread-body">
+            Question
+          </label>
+          <textarea id="thread-body" rows={3} className="field" {...register("body")} />
+          <FieldError message={formState.errors.body?.message} />
+        </div>
         <FormStatus result={result} />
-        <button type="submit" className="btn-quiet" disabled={pending}>Send question</button>
+        <button type="submit" className="btn-quiet" disabled={pending}>
+          Send question
+        </button>
       </form>
     </details>
   );

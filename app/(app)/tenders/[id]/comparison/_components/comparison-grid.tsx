@@ -99,9 +99,13 @@ export function ComparisonGrid({
   return (
     <section className="print-wide space-y-2" aria-label="Comparison">
       <div className="flex items-center gap-3">
-        <h2 className="flex-1">Comparison of {rows.length} {rows.length === 1 ? "offer" : "offers"}</h2>
+        <h2 className="flex-1">
+          Comparison of {rows.length} {rows.length === 1 ? "offer" : "offers"}
+        </h2>
         {canExport ? (
-          <button type="button" className="btn-quiet" onClick={exportCsv} disabled={!api}>Export CSV</button>
+          <button type="button" className="btn-quiet" onClick={exportCsv} disabled={!api}>
+            Export CSV
+          </button>
         ) : null}
       </div>
       <DataGrid<ComparisonRow>
@@ -113,7 +117,10 @@ export function ComparisonGrid({
         rowSelection={{ mode: "singleRow", checkboxes: false, enableClickSelection: true }}
         onSelectionChanged={(e) => onSelect(e.api.getSelectedRows()[0]?.offerId ?? null)}
         onGridReady={(e) => setApi(e.api)}
-        empty={{ title: "No offers to compare yet", hint: "Offers appear here once the envelopes are opened. Vendors can submit until the deadline; check the tender's Offers tab." }}
+        empty={{
+          title: "No offers to compare yet",
+          hint: "Offers appear here once the envelopes are opened. Vendors can submit until the deadline; check the tender's Offers tab.",
+        }}
         ensureDomOrder
         // Every column in the page, not only those scrolled into view: screen readers and the export checks read them all.
         suppressColumnVirtualisation

@@ -16,7 +16,17 @@ import { WhatIfPanel } from "./what-if-panel";
  * and passes it here; after a change the page is refreshed, so the data flow is the same as on
  * every other tab. GET /api/v1/tenders/[id]/comparison serves the same object to API clients.
  */
-export function ComparisonView({ tenderId, reference, data, recommendations }: { tenderId: string; reference: string; data: Comparison; recommendations: Listed[] }) {
+export function ComparisonView({
+  tenderId,
+  reference,
+  data,
+  recommendations,
+}: {
+  tenderId: string;
+  reference: string;
+  data: Comparison;
+  recommendations: Listed[];
+}) {
   const router = useRouter();
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const [result, setResult] = useState<FormResult>({});
@@ -28,7 +38,8 @@ export function ComparisonView({ tenderId, reference, data, recommendations }: {
     confirm.ask(
       {
         title: "Open the price envelopes?",
-        consequences: "Every offer's prices, lead times and warranties become readable to the buying team and are scored. Envelopes cannot be sealed again; the opening goes into the ledger.",
+        consequences:
+          "Every offer's prices, lead times and warranties become readable to the buying team and are scored. Envelopes cannot be sealed again; the opening goes into the ledger.",
         action: "Open the envelopes",
       },
       () =>
@@ -53,7 +64,9 @@ export function ComparisonView({ tenderId, reference, data, recommendations }: {
             </p>
           )}
           {result.message ? (
-            <p role={result.ok ? "status" : "alert"} className={result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}>{result.message}</p>
+            <p role={result.ok ? "status" : "alert"} className={result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}>
+              {result.message}
+            </p>
           ) : null}
         </div>
         {data.can.openEnvelopes ? (
@@ -61,17 +74,13 @@ export function ComparisonView({ tenderId, reference, data, recommendations }: {
             {pending ? "Opening…" : "Open envelopes"}
           </button>
         ) : null}
-        <button type="button" className="btn-quiet" onClick={() => startTransition(reload)} disabled={pending}>Recompute</button>
+        <button type="button" className="btn-quiet" onClick={() => startTransition(reload)} disabled={pending}>
+          Recompute
+        </button>
         {confirm.dialog}
       </section>
 
-      <ComparisonGrid
-        input={data.input}
-        sheet={data.sheet}
-        reference={reference}
-        canExport={data.can.export}
-        onSelect={setSelectedId}
-      />
+      <ComparisonGrid input={data.input} sheet={data.sheet} reference={reference} canExport={data.can.export} onSelect={setSelectedId} />
 
       {selected ? (
         <ScoreSheetPanel offer={selected} sheet={data.sheet} />

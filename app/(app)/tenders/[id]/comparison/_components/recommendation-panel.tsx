@@ -18,8 +18,17 @@ import { submitRecommendationAction } from "../actions";
 export type Listed = Awaited<ReturnType<typeof listRecommendations>>[number];
 
 /** The recommendation: the latest one's status and, in commercial evaluation, the buyer's form. */
-export function RecommendationPanel({ history, ...props }: { tenderId: string; input: ScoringInput; sheet: ScoreSheet; canRecommend: boolean; history: Listed[]; onSubmitted: () => void }) {
-
+export function RecommendationPanel({
+  history,
+  ...props
+}: {
+  tenderId: string;
+  input: ScoringInput;
+  sheet: ScoreSheet;
+  canRecommend: boolean;
+  history: Listed[];
+  onSubmitted: () => void;
+}) {
   return (
     <section className="panel space-y-3" aria-label="Recommendation">
       <h2>Recommendation</h2>
@@ -29,7 +38,11 @@ export function RecommendationPanel({ history, ...props }: { tenderId: string; i
             <li key={r.id}>
               <span className="font-medium">{r.vendorName}</span>, {r.quantity.toLocaleString("en-GB")} units for {formatMoney(r.value, r.currency)}:{" "}
               <span data-status={r.status}>{r.status}</span> (<DateTime value={r.preparedAt} />)
-              {r.returns.map((ret) => <p key={ret.decidedAt.toISOString()} className="text-ink-soft">Returned: {ret.comment}</p>)}
+              {r.returns.map((ret) => (
+                <p key={ret.decidedAt.toISOString()} className="text-ink-soft">
+                  Returned: {ret.comment}
+                </p>
+              ))}
               {r.withdrawReason ? <p className="text-ink-soft">Withdrawn: {r.withdrawReason}</p> : null}
             </li>
           ))}
@@ -77,48 +90,70 @@ function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId:
   return (
     <form onSubmit={submit} className="space-y-3" aria-label="Recommend an award" noValidate>
       {result.message ? (
-        <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>{result.message}</p>
+        <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>
+          {result.message}
+        </p>
       ) : null}
       <div className="grid gap-3 md:grid-cols-3">
         <div>
-          <label className="label" htmlFor="rec-offer">Offer to award</label>
+          <label className="label" htmlFor="rec-offer">
+            Offer to award
+          </label>
           <select id="rec-offer" className="field" {...register("offerId")}>
-            {eligible.map((o) => <option key={o.offerId} value={o.offerId}>{o.rank}. {o.vendorName} ({o.total?.toFixed(1)} points)</option>)}
+            {eligible.map((o) => (
+              <option key={o.offerId} value={o.offerId}>
+                {o.rank}. {o.vendorName} ({o.total?.toFixed(1)} points)
+              </option>
+            ))}
           </select>
           {err("offerId")}
         </div>
         <div>
-          <label className="label" htmlFor="rec-quantity">Quantity (units)</label>
+          <label className="label" htmlFor="rec-quantity">
+            Quantity (units)
+          </label>
           <input id="rec-quantity" inputMode="numeric" className="field tabular-nums" {...register("quantity", { setValueAs: formCount })} />
           {err("quantity")}
         </div>
         <div>
-          <label className="label" htmlFor="rec-value">Award value ({sheet.currency})</label>
+          <label className="label" htmlFor="rec-value">
+            Award value ({sheet.currency})
+          </label>
           <input id="rec-value" inputMode="decimal" className="field tabular-nums" {...register("value", { setValueAs: formDecimal })} />
-          {computed !== null ? <p className="mt-1 text-xs text-ink-soft">The offer&apos;s prices give {formatMoney(computed, sheet.currency)} for this quantity.</p> : null}
+          {computed !== null ? (
+            <p className="mt-1 text-xs text-ink-soft">The offer&apos;s prices give {formatMoney(computed, sheet.currency)} for this quantity.</p>
+          ) : null}
           {err("value")}
         </div>
       </div>
       {beyond ? (
         <div>
-          <label className="label" htmlFor="rec-quantity-reason">Why more units than the tender&apos;s {sheet.quantity.toLocaleString("en-GB")}</label>
+          <label className="label" htmlFor="rec-quantity-reason">
+            Why more units than the tender&apos;s {sheet.quantity.toLocaleString("en-GB")}
+          </label>
           <textarea id="rec-quantity-reason" rows={2} className="field" {...register("quantityReason")} />
           {err("quantityReason")}
         </div>
       ) : null}
       {differs ? (
         <div>
-          <label className="label" htmlFor="rec-value-reason">Why the award value differs from the offer&apos;s prices</label>
+          <label className="label" htmlFor="rec-value-reason">
+            Why the award value differs from the offer&apos;s prices
+          </label>
           <textarea id="rec-value-reason" rows={2} className="field" {...register("valueReason")} />
           {err("valueReason")}
         </div>
       ) : null}
       <div>
-        <label className="label" htmlFor="rec-justification">Justification</label>
+        <label className="label" htmlFor="rec-justification">
+          Justification
+        </label>
         <textarea id="rec-justification" rows={4} className="field" {...register("justification")} />
         {err("justification")}
       </div>
-      <button type="submit" className="btn" disabled={pending || eligible.length === 0}>{pending ? "Submitting…" : "Submit recommendation"}</button>
+      <button type="submit" className="btn" disabled={pending || eligible.length === 0}>
+        {pending ? "Submitting…" : "Submit recommendation"}
+      </button>
     </form>
   );
 }

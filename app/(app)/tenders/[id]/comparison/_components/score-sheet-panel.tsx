@@ -15,14 +15,26 @@ export function ScoreSheetPanel({ offer, sheet }: { offer: OfferScore; sheet: Sc
       </div>
       {offer.flags.length ? (
         <ul className="text-sm text-verdict-impossible" aria-label="Flags">
-          {offer.flags.map((f) => <li key={f}>{f}</li>)}
-          {offer.confirmedImpossible.map((r) => <li key={r} className="text-ink-soft">{r}</li>)}
+          {offer.flags.map((f) => (
+            <li key={f}>{f}</li>
+          ))}
+          {offer.confirmedImpossible.map((r) => (
+            <li key={r} className="text-ink-soft">
+              {r}
+            </li>
+          ))}
         </ul>
       ) : null}
       <table className="data-table">
         <caption className="sr-only">Criteria of {offer.vendorName}</caption>
         <thead>
-          <tr><th>Criterion</th><th>Raw value</th><th className="text-right">Score (0..100)</th><th className="text-right">Weight</th><th className="text-right">Contribution (points)</th></tr>
+          <tr>
+            <th>Criterion</th>
+            <th>Raw value</th>
+            <th className="text-right">Score (0..100)</th>
+            <th className="text-right">Weight</th>
+            <th className="text-right">Contribution (points)</th>
+          </tr>
         </thead>
         <tbody>
           {offer.lines.map((line) => (
@@ -30,7 +42,9 @@ export function ScoreSheetPanel({ offer, sheet }: { offer: OfferScore; sheet: Sc
               <td>{CRITERION_LABELS[line.criterion]}</td>
               <td>{line.rawText}</td>
               <td className="text-right tabular-nums">{fixed(line.normalised)}</td>
-              <td className="text-right tabular-nums">{line.weight} / {sheet.weightSum}</td>
+              <td className="text-right tabular-nums">
+                {line.weight} / {sheet.weightSum}
+              </td>
               <td className="text-right tabular-nums">{fixed(line.contribution)}</td>
             </tr>
           ))}
@@ -53,7 +67,13 @@ export function ScoreSheetPanel({ offer, sheet }: { offer: OfferScore; sheet: Sc
       <table className="data-table">
         <caption className="label text-left">Technical score by operating point</caption>
         <thead>
-          <tr><th>Operating point</th><th>Verdict</th><th>Meets the required residual error</th><th className="text-right">Point score</th><th>Why</th></tr>
+          <tr>
+            <th>Operating point</th>
+            <th>Verdict</th>
+            <th>Meets the required residual error</th>
+            <th className="text-right">Point score</th>
+            <th>Why</th>
+          </tr>
         </thead>
         <tbody>
           {offer.points.map((p) => (
@@ -68,8 +88,8 @@ export function ScoreSheetPanel({ offer, sheet }: { offer: OfferScore; sheet: Sc
         </tbody>
       </table>
       <p className="text-xs text-ink-soft">
-        Contribution = weight × score ÷ sum of weights. Price is {sheet.currency} at {sheet.quantity.toLocaleString("en-GB")} units with the
-        offer&apos;s price breaks; price, lead time and warranty are scored against the best offer still in the ranking.
+        Contribution = weight × score ÷ sum of weights. Price is {sheet.currency} at {sheet.quantity.toLocaleString("en-GB")} units with the offer&apos;s price
+        breaks; price, lead time and warranty are scored against the best offer still in the ranking.
       </p>
     </section>
   );

@@ -23,7 +23,9 @@ export function WhatIfPanel({ input, sheet }: { input: ScoringInput; sheet: Scor
       <div className="flex flex-wrap items-end gap-3">
         {CRITERIA.map((c) => (
           <div key={c} className="w-28">
-            <label className="label" htmlFor={`what-if-${c}`}>{CRITERION_LABELS[c]} weight</label>
+            <label className="label" htmlFor={`what-if-${c}`}>
+              {CRITERION_LABELS[c]} weight
+            </label>
             <input
               id={`what-if-${c}`}
               className="field tabular-nums"
@@ -37,15 +39,24 @@ export function WhatIfPanel({ input, sheet }: { input: ScoringInput; sheet: Scor
             <span className="text-xs text-ink-soft">frozen: {input.tender.weights[c]}</span>
           </div>
         ))}
-        <button type="button" className="btn-quiet" onClick={() => setDraft(toDraft(input.tender.weights))}>Reset to the tender&apos;s weights</button>
+        <button type="button" className="btn-quiet" onClick={() => setDraft(toDraft(input.tender.weights))}>
+          Reset to the tender&apos;s weights
+        </button>
       </div>
       {!parsed.success ? (
-        <p role="alert" className="text-sm text-verdict-impossible">{parsed.error.issues[0]?.message ?? "Check the weights."}</p>
+        <p role="alert" className="text-sm text-verdict-impossible">
+          {parsed.error.issues[0]?.message ?? "Check the weights."}
+        </p>
       ) : null}
       {whatIf ? (
         <table className="data-table" aria-label="What-if ranking">
           <thead>
-            <tr><th>What-if rank</th><th>Vendor</th><th className="text-right">What-if total</th><th className="text-right">Rank with frozen weights</th></tr>
+            <tr>
+              <th>What-if rank</th>
+              <th>Vendor</th>
+              <th className="text-right">What-if total</th>
+              <th className="text-right">Rank with frozen weights</th>
+            </tr>
           </thead>
           <tbody>
             {whatIf.offers.map((o) => (

@@ -11,7 +11,10 @@ export function AddendumForm({ tenderId, threadId }: { tenderId: string; threadI
       extra={threadId ? { threadId } : {}}
       label="Publish an addendum"
       submit="Publish to every invited vendor"
-      fields={[{ name: "title", label: "Title" }, { name: "body", label: "Addendum (do not name the vendor who asked)", rows: 5 }]}
+      fields={[
+        { name: "title", label: "Title" },
+        { name: "body", label: "Addendum (do not name the vendor who asked)", rows: 5 },
+      ]}
       send={(values) => publishAddendumAction(tenderId, values)}
     />
   );
@@ -44,10 +47,19 @@ export function AcknowledgeButton({ tenderId, addendumId, number }: { tenderId: 
   const [pending, startTransition] = useTransition();
   return (
     <div>
-      <button type="button" className="btn-quiet" disabled={pending} onClick={() => startTransition(async () => setMessage((await acknowledgeAddendumAction(tenderId, addendumId)).message ?? null))}>
+      <button
+        type="button"
+        className="btn-quiet"
+        disabled={pending}
+        onClick={() => startTransition(async () => setMessage((await acknowledgeAddendumAction(tenderId, addendumId)).message ?? null))}
+      >
         {pending ? "Acknowledging…" : `Acknowledge addendum ${number}`}
       </button>
-      {message ? <p role="status" className="text-sm">{message}</p> : null}
+      {message ? (
+        <p role="status" className="text-sm">
+          {message}
+        </p>
+      ) : null}
     </div>
   );
 }

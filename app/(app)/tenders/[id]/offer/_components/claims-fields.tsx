@@ -11,7 +11,6 @@ import { SensitivityClaimRow } from "./sensitivity-fields";
 /** An operating point as the offer form needs it (a point stated in dBm carries its sensitivity terms). */
 export type OfferPoint = { label: string; value: number; sensitivity?: { bitRate: number; payloadBits: number; targetPer: number } | null };
 
-
 function ClaimRow({ index, label, condition, allowNcg }: { index: number; label: string; condition: string; allowNcg: boolean }) {
   const { register, control, formState } = useFormContext<OfferFormValues>();
   const metric = useWatch({ control, name: `claims.${index}.metric` });
@@ -26,7 +25,9 @@ function ClaimRow({ index, label, condition, allowNcg }: { index: number; label:
         <div className="text-xs text-ink-soft">{condition}</div>
       </div>
       <div>
-        <label className="label" htmlFor={id("metric")}>Metric</label>
+        <label className="label" htmlFor={id("metric")}>
+          Metric
+        </label>
         <select id={id("metric")} className="field" {...register(`claims.${index}.metric`)}>
           <option value="bler">BLER (frame error rate)</option>
           <option value="ber">BER (post-decoder)</option>
@@ -35,14 +36,32 @@ function ClaimRow({ index, label, condition, allowNcg }: { index: number; label:
         <FieldError id={`${id("metric")}-error`} message={err("metric")} />
       </div>
       <div>
-        <label className="label" htmlFor={id("value")}>{metric === "ncg" ? "Gain (dB)" : "Claimed value"}</label>
-        <input id={id("value")} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err("value"))} aria-describedby={`${id("value")}-error`} {...register(`claims.${index}.value`, { setValueAs: formDecimal })} />
+        <label className="label" htmlFor={id("value")}>
+          {metric === "ncg" ? "Gain (dB)" : "Claimed value"}
+        </label>
+        <input
+          id={id("value")}
+          className="field tabular-nums"
+          inputMode="decimal"
+          aria-invalid={Boolean(err("value"))}
+          aria-describedby={`${id("value")}-error`}
+          {...register(`claims.${index}.value`, { setValueAs: formDecimal })}
+        />
         <FieldError id={`${id("value")}-error`} message={err("value")} />
       </div>
       {metric === "ncg" ? (
         <div>
-          <label className="label" htmlFor={id("out")}>Output BER of the gain</label>
-          <input id={id("out")} className="field tabular-nums" inputMode="decimal" placeholder="e.g. 1e-15" aria-describedby={`${id("out")}-error`} {...register(`claims.${index}.ncgOutputBer`, { setValueAs: formOptionalDecimal })} />
+          <label className="label" htmlFor={id("out")}>
+            Output BER of the gain
+          </label>
+          <input
+            id={id("out")}
+            className="field tabular-nums"
+            inputMode="decimal"
+            placeholder="e.g. 1e-15"
+            aria-describedby={`${id("out")}-error`}
+            {...register(`claims.${index}.ncgOutputBer`, { setValueAs: formOptionalDecimal })}
+          />
           <FieldError id={`${id("out")}-error`} message={err("ncgOutputBer")} />
         </div>
       ) : null}
@@ -68,4 +87,3 @@ export function ClaimsFields({ model, points }: { model: ChannelModel; points: O
     </section>
   );
 }
-

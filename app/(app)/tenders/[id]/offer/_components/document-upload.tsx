@@ -29,18 +29,28 @@ export function DocumentUpload({ offerId }: { offerId: string }) {
   return (
     <form ref={formRef} onSubmit={upload} className="flex flex-wrap items-end gap-3" aria-label="Upload a document">
       <div>
-        <label className="label" htmlFor="doc-file">PDF file (at most 20 MB)</label>
+        <label className="label" htmlFor="doc-file">
+          PDF file (at most 20 MB)
+        </label>
         <input id="doc-file" name="file" type="file" accept="application/pdf,.pdf" required className="text-sm" />
       </div>
       <div>
-        <label className="label" htmlFor="doc-kind">Kind</label>
+        <label className="label" htmlFor="doc-kind">
+          Kind
+        </label>
         <select id="doc-kind" name="kind" className="field">
           <option value="datasheet">Datasheet</option>
           <option value="test-report">Test report</option>
         </select>
       </div>
-      <button type="submit" className="btn-quiet" disabled={pending}>{pending ? "Uploading…" : "Upload"}</button>
-      {message ? <p role={message.ok ? "status" : "alert"} className={`w-full text-sm ${message.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>{message.text}</p> : null}
+      <button type="submit" className="btn-quiet" disabled={pending}>
+        {pending ? "Uploading…" : "Upload"}
+      </button>
+      {message ? (
+        <p role={message.ok ? "status" : "alert"} className={`w-full text-sm ${message.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>
+          {message.text}
+        </p>
+      ) : null}
     </form>
   );
 }

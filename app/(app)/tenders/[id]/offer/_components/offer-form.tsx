@@ -37,15 +37,26 @@ export function OfferForm({ tenderId, model, points, defaults, resubmission }: P
   );
   const text = (name: "moduleName" | "partNumber" | "code.family", id: string, label: string) => (
     <div>
-      <label className="label" htmlFor={id}>{label}</label>
+      <label className="label" htmlFor={id}>
+        {label}
+      </label>
       <input id={id} className="field" aria-invalid={Boolean(err(name))} aria-describedby={`${id}-error`} {...register(name)} />
       <FieldError id={`${id}-error`} message={err(name)} />
     </div>
   );
   const codeNumber = (name: "n" | "k" | "rate" | "overhead", label: string) => (
     <div>
-      <label className="label" htmlFor={`code-${name}`}>{label}</label>
-      <input id={`code-${name}`} className="field tabular-nums" inputMode="decimal" aria-invalid={Boolean(err(`code.${name}`))} aria-describedby={`code-${name}-error`} {...register(`code.${name}`, { setValueAs: name === "n" || name === "k" ? formOptionalCount : formOptionalDecimal })} />
+      <label className="label" htmlFor={`code-${name}`}>
+        {label}
+      </label>
+      <input
+        id={`code-${name}`}
+        className="field tabular-nums"
+        inputMode="decimal"
+        aria-invalid={Boolean(err(`code.${name}`))}
+        aria-describedby={`code-${name}-error`}
+        {...register(`code.${name}`, { setValueAs: name === "n" || name === "k" ? formOptionalCount : formOptionalDecimal })}
+      />
       <FieldError id={`code-${name}-error`} message={err(`code.${name}`)} />
     </div>
   );
@@ -54,7 +65,9 @@ export function OfferForm({ tenderId, model, points, defaults, resubmission }: P
     <FormProvider {...form}>
       <form onSubmit={submit} className="panel space-y-5" aria-label="Offer form" noValidate>
         {result.message ? (
-          <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>{result.message}</p>
+          <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>
+            {result.message}
+          </p>
         ) : null}
         <section className="grid gap-3 md:grid-cols-2" aria-label="Module">
           {text("moduleName", "module-name", "Module name")}
@@ -65,10 +78,14 @@ export function OfferForm({ tenderId, model, points, defaults, resubmission }: P
           <div className="grid gap-3 md:grid-cols-2">
             {text("code.family", "code-family", "Code family (LDPC, BCH, RS, polar, turbo, convolutional…)")}
             <div>
-              <label className="label" htmlFor="code-decision">Decoder input</label>
+              <label className="label" htmlFor="code-decision">
+                Decoder input
+              </label>
               <select id="code-decision" className="field" {...register("code.decision")}>
                 <option value="hard">Hard decision</option>
-                <option value="soft" disabled={model === "bsc"}>Soft decision{model === "bsc" ? " (not on this hard-decision tender)" : ""}</option>
+                <option value="soft" disabled={model === "bsc"}>
+                  Soft decision{model === "bsc" ? " (not on this hard-decision tender)" : ""}
+                </option>
               </select>
               <FieldError id="code-decision-error" message={err("code.decision")} />
             </div>

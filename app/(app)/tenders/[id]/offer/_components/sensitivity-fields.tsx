@@ -23,47 +23,89 @@ function CurveFields({ index }: { index: number }) {
       <legend className="label">Waterfall curve (optional): each point is judged; the worst one counts for the claim</legend>
       {fields.length ? (
         <ScrollBox label="Waterfall curve points">
-        <table className="data-table">
-          <thead><tr><th>#</th><th>x</th><th>Unit</th><th>Metric</th><th>Error rate</th><th><span className="sr-only">Remove</span></th></tr></thead>
-          <tbody>
-            {fields.map((field, j) => (
-              <tr key={field.id} data-curve-point={j + 1}>
-                <td className="tabular-nums">{j + 1}</td>
-                <td>
-                  <label className="sr-only" htmlFor={id(j, "x")}>Curve point {j + 1} x</label>
-                  <input id={id(j, "x")} className="field tabular-nums w-20 sm:w-28" inputMode="decimal" {...register(`${base}.${j}.x` as `claims.0.sensitivity.curve.0.x`, { setValueAs: formDecimal })} />
-                  <FieldError id={`${id(j, "x")}-error`} message={errorAt(formState.errors, `${base}.${j}.x`)} />
-                </td>
-                <td>
-                  <label className="sr-only" htmlFor={id(j, "unit")}>Curve point {j + 1} unit</label>
-                  <select id={id(j, "unit")} className="field" {...register(`${base}.${j}.unit` as `claims.0.sensitivity.curve.0.unit`)}>
-                    <option value="dBm">{CURVE_UNIT_WORDS.dBm}</option>
-                    <option value="ebn0Db">{CURVE_UNIT_WORDS.ebn0Db}</option>
-                  </select>
-                </td>
-                <td>
-                  <label className="sr-only" htmlFor={id(j, "metric")}>Curve point {j + 1} metric</label>
-                  <select id={id(j, "metric")} className="field" {...register(`${base}.${j}.metric` as `claims.0.sensitivity.curve.0.metric`)}>
-                    <option value="per">PER</option>
-                    <option value="bler">BLER</option>
-                    <option value="ber">BER</option>
-                  </select>
-                </td>
-                <td>
-                  <label className="sr-only" htmlFor={id(j, "value")}>Curve point {j + 1} error rate</label>
-                  <input id={id(j, "value")} className="field tabular-nums w-20 sm:w-28" inputMode="decimal" {...register(`${base}.${j}.value` as `claims.0.sensitivity.curve.0.value`, { setValueAs: formDecimal })} />
-                  <FieldError id={`${id(j, "value")}-error`} message={errorAt(formState.errors, `${base}.${j}.value`)} />
-                </td>
-                <td><button type="button" className="btn-quiet" onClick={() => remove(j)} aria-label={`Remove curve point ${j + 1}`}>Remove</button></td>
+          <table className="data-table">
+            <thead>
+              <tr>
+                <th>#</th>
+                <th>x</th>
+                <th>Unit</th>
+                <th>Metric</th>
+                <th>Error rate</th>
+                <th>
+                  <span className="sr-only">Remove</span>
+                </th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {fields.map((field, j) => (
+                <tr key={field.id} data-curve-point={j + 1}>
+                  <td className="tabular-nums">{j + 1}</td>
+                  <td>
+                    <label className="sr-only" htmlFor={id(j, "x")}>
+                      Curve point {j + 1} x
+                    </label>
+                    <input
+                      id={id(j, "x")}
+                      className="field tabular-nums w-20 sm:w-28"
+                      inputMode="decimal"
+                      {...register(`${base}.${j}.x` as `claims.0.sensitivity.curve.0.x`, { setValueAs: formDecimal })}
+                    />
+                    <FieldError id={`${id(j, "x")}-error`} message={errorAt(formState.errors, `${base}.${j}.x`)} />
+                  </td>
+                  <td>
+                    <label className="sr-only" htmlFor={id(j, "unit")}>
+                      Curve point {j + 1} unit
+                    </label>
+                    <select id={id(j, "unit")} className="field" {...register(`${base}.${j}.unit` as `claims.0.sensitivity.curve.0.unit`)}>
+                      <option value="dBm">{CURVE_UNIT_WORDS.dBm}</option>
+                      <option value="ebn0Db">{CURVE_UNIT_WORDS.ebn0Db}</option>
+                    </select>
+                  </td>
+                  <td>
+                    <label className="sr-only" htmlFor={id(j, "metric")}>
+                      Curve point {j + 1} metric
+                    </label>
+                    <select id={id(j, "metric")} className="field" {...register(`${base}.${j}.metric` as `claims.0.sensitivity.curve.0.metric`)}>
+                      <option value="per">PER</option>
+                      <option value="bler">BLER</option>
+                      <option value="ber">BER</option>
+                    </select>
+                  </td>
+                  <td>
+                    <label className="sr-only" htmlFor={id(j, "value")}>
+                      Curve point {j + 1} error rate
+                    </label>
+                    <input
+                      id={id(j, "value")}
+                      className="field tabular-nums w-20 sm:w-28"
+                      inputMode="decimal"
+                      {...register(`${base}.${j}.value` as `claims.0.sensitivity.curve.0.value`, { setValueAs: formDecimal })}
+                    />
+                    <FieldError id={`${id(j, "value")}-error`} message={errorAt(formState.errors, `${base}.${j}.value`)} />
+                  </td>
+                  <td>
+                    <button type="button" className="btn-quiet" onClick={() => remove(j)} aria-label={`Remove curve point ${j + 1}`}>
+                      Remove
+                    </button>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
         </ScrollBox>
       ) : null}
       <div className="flex flex-wrap items-center gap-3">
-        <button type="button" className="btn-quiet" disabled={fields.length >= MAX_CURVE_POINTS} onClick={() => append({ x: undefined as unknown as number, unit: "dBm", metric: "per", value: undefined as unknown as number })}>Add curve point</button>
-        <label className="text-sm" htmlFor={`claim-${index}-curve-csv`}>Or read a CSV file:</label>
+        <button
+          type="button"
+          className="btn-quiet"
+          disabled={fields.length >= MAX_CURVE_POINTS}
+          onClick={() => append({ x: undefined as unknown as number, unit: "dBm", metric: "per", value: undefined as unknown as number })}
+        >
+          Add curve point
+        </button>
+        <label className="text-sm" htmlFor={`claim-${index}-curve-csv`}>
+          Or read a CSV file:
+        </label>
         <input
           id={`claim-${index}-curve-csv`}
           type="file"
@@ -78,22 +120,48 @@ function CurveFields({ index }: { index: number }) {
       <p className="text-xs text-ink-muted">{CURVE_CSV_HELP}</p>
       {preview ? (
         <div className="rounded-md border border-rule p-2 text-sm" role="region" aria-label="Curve file preview">
-          <p>{preview.points.length} point{preview.points.length === 1 ? "" : "s"} read{preview.errors.length ? `, ${preview.errors.length} problem${preview.errors.length === 1 ? "" : "s"}` : ""}.</p>
-          {preview.errors.length ? <ul className="text-xs text-verdict-impossible">{preview.errors.map((m) => <li key={m}>{m}</li>)}</ul> : null}
+          <p>
+            {preview.points.length} point{preview.points.length === 1 ? "" : "s"} read
+            {preview.errors.length ? `, ${preview.errors.length} problem${preview.errors.length === 1 ? "" : "s"}` : ""}.
+          </p>
+          {preview.errors.length ? (
+            <ul className="text-xs text-verdict-impossible">
+              {preview.errors.map((m) => (
+                <li key={m}>{m}</li>
+              ))}
+            </ul>
+          ) : null}
           {preview.points.length ? (
             <table className="data-table">
               <tbody>
                 {preview.points.map((p, j) => (
-                  <tr key={j}><td className="tabular-nums">{p.x} {p.unit === "dBm" ? "dBm" : "dB Eb/N0"}</td><td className="tabular-nums">{CURVE_METRIC_WORDS[p.metric]} {formatSci(p.value)}</td></tr>
+                  <tr key={j}>
+                    <td className="tabular-nums">
+                      {p.x} {p.unit === "dBm" ? "dBm" : "dB Eb/N0"}
+                    </td>
+                    <td className="tabular-nums">
+                      {CURVE_METRIC_WORDS[p.metric]} {formatSci(p.value)}
+                    </td>
+                  </tr>
                 ))}
               </tbody>
             </table>
           ) : null}
           <div className="mt-2 flex gap-2">
-            <button type="button" className="btn" disabled={preview.points.length === 0 || preview.errors.length > 0} onClick={() => { replace(preview.points); setPreview(null); }}>
+            <button
+              type="button"
+              className="btn"
+              disabled={preview.points.length === 0 || preview.errors.length > 0}
+              onClick={() => {
+                replace(preview.points);
+                setPreview(null);
+              }}
+            >
               Use these {preview.points.length} points
             </button>
-            <button type="button" className="btn-quiet" onClick={() => setPreview(null)}>Discard</button>
+            <button type="button" className="btn-quiet" onClick={() => setPreview(null)}>
+              Discard
+            </button>
           </div>
         </div>
       ) : null}
@@ -109,8 +177,18 @@ export function SensitivityClaimRow({ index, point }: { index: number; point: Po
   const id = (field: string) => `claim-${index}-${field.replace(/\./g, "-")}`;
   const input = (field: string, label: string, setValueAs: (v: unknown) => unknown, placeholder?: string) => (
     <div>
-      <label className="label" htmlFor={id(field)}>{label}</label>
-      <input id={id(field)} className="field tabular-nums" inputMode="decimal" placeholder={placeholder} aria-invalid={Boolean(err(field))} aria-describedby={`${id(field)}-error`} {...register(`claims.${index}.${field}` as `claims.0.value`, { setValueAs })} />
+      <label className="label" htmlFor={id(field)}>
+        {label}
+      </label>
+      <input
+        id={id(field)}
+        className="field tabular-nums"
+        inputMode="decimal"
+        placeholder={placeholder}
+        aria-invalid={Boolean(err(field))}
+        aria-describedby={`${id(field)}-error`}
+        {...register(`claims.${index}.${field}` as `claims.0.value`, { setValueAs })}
+      />
       <FieldError id={`${id(field)}-error`} message={err(field)} />
     </div>
   );
@@ -122,15 +200,22 @@ export function SensitivityClaimRow({ index, point }: { index: number; point: Po
       <div className="col-span-full text-sm">
         <div className="font-medium">{point.label}</div>
         <div className="text-xs text-ink-soft">
-          Required: {point.value} dBm or better at {s.bitRate.toLocaleString("en-GB")} bit/s (information rate), {s.payloadBits}-bit payload, PER ≤ {formatSci(s.targetPer)}
+          Required: {point.value} dBm or better at {s.bitRate.toLocaleString("en-GB")} bit/s (information rate), {s.payloadBits}-bit payload, PER ≤{" "}
+          {formatSci(s.targetPer)}
         </div>
       </div>
       {input("sensitivity.dbm", "Sensitivity (dBm)", formDecimal, "e.g. -133")}
       {input("value", "At PER", formDecimal)}
       {input("sensitivity.noiseFigureDb", "Noise figure (dB, optional)", formOptionalDecimal, "e.g. 4")}
       <div>
-        <label className="label" htmlFor={id("sensitivity.modulation")}>Modulation</label>
-        <select id={id("sensitivity.modulation")} className="field" {...register(`claims.${index}.sensitivity.modulation`, { setValueAs: (v) => (v ? v : null) })}>
+        <label className="label" htmlFor={id("sensitivity.modulation")}>
+          Modulation
+        </label>
+        <select
+          id={id("sensitivity.modulation")}
+          className="field"
+          {...register(`claims.${index}.sensitivity.modulation`, { setValueAs: (v) => (v ? v : null) })}
+        >
           <option value="">Not stated</option>
           <option value="bpsk">BPSK</option>
           <option value="qpsk">QPSK (Gray)</option>

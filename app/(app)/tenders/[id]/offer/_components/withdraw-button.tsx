@@ -12,8 +12,14 @@ export function WithdrawButton({ tenderId, offerId }: { tenderId: string; offerI
   };
   return (
     <div>
-      <button type="button" className="btn-quiet" onClick={withdraw} disabled={pending}>{pending ? "Withdrawing…" : "Withdraw offer"}</button>
-      {message ? <p role="status" className="text-sm">{message}</p> : null}
+      <button type="button" className="btn-quiet" onClick={withdraw} disabled={pending}>
+        {pending ? "Withdrawing…" : "Withdraw offer"}
+      </button>
+      {message ? (
+        <p role="status" className="text-sm">
+          {message}
+        </p>
+      ) : null}
     </div>
   );
 }

@@ -27,8 +27,12 @@ export function DocumentList({ documents }: { documents: OfferView["documents"] 
       {documents.map((d) => (
         <li key={d.id} className="flex flex-wrap gap-x-3">
           <a href={`/api/v1/documents/${d.id}`}>{d.fileName}</a>
-          <span className="text-ink-soft">{KIND_LABELS[d.kind]}, {(d.size / 1024).toFixed(0)} KB</span>
-          <span className="font-mono text-xs text-ink-muted" title="SHA-256">{d.sha256.slice(0, 16)}…</span>
+          <span className="text-ink-soft">
+            {KIND_LABELS[d.kind]}, {(d.size / 1024).toFixed(0)} KB
+          </span>
+          <span className="font-mono text-xs text-ink-muted" title="SHA-256">
+            {d.sha256.slice(0, 16)}…
+          </span>
         </li>
       ))}
     </ul>
@@ -41,9 +45,18 @@ function Envelope({ offer }: { offer: OfferView }) {
   const currency = String(offer.currency);
   return (
     <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4" aria-label="Commercial envelope">
-      <div><dt className="label">Unit price</dt><dd className="tabular-nums">{formatMoney(Number(offer.unitPrice), currency)}</dd></div>
-      <div><dt className="label">Lead time</dt><dd>{offer.leadTimeWeeks} weeks</dd></div>
-      <div><dt className="label">Warranty</dt><dd>{offer.warrantyMonths} months</dd></div>
+      <div>
+        <dt className="label">Unit price</dt>
+        <dd className="tabular-nums">{formatMoney(Number(offer.unitPrice), currency)}</dd>
+      </div>
+      <div>
+        <dt className="label">Lead time</dt>
+        <dd>{offer.leadTimeWeeks} weeks</dd>
+      </div>
+      <div>
+        <dt className="label">Warranty</dt>
+        <dd>{offer.warrantyMonths} months</dd>
+      </div>
       <div>
         <dt className="label">Price breaks</dt>
         <dd className="tabular-nums">
@@ -63,7 +76,12 @@ export function OfferCard({ offer, model }: { offer: OfferView; model: ChannelMo
         <h2 className="flex-1">{offer.vendorName}</h2>
         {offer.status === "withdrawn" ? <span className="rounded-sm border border-ink-faint px-1.5 text-xs">Withdrawn</span> : null}
         <span className="text-xs text-ink-soft">
-          Version {offer.version}{offer.submittedAt ? <>, submitted <DateTime value={offer.submittedAt} /></> : null}
+          Version {offer.version}
+          {offer.submittedAt ? (
+            <>
+              , submitted <DateTime value={offer.submittedAt} />
+            </>
+          ) : null}
         </span>
       </div>
       <p className="text-sm">

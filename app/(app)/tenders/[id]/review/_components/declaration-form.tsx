@@ -18,34 +18,54 @@ export function DeclarationForm({ tenderId, vendors }: { tenderId: string; vendo
     defaultValues: { conflict: "none", conflictedOrgIds: [], statement: "" },
   });
   const some = useWatch({ control, name: "conflict" }) === "some";
-  const submit = handleSubmit((values) => startTransition(async () => setResult(await declareAction(tenderId, { ...values, conflictedOrgIds: some ? values.conflictedOrgIds : [] }))));
+  const submit = handleSubmit((values) =>
+    startTransition(async () => setResult(await declareAction(tenderId, { ...values, conflictedOrgIds: some ? values.conflictedOrgIds : [] }))),
+  );
   const e = formState.errors;
   return (
     <form onSubmit={submit} aria-label="Conflict-of-interest declaration" className="space-y-3" noValidate>
       <fieldset>
         <legend className="label">Do you have a conflict of interest with an invited vendor?</legend>
         <div className="flex gap-4 text-sm">
-          <label className="inline-flex items-center gap-1"><input type="radio" value="none" {...register("conflict")} /> No conflict</label>
-          <label className="inline-flex items-center gap-1"><input type="radio" value="some" {...register("conflict")} /> Conflict with named vendors</label>
+          <label className="inline-flex items-center gap-1">
+            <input type="radio" value="none" {...register("conflict")} /> No conflict
+          </label>
+          <label className="inline-flex items-center gap-1">
+            <input type="radio" value="some" {...register("conflict")} /> Conflict with named vendors
+          </label>
         </div>
       </fieldset>
       {some ? (
         <fieldset>
           <legend className="label">Vendors you are conflicted with</legend>
           <div className="flex flex-wrap gap-4 text-sm">
-            {vendors.map((v) => <label key={v.id} className="inline-flex items-center gap-1"><input type="checkbox" value={v.id} {...register("conflictedOrgIds")} /> {v.name}</label>)}
+            {vendors.map((v) => (
+              <label key={v.id} className="inline-flex items-center gap-1">
+                <input type="checkbox" value={v.id} {...register("conflictedOrgIds")} /> {v.name}
+              </label>
+            ))}
           </div>
           <FieldError message={e.conflictedOrgIds?.message} />
         </fieldset>
       ) : null}
       <div>
-        <label className="label" htmlFor="declaration-statement">Statement</label>
-        <textarea id="declaration-statement" rows={3} className="field" placeholder="For example: I have no financial, family or employment ties to any invited vendor." {...register("statement")} />
+        <label className="label" htmlFor="declaration-statement">
+          Statement
+        </label>
+        <textarea
+          id="declaration-statement"
+          rows={3}
+          className="field"
+          placeholder="For example: I have no financial, family or employment ties to any invited vendor."
+          {...register("statement")}
+        />
         <FieldError message={e.statement?.message} />
       </div>
       <FormStatus result={result} />
       <p className="text-xs text-ink-soft">A declaration is recorded in the ledger and cannot be changed afterwards.</p>
-      <button type="submit" className="btn" disabled={pending}>{pending ? "Recording…" : "Declare"}</button>
+      <button type="submit" className="btn" disabled={pending}>
+        {pending ? "Recording…" : "Declare"}
+      </button>
     </form>
   );
 }

@@ -11,7 +11,11 @@ export function SignoffCard({ tenderId, state }: { tenderId: string; state: Sign
   return (
     <section className="panel space-y-2" aria-label="Technical sign-off">
       <h2>Technical sign-off</h2>
-      {state.safetyRelevant ? <p className="text-sm font-medium" role="note" aria-label="Safety-relevant tender">{SAFETY_CAUTION}</p> : null}
+      {state.safetyRelevant ? (
+        <p className="text-sm font-medium" role="note" aria-label="Safety-relevant tender">
+          {SAFETY_CAUTION}
+        </p>
+      ) : null}
       {signatures.length > 0 ? (
         <ul className="space-y-1 text-sm" aria-label="Signatures">
           {signatures.map((s) => (
@@ -24,10 +28,17 @@ export function SignoffCard({ tenderId, state }: { tenderId: string; state: Sign
       {state.complete ? null : (
         <>
           <p className="text-sm">
-            {check.final} of {check.total} claims have a final mark; {check.openThreads === 0 ? "no question is waiting" : `${check.openThreads} question${check.openThreads === 1 ? " waits" : "s wait"} for an answer or closing`}
+            {check.final} of {check.total} claims have a final mark;{" "}
+            {check.openThreads === 0
+              ? "no question is waiting"
+              : `${check.openThreads} question${check.openThreads === 1 ? " waits" : "s wait"} for an answer or closing`}
             {state.safetyRelevant ? `; ${check.signaturesGiven} of ${check.signaturesNeeded} engineers have signed` : ""}.
           </p>
-          {check.reason ? <p className="text-sm" role="alert" aria-label="Why it cannot be signed yet">{check.reason}</p> : null}
+          {check.reason ? (
+            <p className="text-sm" role="alert" aria-label="Why it cannot be signed yet">
+              {check.reason}
+            </p>
+          ) : null}
           {state.maySign && check.ok ? <SignoffForm tenderId={tenderId} /> : null}
           {!state.maySign ? <p className="text-xs text-ink-soft">Only an engineer who declared no conflict on this tender signs it.</p> : null}
         </>

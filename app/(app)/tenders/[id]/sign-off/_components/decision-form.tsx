@@ -24,7 +24,9 @@ export function DecisionForm({ tenderId, summary, onApprove }: { tenderId: strin
     <form onSubmit={(e) => e.preventDefault()} aria-label="Decision" className="space-y-3" noValidate>
       <p className="text-sm">{summary}</p>
       <div>
-        <label className="label" htmlFor="decision-comment">Comment (required to return)</label>
+        <label className="label" htmlFor="decision-comment">
+          Comment (required to return)
+        </label>
         <textarea id="decision-comment" rows={3} className="field" value={comment} onChange={(e) => setComment(e.target.value)} />
         <FieldError message={result.fieldErrors?.comment?.[0]} />
       </div>
@@ -38,7 +40,9 @@ export function DecisionForm({ tenderId, summary, onApprove }: { tenderId: strin
         >
           Approve
         </button>
-        <button type="button" className="btn-quiet" disabled={pending} onClick={() => send("return")}>Return to the buyer</button>
+        <button type="button" className="btn-quiet" disabled={pending} onClick={() => send("return")}>
+          Return to the buyer
+        </button>
       </div>
       {confirm.dialog}
       <p className="text-xs text-ink-soft">Your decision is recorded in the ledger with your name and the time; it cannot be undone.</p>

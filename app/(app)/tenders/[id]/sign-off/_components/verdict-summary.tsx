@@ -11,7 +11,16 @@ export function VerdictSummary({ offers }: { offers: Offers }) {
     <section className="panel overflow-x-auto" aria-label="Verdicts per offer">
       <h2>Verdicts per offer</h2>
       <table className="data-table mt-2">
-        <thead><tr><th>Vendor</th><th>Module</th><th>Operating point</th><th>Claim</th><th>Verdict</th><th>Mark</th></tr></thead>
+        <thead>
+          <tr>
+            <th>Vendor</th>
+            <th>Module</th>
+            <th>Operating point</th>
+            <th>Claim</th>
+            <th>Verdict</th>
+            <th>Mark</th>
+          </tr>
+        </thead>
         <tbody>
           {offers.flatMap((o) =>
             o.claims.map((c, i) => (
@@ -20,12 +29,25 @@ export function VerdictSummary({ offers }: { offers: Offers }) {
                 <td>{i === 0 ? o.moduleName : ""}</td>
                 <td>{c.point}</td>
                 <td className="tabular-nums">{claimWords(c)}</td>
-                <td><VerdictBadge verdict={c.verdict} /></td>
-                <td className={acceptedAgainstImpossible(c) ? "font-medium text-verdict-impossible" : "text-ink-soft"} data-flag={acceptedAgainstImpossible(c) || undefined}>{reviewWords(c)}</td>
+                <td>
+                  <VerdictBadge verdict={c.verdict} />
+                </td>
+                <td
+                  className={acceptedAgainstImpossible(c) ? "font-medium text-verdict-impossible" : "text-ink-soft"}
+                  data-flag={acceptedAgainstImpossible(c) || undefined}
+                >
+                  {reviewWords(c)}
+                </td>
               </tr>
             )),
           )}
-          {offers.length === 0 ? <tr><td colSpan={6} className="text-ink-soft">No offer you may see.</td></tr> : null}
+          {offers.length === 0 ? (
+            <tr>
+              <td colSpan={6} className="text-ink-soft">
+                No offer you may see.
+              </td>
+            </tr>
+          ) : null}
         </tbody>
       </table>
     </section>

@@ -20,19 +20,32 @@ export function WithdrawForm({ tenderId }: { tenderId: string }) {
     confirm.ask(
       {
         title: "Withdraw the recommendation?",
-        consequences: "It leaves approval for good, and any approvals given to it stop counting. The tender goes back to commercial evaluation, where you can recommend again. The reason goes into the ledger.",
+        consequences:
+          "It leaves approval for good, and any approvals given to it stop counting. The tender goes back to commercial evaluation, where you can recommend again. The reason goes into the ledger.",
         action: "Withdraw",
       },
       () => startTransition(async () => setResult(await withdrawAction(tenderId, { reason }))),
     );
   };
   return (
-    <form onSubmit={(e) => { e.preventDefault(); submit(); }} aria-label="Withdraw the recommendation" className="space-y-2" noValidate>
-      <label className="label" htmlFor="withdraw-reason">Reason for withdrawing</label>
+    <form
+      onSubmit={(e) => {
+        e.preventDefault();
+        submit();
+      }}
+      aria-label="Withdraw the recommendation"
+      className="space-y-2"
+      noValidate
+    >
+      <label className="label" htmlFor="withdraw-reason">
+        Reason for withdrawing
+      </label>
       <textarea id="withdraw-reason" rows={2} className="field" value={reason} onChange={(e) => setReason(e.target.value)} />
       <FieldError message={result.fieldErrors?.reason?.[0]} />
       <FormStatus result={result} />
-      <button type="submit" className="btn-quiet" disabled={pending}>{pending ? "Withdrawing…" : "Withdraw the recommendation"}</button>
+      <button type="submit" className="btn-quiet" disabled={pending}>
+        {pending ? "Withdrawing…" : "Withdraw the recommendation"}
+      </button>
       {confirm.dialog}
     </form>
   );

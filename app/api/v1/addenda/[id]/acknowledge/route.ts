@@ -4,6 +4,4 @@ import { requireViewer } from "@/lib/server/session";
 
 type Context = { params: Promise<{ id: string }> };
 
-export const POST = jsonRoute(async (request, { params }: Context) =>
-  acknowledgeAddendum(await requireViewer(request.headers), (await params).id),
-);
+export const POST = jsonRoute(async (request, { params }: Context) => acknowledgeAddendum(await requireViewer(request.headers), (await params).id));

@@ -5,9 +5,7 @@ import { addendumSchema } from "@/lib/validation/notices";
 
 type Context = { params: Promise<{ id: string }> };
 
-export const GET = jsonRoute(async (request, { params }: Context) =>
-  listAddenda(await requireViewer(request.headers), (await params).id),
-);
+export const GET = jsonRoute(async (request, { params }: Context) => listAddenda(await requireViewer(request.headers), (await params).id));
 
 export const POST = jsonRoute(async (request, { params }: Context) => {
   const viewer = await requireViewer(request.headers);

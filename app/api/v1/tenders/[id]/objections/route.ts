@@ -6,9 +6,7 @@ import { objectionSchema } from "@/lib/validation/notices";
 type Context = { params: Promise<{ id: string }> };
 
 /** The standstill period and the objections the viewer may read. */
-export const GET = jsonRoute(async (request, { params }: Context) =>
-  listObjections(await requireViewer(request.headers), (await params).id),
-);
+export const GET = jsonRoute(async (request, { params }: Context) => listObjections(await requireViewer(request.headers), (await params).id));
 
 export const POST = jsonRoute(async (request, { params }: Context) => {
   const viewer = await requireViewer(request.headers);

@@ -5,9 +5,7 @@ import { messageSchema } from "@/lib/validation/review";
 
 type Context = { params: Promise<{ id: string }> };
 
-export const GET = jsonRoute(async (request, { params }: Context) =>
-  getThread(await requireViewer(request.headers), (await params).id),
-);
+export const GET = jsonRoute(async (request, { params }: Context) => getThread(await requireViewer(request.headers), (await params).id));
 
 export const POST = jsonRoute(async (request, { params }: Context) => {
   const viewer = await requireViewer(request.headers);
