@@ -58,7 +58,7 @@ describe("bound arguments of server actions", () => {
           .map((p) => p.split(":")[0].trim())
           .filter((p) => p && !["values", "_prev", "formData"].includes(p));
         if (bound.length === 0) continue;
-        const handed = new RegExp(`\\{ ${bound.join(", ")} \\},?\\s*\\)`);
+        const handed = new RegExp(`\\{\\s*${bound.join(",\\s*")},?\\s*\\},?\\s*\\)`);
         if (!/(?:runForm|attemptForm)\(/.test(body) || !handed.test(body)) unchecked.push(`${path.relative(".", file)} ${name}(${bound.join(", ")})`);
       }
     }
