@@ -1,12 +1,13 @@
 // The scale workload at a tiny size: every row written through the app's functions, the ledger
 // one valid chain, the report's counts equal to the database's, and the same seed giving the same
 // workload twice (ids, hashes and times aside).
-import { afterAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { asc, count, eq } from "drizzle-orm";
 import type { PgTable } from "drizzle-orm/pg-core";
 import { closeDb, getDb } from "@/lib/server/database";
 import { claims, evidenceRuns, ledgerEntries, marks, offers, organisations, tenders, threads } from "@/db/schema";
 import { seedScale, type ScaleReport } from "@/db/seed-scale";
+import { freshDatabase } from "../support/app";
 import { verifyLedger } from "@/lib/server/ledger";
 
 const TINY = { tenders: 10, vendors: 6, wide: { offers: 7, points: 3 }, seed: 7 };
@@ -45,6 +46,9 @@ const total = async (table: PgTable) => {
   return Number((await db.select({ n: count() }).from(table))[0].n);
 };
 
+beforeAll(async () => {
+  await freshDatabase();
+});
 afterAll(() => closeDb());
 
 describe("the scale seed", () => {
@@ -79,7 +83,9 @@ describe("the scale seed", () => {
   }, 600_000);
 
   it("writes the same workload again from the same seed", async () => {
-    await closeDb(); // the next getDb() opens a new in-memory database
+    // A fresh demo database: a new in-memory one on PGlite, the server's tables emptied and re-seeded on PostgreSQL.
+    await closeDb();
+    await freshDatabase();
     const second = await seedScale(TINY);
     const { seconds: _a, wideTenderId: _b, ...counts } = second;
     const { seconds: _c, wideTenderId: _d, ...before } = first;
