@@ -7,7 +7,7 @@ export default defineConfig({
   root,
   resolve: { alias: { "@": root, "server-only": path.join(root, "tests/support/server-only.ts") } },
   test: {
-    include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts"],
+    include: ["tests/unit/**/*.test.{ts,tsx}", "tests/integration/**/*.test.ts"],
     environment: "node",
     setupFiles: ["tests/support/setup.ts"],
     globalSetup: ["tests/support/global-setup.ts"],

@@ -55,6 +55,21 @@ export function ClaimNumbers({ result }: { result: unknown }) {
     ["Claimed residual error", `${r.target.metric.toUpperCase()} ${formatSci(r.target.value)} (log10 ${r.target.log10.toFixed(2)})`],
     ["Least possible BLER (converse)", r.converse ? `${fromLog10(r.converse.log10Bler)} (log10 ${r.converse.log10Bler.toFixed(2)})` : "–"],
     ["BLER a random code guarantees (achievability)", r.achievable ? `${fromLog10(r.achievable.log10Bler)} (log10 ${r.achievable.log10Bler.toFixed(2)})` : "–"],
+    // On BI-AWGN the converse is Shannon's 1959 bound and the guarantee Gallager's random-coding bound.
+    ...(r.spherePacking
+      ? ([
+          [
+            "Least possible BLER, equal-energy codewords (1959 sphere packing)",
+            `${fromLog10(r.spherePacking.log10Bler)} (log10 ${r.spherePacking.log10Bler.toFixed(2)})`,
+          ],
+        ] as [string, string][])
+      : []),
+    ...(r.gallager?.log10Bler != null
+      ? ([["BLER Gallager's random-coding bound guarantees", `${fromLog10(r.gallager.log10Bler)} (log10 ${r.gallager.log10Bler.toFixed(2)})`]] as [
+          string,
+          string,
+        ][])
+      : []),
     ["Normal approximation", r.normal ? `BLER ${fromLog10(r.normal.log10Bler)}; best rate ${r.normal.rate.toFixed(4)} bits per channel use` : "–"],
     [
       "Rate gap to the normal approximation",
@@ -63,13 +78,21 @@ export function ClaimNumbers({ result }: { result: unknown }) {
         : `${r.margins.rateGapBits.toFixed(4)} bits per channel use (${((r.margins.rateGapFraction ?? 0) * 100).toFixed(2)} %)`,
     ],
   ];
-  const thresholds: [string, number | null, number | null][] = [
+  const thresholds: [string, number | null, number | null, ClaimResult["thresholds"]["unit"]?][] = [
     ["Capacity equals the rate", t.capacity, r.margins.channel.capacity],
     ["Shannon limit with the residual error allowed", t.shannon, null],
     ["Worst channel the converse allows", t.converse, r.margins.channel.converse],
     ["Worst channel achievability guarantees", t.achievable, r.margins.channel.achievable],
     ["Normal approximation", t.normal, r.margins.channel.normal],
   ];
+  // The radio limits, in Eb/N0 whatever the claim stated; margins against the Eb/N0 the claim amounts to.
+  const claimed = r.implied?.ebn0Db ?? null;
+  const against = (limit: number | null | undefined) => (limit == null || claimed == null ? null : limit - claimed);
+  if (t.spherePacking != null) thresholds.push(["Least Eb/N0 the 1959 bound allows", t.spherePacking, against(t.spherePacking), "ebn0Db"]);
+  if (r.energy?.converseEbn0Db != null)
+    thresholds.push(["Least energy per bit for k bits, any modulation", r.energy.converseEbn0Db, against(r.energy.converseEbn0Db), "ebn0Db"]);
+  if (r.energy?.achievableEbn0Db != null)
+    thresholds.push(["Reached by orthogonal signalling", r.energy.achievableEbn0Db, against(r.energy.achievableEbn0Db), "ebn0Db"]);
   return (
     <section className="panel space-y-3" aria-label="Numbers">
       <h2>The numbers</h2>
@@ -92,10 +115,10 @@ export function ClaimNumbers({ result }: { result: unknown }) {
           </tr>
         </thead>
         <tbody>
-          {thresholds.map(([k, v, m]) => (
+          {thresholds.map(([k, v, m, unit]) => (
             <tr key={k}>
               <td>{k}</td>
-              <td className="tabular-nums">{channelValue(v, t.unit)}</td>
+              <td className="tabular-nums">{channelValue(v, unit ?? t.unit)}</td>
               <td className="tabular-nums">{margin(m, kind)}</td>
             </tr>
           ))}
