@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { FormStatus } from "@/app/_components/form-status";
 import { notFound } from "next/navigation";
 import { DateTime } from "@/app/_components/date-time";
 import { FilterForm, FilterText } from "@/app/_components/list-filters";
@@ -35,11 +36,7 @@ export default async function MailroomPage({ searchParams }: { searchParams: Sea
         <FilterText id="mail-to" name="to" label="Recipient contains" value={query.to} maxLength={254} />
         <FilterText id="mail-subject" name="subject" label="Subject contains" value={query.subject} />
       </FilterForm>
-      {problem ? (
-        <p role="alert" className="text-sm text-verdict-impossible">
-          {problem}
-        </p>
-      ) : null}
+      <FormStatus result={{ ok: false, message: problem ?? undefined }} />
       {found.total === 0 ? <p className="text-sm text-ink-soft">{filtered ? "No mail matches these filters." : "No mail yet."}</p> : null}
       <ul className="space-y-3">
         {found.mail.map((m) => (

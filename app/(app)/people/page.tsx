@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { FormStatus } from "@/app/_components/form-status";
 import Link from "next/link";
 import { FilterForm, FilterSelect, FilterText } from "@/app/_components/list-filters";
 import { Pager, pageHref } from "@/app/_components/pager";
@@ -48,11 +49,7 @@ export default async function PeoplePage({ searchParams }: { searchParams: Searc
           ]}
         />
       </FilterForm>
-      {problem ? (
-        <p role="alert" className="text-sm text-verdict-impossible">
-          {problem}
-        </p>
-      ) : null}
+      <FormStatus result={{ ok: false, message: problem ?? undefined }} />
       <PeopleGrid people={people.users} selfId={viewer.actor.id} />
       <Pager info={people} noun={["person", "people"]} href={(page) => pageHref("/people", keep, page)} />
       <div className="grid gap-5 md:grid-cols-2">

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { FormStatus } from "@/app/_components/form-status";
 import Link from "next/link";
 import { DateTime } from "@/app/_components/date-time";
 import { FilterForm, FilterSelect, FilterText } from "@/app/_components/list-filters";
@@ -34,11 +35,7 @@ export default async function TendersPage({ searchParams }: { searchParams: Sear
         <FilterText id="tender-q" name="q" label="Reference or title contains" value={query.q} />
         <FilterSelect id="tender-state" name="state" label="State" value={query.state} any="Any state" options={Object.entries(STATE_LABELS)} />
       </FilterForm>
-      {problem ? (
-        <p role="alert" className="text-sm text-verdict-impossible">
-          {problem}
-        </p>
-      ) : null}
+      <FormStatus result={{ ok: false, message: problem ?? undefined }} />
       <div className="panel overflow-x-auto p-0">
         <table className="data-table">
           <thead>

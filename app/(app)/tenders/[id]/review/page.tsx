@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { FormStatus } from "@/app/_components/form-status";
 import Link from "next/link";
 import { Cautions } from "@/app/_components/cautions";
 import { DateTime } from "@/app/_components/date-time";
@@ -75,11 +76,7 @@ export default async function TenderReviewPage({
         </section>
       ) : null}
 
-      {problem ? (
-        <p role="alert" className="text-sm text-verdict-impossible">
-          {problem}
-        </p>
-      ) : null}
+      <FormStatus result={{ ok: false, message: problem ?? undefined }} />
       {claims ? <ClaimsTable claims={claims.claims} vendor={vendor} /> : null}
       {claims && claims.pages > 1 ? <Pager info={claims} noun={["claim", "claims"]} href={(page) => pageHref(`/tenders/${id}/review`, {}, page)} /> : null}
 
