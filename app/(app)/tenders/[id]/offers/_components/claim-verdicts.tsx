@@ -30,7 +30,7 @@ export function ClaimVerdicts({ claims, model, detail = false }: { claims: Claim
   return (
     <>
       <ScrollBox label="Verdicts by operating point">
-        <table className="data-table">
+        <table className="data-table min-w-[36rem]">
           <thead>
             <tr>
               <th>Operating point</th>
