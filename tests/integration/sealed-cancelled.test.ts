@@ -89,11 +89,12 @@ describe("a tender cancelled while open", () => {
     expect(listedOffers).toEqual([]);
     expect(await refused(getOffer(viewer, offerId))).not.toBe("read");
     expect(await refused(getClaimDetail(viewer, claimId))).not.toBe("read");
+    // The count comes from the SQL form of the claim rules (lib/server/access-sql.ts), which must read the seal as the policies do.
     const queue = await listClaimQueue(viewer, { tenderId: weirs, page: 1, size: 100 }).then(
-      (q) => q.claims,
-      () => [],
+      (q) => ({ claims: q.claims, total: q.total }),
+      () => ({ claims: [], total: 0 }),
     );
-    expect(queue).toEqual([]);
+    expect(queue).toEqual({ claims: [], total: 0 });
     const comparison = await getComparison(viewer, weirs).then(
       (c) => JSON.stringify(c),
       () => "",
