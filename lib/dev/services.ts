@@ -1,9 +1,8 @@
 import path from "node:path";
 import { env } from "../env";
-import { startFakeSmtp } from "../mail/fake-smtp";
 import { ensurePrivateFolder } from "../runtime/data-lock";
 import { recordLocalEndpoints } from "../runtime/local-endpoints";
-import { objectStoreCredentials, startFakeS3 } from "../storage/fake-s3";
+import { demoPackages, demoPackagesRefusal, isMissingPackage } from "./demo-packages";
 
 export const DEFAULT_SMTP_PORT = 2525;
 export const DEFAULT_S3_PORT = 4569;
@@ -41,6 +40,19 @@ async function onPreferredOrFreePort<T>(preferred: number, start: (port: number)
   }
 }
 
+/**
+ * The fakes are loaded only here, on the demo path: their packages are development dependencies,
+ * absent from a production install, where this says so instead of a stack trace.
+ */
+async function loadFake<T>(load: () => Promise<T>): Promise<T> {
+  try {
+    return await load();
+  } catch (error) {
+    if (isMissingPackage(error)) throw new Error(demoPackagesRefusal(demoPackages(env())), { cause: error });
+    throw error;
+  }
+}
+
 async function start(options: LocalServicesOptions): Promise<LocalServices> {
   const stops: (() => Promise<void>)[] = [];
   const started = { smtp: false, s3: false };
@@ -52,12 +64,14 @@ async function start(options: LocalServicesOptions): Promise<LocalServices> {
   const settings = env();
   try {
     if (!settings.SMTP_URL) {
+      const { startFakeSmtp } = await loadFake(() => import("../mail/fake-smtp"));
       const smtp = await onPreferredOrFreePort(options.smtpPort ?? DEFAULT_SMTP_PORT, (port) => startFakeSmtp({ port, host: "127.0.0.1" }));
       stops.push(smtp.stop);
       started.smtp = true;
       recordLocalEndpoints({ smtpUrl: smtp.url, mailCaptureFile: path.join(options.dataDir, "mailroom.json") });
     }
     if (!settings.S3_ENDPOINT) {
+      const { objectStoreCredentials, startFakeS3 } = await loadFake(() => import("../storage/fake-s3"));
       ensurePrivateFolder(options.dataDir);
       const credentials = objectStoreCredentials(objectStoreCredentialsFile(options.dataDir));
       const s3 = await onPreferredOrFreePort(options.s3Port ?? DEFAULT_S3_PORT, (port) =>

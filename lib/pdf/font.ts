@@ -1,11 +1,11 @@
 import { readFile } from "node:fs/promises";
 import path from "node:path";
 
-// The app's own font, shipped with it as an npm package (static weights: WOFF 1, which
-// fontkit subsets into a TrueType font that PDF readers accept; WOFF 2 does not subset).
-// The web's @fontsource-variable/inter cannot stand in: it ships only WOFF 2, on which
-// @pdf-lib/fontkit's subsetting fails ("Index out of range"), and one variable file, whose subset
-// would keep only the default outlines (fontkit writes no instance): the memo would lose its 600 weight.
+// The app's own font, shipped with it as an npm package: the same static Inter weights as the web
+// pages (app/layout.tsx), which use their WOFF 2 files. Here the WOFF 1 files: fontkit subsets
+// them into a TrueType font that PDF readers accept, while on WOFF 2 @pdf-lib/fontkit's subsetting
+// fails ("Index out of range"). A variable font would not do either: its subset keeps only the
+// default outlines (fontkit writes no instance), and the memo would lose its 600 weight.
 const FONT_DIR = ["node_modules", "@fontsource", "inter", "files"];
 export const FONT_FILES = {
   regular: "inter-latin-400-normal.woff",

@@ -40,9 +40,13 @@ type Pending = {
 };
 type Slot = { worker: Worker; ready: boolean; started: Promise<void>; running?: Pending };
 
-// Resolved from the project folder at run time: the same file in development, tests and `next start`.
-// The ignore comments keep Turbopack from bundling it (and tsx with it) as a worker entry.
-const workerScript = () => path.join(/* turbopackIgnore: true */ process.cwd(), "lib", "runtime", "engine-worker.mjs");
+// Resolved from the project folder at run time; the ignore comments keep Turbopack from bundling it
+// as a worker entry. A production server runs the worker that `npm run build` compiled to plain
+// JavaScript (lib/runtime/bundle.mjs); development and tests load the TypeScript through tsx.
+const workerScript = () =>
+  env().NODE_ENV === "production"
+    ? path.join(/* turbopackIgnore: true */ process.cwd(), ".next", "ratecourt", "engine-worker.mjs")
+    : path.join(/* turbopackIgnore: true */ process.cwd(), "lib", "runtime", "engine-worker.mjs");
 
 class EnginePool {
   private readonly slots = new Set<Slot>();

@@ -1,7 +1,9 @@
-// `npm run dev` and `npm start`: check the settings, hold the data folder, then run Next.js as a
+// `npm run dev` (through tsx) and `npm start` (its bundle, .next/ratecourt/start.mjs, on plain node;
+// see lib/runtime/bundle.mjs): check the settings, hold the data folder, then run Next.js as a
 // child that inherits the lock. A second server on the same folder stops here with a message.
 import { spawn } from "node:child_process";
 import { createRequire } from "node:module";
+import { demoPackagesRefusal, missingDemoPackages } from "../dev/demo-packages";
 import { parseEnv, productionProblems, productionRefusal } from "../env";
 import { holdDataFolder } from "./data-lock";
 
@@ -26,6 +28,10 @@ try {
 }
 const problems = productionProblems(settings);
 if (problems.length > 0) fail(productionRefusal(problems));
+const resolvePackage = createRequire(import.meta.url).resolve;
+// The demo's fakes are development packages: an install without them refuses the demo here.
+const missing = missingDemoPackages(settings, (name) => resolvePackage(name));
+if (missing.length > 0) fail(demoPackagesRefusal(missing));
 
 // Everything the server writes into the data folder is for its owner only.
 process.umask(0o077);
@@ -35,7 +41,7 @@ try {
   fail((error as Error).message);
 }
 
-const next = createRequire(import.meta.url).resolve("next/dist/bin/next");
+const next = resolvePackage("next/dist/bin/next");
 const args = [next, mode, "-p", String(settings.PORT), ...process.argv.slice(3)];
 if (settings.demoMode) {
   const what = mode === "dev" ? "development" : "demo mode";

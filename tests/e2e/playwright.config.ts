@@ -58,7 +58,7 @@ export default defineConfig({
   webServer: {
     // Browser tests run against a production build on a fresh demo database of their own.
     // E2E_SKIP_BUILD=1 reuses the last build while iterating on the specs alone.
-    command: `rm -rf "${dataDir}" && ${process.env.E2E_SKIP_BUILD ? "" : "npx next build && "}npm start`,
+    command: `rm -rf "${dataDir}" && ${process.env.E2E_SKIP_BUILD ? "" : "npm run build && "}npm start`,
     cwd: root,
     url: `${baseURL}/sign-in`,
     timeout: 600_000,
