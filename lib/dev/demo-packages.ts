@@ -22,9 +22,11 @@ export function missingDemoPackages(settings: Services, resolve: (name: string) 
   });
 }
 
-export function demoPackagesRefusal(missing: string[]): string {
+/** `missing`: the packages known to be absent; `needed`: those the fakes use, when which one failed is unknown. */
+export function demoPackagesRefusal(packages: { missing: string[] } | { needed: string[] }): string {
+  const which = "missing" in packages ? `missing: ${packages.missing.join(", ")}` : `it uses ${packages.needed.join(", ")}`;
   return [
-    `Ratecourt cannot start in demo mode: demo mode needs the development packages: run npm install (missing: ${missing.join(", ")}).`,
+    `Ratecourt cannot start in demo mode: demo mode needs the development packages: run npm install (${which}).`,
     "A production start (without DEMO=1, with its own mail and storage settings) does not need them.",
   ].join("\n");
 }

@@ -48,7 +48,7 @@ async function loadFake<T>(load: () => Promise<T>): Promise<T> {
   try {
     return await load();
   } catch (error) {
-    if (isMissingPackage(error)) throw new Error(demoPackagesRefusal(demoPackages(env())), { cause: error });
+    if (isMissingPackage(error)) throw new Error(demoPackagesRefusal({ needed: demoPackages(env()) }), { cause: error });
     throw error;
   }
 }

@@ -34,4 +34,5 @@ export async function bundleProduction(outdir = path.join(root, ".next", "rateco
   });
 }
 
-if (process.argv[1] === fileURLToPath(import.meta.url)) await bundleProduction();
+// `node lib/runtime/bundle.mjs [outdir]` (the tests bundle into a folder of their own).
+if (process.argv[1] === fileURLToPath(import.meta.url)) await bundleProduction(process.argv[2] && path.resolve(process.argv[2]));

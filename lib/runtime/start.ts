@@ -31,7 +31,7 @@ if (problems.length > 0) fail(productionRefusal(problems));
 const resolvePackage = createRequire(import.meta.url).resolve;
 // The demo's fakes are development packages: an install without them refuses the demo here.
 const missing = missingDemoPackages(settings, (name) => resolvePackage(name));
-if (missing.length > 0) fail(demoPackagesRefusal(missing));
+if (missing.length > 0) fail(demoPackagesRefusal({ missing }));
 
 // Everything the server writes into the data folder is for its owner only.
 process.umask(0o077);

@@ -1,18 +1,42 @@
-// The starter behind `npm run dev` and `npm start` refuses before Next.js is even started.
+// The starter behind `npm run dev` and `npm start` refuses before Next.js is even started. It runs
+// here as `npm start` runs it: bundled by lib/runtime/bundle.mjs and started with plain node.
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { spawnSync } from "node:child_process";
-import { describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 const root = path.resolve(import.meta.dirname, "../..");
-const tsx = path.join(root, "node_modules/.bin/tsx");
+// Inside the project, so that the bundle finds node_modules as .next/ratecourt/start.mjs does.
+fs.mkdirSync(path.join(root, ".build"), { recursive: true });
+const bundleDir = fs.mkdtempSync(path.join(root, ".build", "starter-test-"));
+const starter = path.join(bundleDir, "start.mjs");
 
-function start(mode: "dev" | "start", env: Record<string, string>) {
+/** A production install: the packages without the development ones the demo's fakes need. */
+const productionInstall = fs.mkdtempSync(path.join(os.tmpdir(), "rc-starter-install-"));
+const devOnly = new Set(["s3rver", "smtp-server", "mailparser", "tsx", ".bin"]);
+
+beforeAll(() => {
+  const bundled = spawnSync(process.execPath, ["lib/runtime/bundle.mjs", bundleDir], { cwd: root, encoding: "utf8", timeout: 120_000 });
+  expect(bundled.stderr).toBe("");
+  expect(bundled.status).toBe(0);
+  fs.mkdirSync(path.join(productionInstall, "node_modules"));
+  for (const name of fs.readdirSync(path.join(root, "node_modules"))) {
+    if (!devOnly.has(name)) fs.symlinkSync(path.join(root, "node_modules", name), path.join(productionInstall, "node_modules", name));
+  }
+  fs.copyFileSync(starter, path.join(productionInstall, "start.mjs"));
+}, 120_000);
+
+afterAll(() => {
+  fs.rmSync(bundleDir, { recursive: true, force: true });
+  fs.rmSync(productionInstall, { recursive: true, force: true });
+});
+
+function start(mode: "dev" | "start", env: Record<string, string>, script = starter) {
   const clean = Object.fromEntries(
     Object.entries(process.env).filter(([name]) => !/^(NODE_ENV|DEMO|SEED|BETTER_AUTH_|LEDGER_KEY|SMTP_|MAIL_|S3_|DB_MEMORY|DATABASE_URL)/.test(name)),
   );
-  const result = spawnSync(tsx, ["lib/runtime/start.ts", mode], {
+  const result = spawnSync(process.execPath, [script, mode], {
     cwd: root,
     env: { ...clean, ...env } as NodeJS.ProcessEnv,
     encoding: "utf8",
@@ -57,5 +81,20 @@ describe("the starter", () => {
     expect(code).toBe(1);
     expect(output).toContain(`in use by process ${process.ppid} (npm run dev`);
     fs.rmSync(path.join(dataDir, "server.lock"));
+  });
+
+  it("refuses the demo on an install without the development packages, saying to install them", () => {
+    const { code, output } = start("start", { DATA_DIR: dataDir, DEMO: "1" }, path.join(productionInstall, "start.mjs"));
+    expect(code).toBe(1);
+    expect(output).toContain("demo mode needs the development packages: run npm install (missing: smtp-server, mailparser, s3rver)");
+    expect(output).not.toMatch(/\n\s+at /);
+    expect(fs.existsSync(path.join(dataDir, "server.lock"))).toBe(false);
+  });
+
+  it("on that install, still names the missing production settings first", () => {
+    const { code, output } = start("start", { DATA_DIR: dataDir }, path.join(productionInstall, "start.mjs"));
+    expect(code).toBe(1);
+    expect(output).toContain("Ratecourt refuses to start in production without these settings:");
+    expect(output).toContain("S3_ENDPOINT:");
   });
 });

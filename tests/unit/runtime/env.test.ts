@@ -1,4 +1,8 @@
+import { createRequire } from "node:module";
+import os from "node:os";
+import path from "node:path";
 import { describe, expect, it } from "vitest";
+import { demoPackages, demoPackagesRefusal, missingDemoPackages } from "@/lib/dev/demo-packages";
 import { EnvError, parseEnv, productionProblems, productionRefusal } from "@/lib/env";
 
 const production = { NODE_ENV: "production" } as const;
@@ -83,5 +87,25 @@ describe("env() during the build", () => {
       process.env = saved;
       resetEnvForTests();
     }
+  });
+});
+
+describe("the demo's development packages", () => {
+  const here = createRequire(import.meta.url).resolve;
+  // A folder with no node_modules above it: nothing resolves from there.
+  const nowhere = createRequire(path.join(os.tmpdir(), "rc-no-packages", "x.js")).resolve;
+
+  it("are asked for only by the fakes a demo starts", () => {
+    expect(demoPackages(parseEnv({}))).toEqual(["smtp-server", "mailparser", "s3rver", "@smithy/signature-v4"]);
+    expect(demoPackages(parseEnv({ SMTP_URL: complete.SMTP_URL }))).toEqual(["s3rver", "@smithy/signature-v4"]);
+    expect(demoPackages(parseEnv({ S3_ENDPOINT: complete.S3_ENDPOINT }))).toEqual(["smtp-server", "mailparser"]);
+    expect(demoPackages(parseEnv(complete))).toEqual([]);
+  });
+
+  it("are found in a development install, missing from one without them, and the refusal says what to do", () => {
+    expect(missingDemoPackages(parseEnv({}), here)).toEqual([]);
+    const missing = missingDemoPackages(parseEnv({ ...production, DEMO: "1" }), nowhere);
+    expect(missing).toEqual(["smtp-server", "mailparser", "s3rver", "@smithy/signature-v4"]);
+    expect(demoPackagesRefusal({ missing })).toContain("demo mode needs the development packages: run npm install (missing: smtp-server, mailparser");
   });
 });
