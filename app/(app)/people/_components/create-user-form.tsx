@@ -3,7 +3,7 @@
 import { formOptionalDecimal } from "@/lib/numbers";
 import { createUserSchema, type CreateUserInput } from "@/lib/validation/people";
 import { ROLES as ROLE_NAMES, type OrganisationKind } from "@/policies/vocabulary";
-import { FormStatus } from "@/app/_components/form-status";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
 import { useActionForm } from "@/app/_components/use-action-form";
 import { createUserAction } from "../actions";
 
@@ -21,8 +21,7 @@ export function CreateUserForm({ organisations }: { organisations: Org[] }) {
     resetOnSuccess: true,
   });
   const errors = formState.errors;
-  const err = (name: keyof CreateUserInput) =>
-    errors[name]?.message ? <p className="mt-1 text-xs text-verdict-impossible">{String(errors[name]?.message)}</p> : null;
+  const err = (name: keyof CreateUserInput) => <FieldError message={errors[name]?.message} />;
 
   return (
     <form onSubmit={submit} className="panel space-y-3" aria-label="New account" noValidate>

@@ -3,7 +3,7 @@
 import { useEffect } from "react";
 import { useWatch } from "react-hook-form";
 import { DateTime } from "@/app/_components/date-time";
-import { FormStatus } from "@/app/_components/form-status";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
 import { useActionForm } from "@/app/_components/use-action-form";
 import { formatMoney } from "@/lib/format";
 import { formCount, formDecimal } from "@/lib/numbers";
@@ -75,8 +75,7 @@ function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId:
   const differs = computed !== null && Number.isFinite(value) && valuesDiffer(value, computed);
   const beyond = Number.isFinite(quantity) && quantity > sheet.quantity;
 
-  const err = (name: keyof RecommendationInput) =>
-    formState.errors[name]?.message ? <p className="mt-1 text-xs text-verdict-impossible">{String(formState.errors[name]?.message)}</p> : null;
+  const err = (name: keyof RecommendationInput) => <FieldError message={formState.errors[name]?.message} />;
 
   return (
     <form onSubmit={submit} className="space-y-3" aria-label="Recommend an award" noValidate>
