@@ -1,33 +1,21 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import type { z } from "zod";
-import type { FormResult } from "@/lib/server/form-action";
 import { formCount, formDecimal, formOptionalDecimal } from "@/lib/numbers";
 import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 import { approvalBandSchema, type ApprovalBandInput } from "@/lib/validation/approvals";
 import { createBandAction, updateBandAction } from "../actions";
 
 /** Adds a band, or changes one when `band` is given. Overlaps are refused by the server with the bands named. */
 export function BandForm({ band, onDone }: { band?: ApprovalBandInput & { id: string }; onDone?: () => void }) {
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, formState, reset, setError } = useForm<z.input<typeof approvalBandSchema>, unknown, ApprovalBandInput>({
-    resolver: zodResolver(approvalBandSchema),
+  const { register, formState, submit, result, pending } = useActionForm({
+    schema: approvalBandSchema,
     defaultValues: band ?? { currency: "EUR", minValue: 0, maxValue: null, approvalsNeeded: 1, minApproverLimit: 0 },
+    send: (values) => (band ? updateBandAction(band.id, values) : createBandAction(values)),
+    resetOnSuccess: !band,
+    onSuccess: onDone,
   });
   const prefix = band ? `band-${band.id}` : "band-new";
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = band ? await updateBandAction(band.id, values) : await createBandAction(values);
-      setResult(outcome);
-      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) setError(field as keyof ApprovalBandInput, { message: messages[0] });
-      if (outcome.ok && !band) reset();
-      if (outcome.ok) onDone?.();
-    }),
-  );
   const e = formState.errors;
   const field = (name: keyof ApprovalBandInput, label: string, numeric = true) => (
     <div>

@@ -1,13 +1,11 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import type { z } from "zod";
 import { formOptionalDecimal } from "@/lib/numbers";
 import { createUserSchema, type CreateUserInput } from "@/lib/validation/people";
 import { ROLES as ROLE_NAMES, type OrganisationKind } from "@/policies/vocabulary";
-import { createUserAction, type FormResult } from "../actions";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
+import { createUserAction } from "../actions";
 
 interface Org {
   id: string;
@@ -16,34 +14,19 @@ interface Org {
 }
 
 export function CreateUserForm({ organisations }: { organisations: Org[] }) {
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, formState, reset, setError } = useForm<z.input<typeof createUserSchema>, unknown, CreateUserInput>({
-    resolver: zodResolver(createUserSchema),
+  const { register, formState, submit, result, pending } = useActionForm({
+    schema: createUserSchema,
     defaultValues: { name: "", email: "", password: "", organisationId: "", roles: [], approvalLimit: null },
+    send: createUserAction,
+    resetOnSuccess: true,
   });
   const errors = formState.errors;
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = await createUserAction(values);
-      setResult(outcome);
-      if (outcome.ok) reset();
-      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) {
-        setError(field as keyof CreateUserInput, { message: messages[0] });
-      }
-    }),
-  );
-  const err = (name: keyof CreateUserInput) =>
-    errors[name]?.message ? <p className="mt-1 text-xs text-verdict-impossible">{String(errors[name]?.message)}</p> : null;
+  const err = (name: keyof CreateUserInput) => <FieldError message={errors[name]?.message} />;
 
   return (
     <form onSubmit={submit} className="panel space-y-3" aria-label="New account" noValidate>
       <h2>New account</h2>
-      {result.message ? (
-        <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>
-          {result.message}
-        </p>
-      ) : null}
+      <FormStatus result={result} />
       <div>
         <label className="label" htmlFor="nu-name">
           Name

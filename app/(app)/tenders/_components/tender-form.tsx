@@ -1,12 +1,13 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { FormProvider, useForm, useWatch, type Path } from "react-hook-form";
+import { FormProvider, useWatch, type Path } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
+import { FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 import { CHANNEL_LABELS } from "@/lib/format";
 import { formCount, formDecimal, formOptionalCount } from "@/lib/numbers";
-import { CHANNEL_MODELS, tenderInputSchema, type TenderFormValues, type TenderInput } from "@/lib/validation/tender";
-import { createTenderAction, updateTenderAction, type TenderFormResult } from "../actions";
+import { CHANNEL_MODELS, tenderInputSchema, type TenderFormValues } from "@/lib/validation/tender";
+import { createTenderAction, updateTenderAction } from "../actions";
 import { errorAt, FieldError } from "./field-error";
 import { NoticeFields } from "./notice-fields";
 import { OperatingPointsFields } from "./operating-points-fields";
@@ -28,20 +29,13 @@ const resolver: typeof schemaResolver = (values, context, options) =>
 
 /** The buyer's draft: the same zod schema checks it here and on the server. */
 export function TenderForm({ tenderId, defaults, vendors, zones }: Props) {
-  const [result, setResult] = useState<TenderFormResult>({});
-  const [pending, startTransition] = useTransition();
-  const methods = useForm<TenderFormValues, unknown, TenderInput>({ resolver, defaultValues: defaults });
-  const { register, handleSubmit, setError, control, formState } = methods;
+  const methods = useActionForm({
+    schema: resolver,
+    defaultValues: defaults,
+    send: (values) => (tenderId ? updateTenderAction(tenderId, values) : createTenderAction(values)),
+  });
+  const { register, control, formState, submit, result, pending } = methods;
   const rule = useWatch({ control, name: "impossibleRule" });
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = tenderId ? await updateTenderAction(tenderId, values) : await createTenderAction(values);
-      setResult(outcome);
-      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) {
-        setError(field as Path<TenderFormValues>, { message: messages[0] });
-      }
-    }),
-  );
   const field = (name: Path<TenderFormValues>, label: string, input: React.ReactNode, hint?: string) => (
     <div>
       <label className="label" htmlFor={`t-${name}`}>
@@ -61,11 +55,7 @@ export function TenderForm({ tenderId, defaults, vendors, zones }: Props) {
   return (
     <FormProvider {...methods}>
       <form onSubmit={submit} className="panel space-y-5" aria-label={tenderId ? "Edit tender" : "New tender"} noValidate>
-        {result.message ? (
-          <p role="alert" className="text-sm text-verdict-impossible">
-            {result.message}
-          </p>
-        ) : null}
+        <FormStatus result={result} />
         <div className="grid gap-4 md:grid-cols-2">
           {field("title", "Title", <input className="field" {...invalid("title")} {...register("title")} />)}
           {field(

@@ -1,19 +1,17 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import { closeThreadSchema, type CloseThreadInput } from "@/lib/validation/review";
-import type { FormResult } from "@/lib/server/form-action";
+import { closeThreadSchema } from "@/lib/validation/review";
 import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 import { closeThreadAction } from "../actions";
 
 /** An evaluator closes a question that needs no answer, with the reason the vendor and the ledger read. */
 export function CloseThreadForm({ threadId, path, subject }: { threadId: string; path: string; subject: string }) {
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, formState } = useForm<CloseThreadInput>({ resolver: zodResolver(closeThreadSchema), defaultValues: { reason: "" } });
-  const submit = handleSubmit((values) => startTransition(async () => setResult(await closeThreadAction(threadId, path, values))));
+  const { register, formState, submit, result, pending } = useActionForm({
+    schema: closeThreadSchema,
+    defaultValues: { reason: "" },
+    send: (values) => closeThreadAction(threadId, path, values),
+  });
   const id = `close-${threadId}`;
   return (
     <details className="mt-2">

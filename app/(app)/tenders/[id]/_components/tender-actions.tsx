@@ -1,20 +1,11 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useConfirm } from "@/app/_components/confirm";
-import { cancelTenderSchema, type CancelTenderInput } from "@/lib/validation/tender";
+import { FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
+import { cancelTenderSchema } from "@/lib/validation/tender";
 import { cancelTenderAction, openTenderAction, type TenderFormResult } from "../../actions";
-
-function Outcome({ result }: { result: TenderFormResult }) {
-  if (!result.message) return null;
-  return (
-    <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>
-      {result.message}
-    </p>
-  );
-}
 
 /** Draft -> open, after a confirmation. The server checks again and says what is missing. */
 export function OpenTenderButton({ tenderId }: { tenderId: string }) {
@@ -34,7 +25,7 @@ export function OpenTenderButton({ tenderId }: { tenderId: string }) {
       >
         {pending ? "Opening…" : "Open tender"}
       </button>
-      <Outcome result={result} />
+      <FormStatus result={result} />
       {confirm.dialog}
     </div>
   );
@@ -42,20 +33,11 @@ export function OpenTenderButton({ tenderId }: { tenderId: string }) {
 
 /** Cancelling needs a reason; the invited vendors and the buyers are told it. */
 export function CancelTenderForm({ tenderId }: { tenderId: string }) {
-  const [result, setResult] = useState<TenderFormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, formState, setError } = useForm<CancelTenderInput>({
-    resolver: zodResolver(cancelTenderSchema),
+  const { register, formState, submit, result, pending } = useActionForm({
+    schema: cancelTenderSchema,
     defaultValues: { reason: "" },
+    send: (values) => cancelTenderAction(tenderId, values),
   });
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = await cancelTenderAction(tenderId, values);
-      setResult(outcome);
-      const reason = outcome.fieldErrors?.reason?.[0];
-      if (reason) setError("reason", { message: reason });
-    }),
-  );
   const error = formState.errors.reason?.message;
   return (
     <form onSubmit={submit} className="space-y-2" aria-label="Cancel tender" noValidate>
@@ -71,7 +53,7 @@ export function CancelTenderForm({ tenderId }: { tenderId: string }) {
       <button type="submit" className="btn-quiet" disabled={pending}>
         {pending ? "Cancelling…" : "Cancel tender"}
       </button>
-      <Outcome result={result} />
+      <FormStatus result={result} />
     </form>
   );
 }

@@ -1,36 +1,25 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { useForm, useWatch } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import type { z } from "zod";
+import { useWatch } from "react-hook-form";
 import { MARKS } from "@/db/schema/evaluation";
 import { MARK_LABELS } from "@/lib/review/labels";
 import { JUSTIFICATION_MIN } from "@/lib/review/marks";
 import type { Verdict } from "@/db/schema/offers";
-import { markSchema, type MarkInput } from "@/lib/validation/review";
-import type { FormResult } from "@/lib/server/form-action";
+import { markSchema } from "@/lib/validation/review";
 import { markClaimAction } from "@/app/(app)/review/actions";
 import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 
 /** No mark is chosen for the engineer; accepting an impossible claim asks for a justification. */
 export function MarkForm({ claimId, verdict }: { claimId: string; verdict: Verdict }) {
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, control, reset, setError, formState } = useForm<z.input<typeof markSchema>, unknown, MarkInput>({
-    resolver: zodResolver(markSchema),
+  const { register, control, formState, submit, result, pending } = useActionForm({
+    schema: markSchema,
     defaultValues: { mark: undefined, comment: "", subject: "" },
+    send: (values) => markClaimAction(claimId, values),
+    resetOnSuccess: true,
   });
   const chosen = useWatch({ control, name: "mark" });
   const overrides = chosen === "accepted" && verdict === "impossible";
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = await markClaimAction(claimId, values);
-      setResult(outcome);
-      if (outcome.ok) reset();
-      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) setError(field as keyof MarkInput, { message: messages[0] });
-    }),
-  );
   const errors = formState.errors;
   return (
     <form onSubmit={submit} aria-label="Mark this claim" className="space-y-3 border-t border-ink-faint/20 pt-3" noValidate>

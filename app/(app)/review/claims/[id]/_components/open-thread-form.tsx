@@ -1,25 +1,18 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import { threadSchema, type ThreadInput } from "@/lib/validation/review";
-import type { FormResult } from "@/lib/server/form-action";
+import { threadSchema } from "@/lib/validation/review";
 import { openThreadAction } from "@/app/(app)/review/actions";
 import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 
 /** A question to the vendor without changing the claim's mark. */
 export function OpenThreadForm({ claimId }: { claimId: string }) {
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, reset, formState } = useForm<ThreadInput>({ resolver: zodResolver(threadSchema), defaultValues: { subject: "", body: "" } });
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = await openThreadAction(claimId, values);
-      setResult(outcome);
-      if (outcome.ok) reset();
-    }),
-  );
+  const { register, formState, submit, result, pending } = useActionForm({
+    schema: threadSchema,
+    defaultValues: { subject: "", body: "" },
+    send: (values) => openThreadAction(claimId, values),
+    resetOnSuccess: true,
+  });
   return (
     <details className="border-t border-ink-faint/20 pt-3 print:hidden">
       <summary className="cursor-pointer text-sm text-accent">Ask the vendor a question</summary>

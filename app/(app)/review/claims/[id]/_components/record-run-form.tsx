@@ -1,29 +1,17 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import type { z } from "zod";
-import { evidenceRunSchema, type EvidenceRunInput } from "@/lib/validation/review";
-import type { FormResult } from "@/lib/server/form-action";
+import { evidenceRunSchema } from "@/lib/validation/review";
 import { recordEvidenceAction } from "@/app/(app)/review/actions";
 import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 import { formCount, formDecimal } from "@/lib/numbers";
 
 export function RecordRunForm({ claimId, unit, channelValue }: { claimId: string; unit: "bits" | "frames"; channelValue: number }) {
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, setError, formState } = useForm<z.input<typeof evidenceRunSchema>, unknown, EvidenceRunInput>({
-    resolver: zodResolver(evidenceRunSchema),
+  const { register, formState, submit, result, pending } = useActionForm({
+    schema: evidenceRunSchema,
     defaultValues: { channelValue, unit, confidence: 0.95, note: "" },
+    send: (values) => recordEvidenceAction(claimId, values),
   });
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = await recordEvidenceAction(claimId, values);
-      setResult(outcome);
-      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) setError(field as keyof EvidenceRunInput, { message: messages[0] });
-    }),
-  );
   const e = formState.errors;
   return (
     <form onSubmit={submit} aria-label="Record a lab run" className="space-y-2" noValidate>

@@ -1,16 +1,15 @@
 "use client";
 
-import { useEffect, useState, useTransition } from "react";
-import { useForm, useWatch } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import type { z } from "zod";
+import { useEffect } from "react";
+import { useWatch } from "react-hook-form";
 import { DateTime } from "@/app/_components/date-time";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 import { formatMoney } from "@/lib/format";
 import { formCount, formDecimal } from "@/lib/numbers";
 import { valuesDiffer } from "@/lib/approvals/award-value";
 import { totalPriceAt, type ScoreSheet, type ScoringInput } from "@/lib/scoring";
 import { recommendationSchema, type RecommendationInput } from "@/lib/validation/comparison";
-import type { FormResult } from "@/lib/server/form-action";
 import type { listRecommendations } from "@/lib/server/recommendations";
 import { submitRecommendationAction } from "../actions";
 
@@ -57,11 +56,11 @@ export function RecommendationPanel({
 
 function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId: string; input: ScoringInput; sheet: ScoreSheet; onSubmitted: () => void }) {
   const eligible = sheet.offers.filter((o) => !o.disqualified && !o.needsConversion && o.total !== null);
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, formState, setValue, control, setError } = useForm<z.input<typeof recommendationSchema>, unknown, RecommendationInput>({
-    resolver: zodResolver(recommendationSchema),
+  const { register, formState, setValue, control, submit, result, pending } = useActionForm({
+    schema: recommendationSchema,
     defaultValues: { offerId: eligible[0]?.offerId ?? "", quantity: sheet.quantity, value: eligible[0]?.totalPrice ?? 0, justification: "" },
+    send: (values) => submitRecommendationAction(tenderId, values),
+    onSuccess: onSubmitted,
   });
   const [offerId, typedQuantity, typedValue] = useWatch({ control, name: ["offerId", "quantity", "value"] });
   // The fields hold what setValueAs read from the text: a number, or nothing yet.
@@ -76,24 +75,11 @@ function RecommendationForm({ tenderId, input, sheet, onSubmitted }: { tenderId:
   const differs = computed !== null && Number.isFinite(value) && valuesDiffer(value, computed);
   const beyond = Number.isFinite(quantity) && quantity > sheet.quantity;
 
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = await submitRecommendationAction(tenderId, values);
-      setResult(outcome);
-      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) setError(field as keyof RecommendationInput, { message: messages[0] });
-      if (outcome.ok) onSubmitted();
-    }),
-  );
-  const err = (name: keyof RecommendationInput) =>
-    formState.errors[name]?.message ? <p className="mt-1 text-xs text-verdict-impossible">{String(formState.errors[name]?.message)}</p> : null;
+  const err = (name: keyof RecommendationInput) => <FieldError message={formState.errors[name]?.message} />;
 
   return (
     <form onSubmit={submit} className="space-y-3" aria-label="Recommend an award" noValidate>
-      {result.message ? (
-        <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>
-          {result.message}
-        </p>
-      ) : null}
+      <FormStatus result={result} />
       <div className="grid gap-3 md:grid-cols-3">
         <div>
           <label className="label" htmlFor="rec-offer">

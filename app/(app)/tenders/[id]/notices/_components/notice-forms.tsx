@@ -2,6 +2,7 @@
 
 import { useState, useTransition } from "react";
 import { acknowledgeAddendumAction, answerObjectionAction, lodgeObjectionAction, publishAddendumAction } from "../actions";
+import { addendumSchema, objectionAnswerSchema, objectionSchema } from "@/lib/validation/notices";
 import { TextForm } from "./text-form";
 
 /** threadId: the clarification it answers, kept for the buying side only (vendors never see who asked). */
@@ -15,6 +16,7 @@ export function AddendumForm({ tenderId, threadId }: { tenderId: string; threadI
         { name: "title", label: "Title" },
         { name: "body", label: "Addendum (do not name the vendor who asked)", rows: 5 },
       ]}
+      schema={addendumSchema}
       send={(values) => publishAddendumAction(tenderId, values)}
     />
   );
@@ -26,6 +28,7 @@ export function ObjectionForm({ tenderId }: { tenderId: string }) {
       label="Lodge an objection"
       submit="Lodge the objection"
       fields={[{ name: "body", label: "Your objection, in writing", rows: 6 }]}
+      schema={objectionSchema}
       send={(values) => lodgeObjectionAction(tenderId, values)}
     />
   );
@@ -37,6 +40,7 @@ export function ObjectionAnswerForm({ tenderId, objectionId }: { tenderId: strin
       label="Answer the objection"
       submit="Send the answer to the vendor"
       fields={[{ name: "answer", label: "Your answer, in writing", rows: 4 }]}
+      schema={objectionAnswerSchema}
       send={(values) => answerObjectionAction(tenderId, objectionId, values)}
     />
   );

@@ -1,7 +1,9 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { FormStatus } from "@/app/_components/form-status";
+import type { DefaultValues, FieldValues, Path } from "react-hook-form";
+import type { ZodType } from "zod";
+import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 import type { FormResult } from "@/lib/server/form-action";
 
 interface Field {
@@ -11,50 +13,53 @@ interface Field {
 }
 
 /**
- * A small form of text fields (and any fixed extra values) sent to one server action (which parses them with the API's zod
- * schema); the server's field messages show under each field.
+ * A small form of text fields (and any fixed extra values) sent to one server action; the action's zod schema checks them
+ * here first, and the server's field messages show under each field like the schema's own.
  */
-export function TextForm({
+export function TextForm<Input extends FieldValues, Output>({
   label,
   fields,
-  submit,
+  submit: submitLabel,
+  schema,
   send,
   extra = {},
 }: {
   label: string;
   fields: Field[];
   submit: string;
-  send: (values: Record<string, string>) => Promise<FormResult>;
+  schema: ZodType<Output, Input>;
+  send: (values: Output) => Promise<FormResult>;
   extra?: Record<string, string>;
 }) {
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const onSubmit = (form: HTMLFormElement) =>
-    startTransition(async () => {
-      const data = new FormData(form);
-      const values = { ...extra, ...Object.fromEntries(fields.map((f) => [f.name, String(data.get(f.name) ?? "")])) };
-      const outcome = await send(values);
-      setResult(outcome);
-      if (outcome.ok) form.reset();
-    });
+  const { register, formState, submit, result, pending } = useActionForm({
+    schema,
+    defaultValues: { ...extra, ...Object.fromEntries(fields.map((f) => [f.name, ""])) } as DefaultValues<Input>,
+    send,
+    resetOnSuccess: true,
+    invalidMessage: "Check the highlighted fields.",
+  });
+  const errorOf = (name: string) => {
+    const message = formState.errors[name]?.message;
+    return typeof message === "string" ? message : undefined;
+  };
   return (
-    <form aria-label={label} className="space-y-2" noValidate onSubmit={(e) => (e.preventDefault(), onSubmit(e.currentTarget))}>
+    <form aria-label={label} className="space-y-2" noValidate onSubmit={submit}>
       {fields.map((f) => (
         <div key={f.name}>
           <label className="label" htmlFor={`n-${f.name}`}>
             {f.label}
           </label>
           {f.rows ? (
-            <textarea id={`n-${f.name}`} name={f.name} rows={f.rows} className="field" />
+            <textarea id={`n-${f.name}`} rows={f.rows} className="field" {...register(f.name as Path<Input>)} />
           ) : (
-            <input id={`n-${f.name}`} name={f.name} className="field" />
+            <input id={`n-${f.name}`} className="field" {...register(f.name as Path<Input>)} />
           )}
-          {result.fieldErrors?.[f.name] ? <p className="mt-1 text-xs text-verdict-impossible">{result.fieldErrors[f.name][0]}</p> : null}
+          <FieldError message={errorOf(f.name)} />
         </div>
       ))}
       <FormStatus result={result} />
       <button type="submit" className="btn" disabled={pending}>
-        {pending ? "Sending…" : submit}
+        {pending ? "Sending…" : submitLabel}
       </button>
     </form>
   );

@@ -1,12 +1,12 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { FormProvider, useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
+import { FormProvider } from "react-hook-form";
 import { errorAt, FieldError } from "@/app/(app)/tenders/_components/field-error";
+import { FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 import type { ChannelModel } from "@/lib/offers";
-import { offerSchema, type OfferFormValues, type OfferInput } from "@/lib/validation/offer";
-import { submitOfferAction, type OfferFormResult } from "../actions";
+import { offerSchema, type OfferFormValues } from "@/lib/validation/offer";
+import { submitOfferAction } from "../actions";
 import { formOptionalCount, formOptionalDecimal } from "@/lib/numbers";
 import { ClaimsFields, type OfferPoint } from "./claims-fields";
 import { EnvelopeFields } from "./envelope-fields";
@@ -20,21 +20,9 @@ interface Props {
 }
 
 export function OfferForm({ tenderId, model, points, defaults, resubmission }: Props) {
-  const [result, setResult] = useState<OfferFormResult>({});
-  const [pending, startTransition] = useTransition();
-  const form = useForm<OfferFormValues, unknown, OfferInput>({ resolver: zodResolver(offerSchema), defaultValues: defaults });
-  const { register, handleSubmit, formState, setError } = form;
+  const form = useActionForm({ schema: offerSchema, defaultValues: defaults, send: (values) => submitOfferAction(tenderId, values) });
+  const { register, formState, submit, result, pending } = form;
   const err = (path: string) => errorAt(formState.errors, path);
-
-  const submit = handleSubmit((values) =>
-    startTransition(async () => {
-      const outcome = await submitOfferAction(tenderId, values);
-      setResult(outcome);
-      for (const [field, messages] of Object.entries(outcome.fieldErrors ?? {})) {
-        setError(field as keyof OfferFormValues, { message: messages[0] });
-      }
-    }),
-  );
   const text = (name: "moduleName" | "partNumber" | "code.family", id: string, label: string) => (
     <div>
       <label className="label" htmlFor={id}>
@@ -64,11 +52,7 @@ export function OfferForm({ tenderId, model, points, defaults, resubmission }: P
   return (
     <FormProvider {...form}>
       <form onSubmit={submit} className="panel space-y-5" aria-label="Offer form" noValidate>
-        {result.message ? (
-          <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verdict-plausible" : "text-verdict-impossible"}`}>
-            {result.message}
-          </p>
-        ) : null}
+        <FormStatus result={result} />
         <section className="grid gap-3 md:grid-cols-2" aria-label="Module">
           {text("moduleName", "module-name", "Module name")}
           {text("partNumber", "part-number", "Part number")}

@@ -1,26 +1,19 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { useForm, useWatch } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import type { z } from "zod";
-import { declarationSchema, type DeclarationInput } from "@/lib/validation/review";
-import type { FormResult } from "@/lib/server/form-action";
+import { useWatch } from "react-hook-form";
+import { declarationSchema } from "@/lib/validation/review";
 import { FieldError, FormStatus } from "@/app/_components/form-status";
+import { useActionForm } from "@/app/_components/use-action-form";
 import { declareAction } from "../actions";
 
 /** The conflict-of-interest declaration: made once, before the offers can be seen, never changed. */
 export function DeclarationForm({ tenderId, vendors }: { tenderId: string; vendors: { id: string; name: string }[] }) {
-  const [result, setResult] = useState<FormResult>({});
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, control, formState } = useForm<z.input<typeof declarationSchema>, unknown, DeclarationInput>({
-    resolver: zodResolver(declarationSchema),
+  const { register, control, formState, submit, result, pending } = useActionForm({
+    schema: declarationSchema,
     defaultValues: { conflict: "none", conflictedOrgIds: [], statement: "" },
+    send: (values) => declareAction(tenderId, { ...values, conflictedOrgIds: values.conflict === "some" ? values.conflictedOrgIds : [] }),
   });
   const some = useWatch({ control, name: "conflict" }) === "some";
-  const submit = handleSubmit((values) =>
-    startTransition(async () => setResult(await declareAction(tenderId, { ...values, conflictedOrgIds: some ? values.conflictedOrgIds : [] }))),
-  );
   const e = formState.errors;
   return (
     <form onSubmit={submit} aria-label="Conflict-of-interest declaration" className="space-y-3" noValidate>
