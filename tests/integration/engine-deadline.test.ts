@@ -6,14 +6,13 @@ import { and, eq } from "drizzle-orm";
 import { POST as evaluatePost } from "@/app/api/v1/evaluate/route";
 import { POST as submitPost } from "@/app/api/v1/tenders/[id]/offers/route";
 import { POST as importPost } from "@/app/api/v1/claims/[id]/evidence/import/route";
-import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { GET as meGet } from "@/app/api/v1/me/route";
 import type { Db } from "@/db/client";
 import { claims, evidenceRuns, ledgerEntries, offers, tenders } from "@/db/schema";
 import { closeEnginePool, warmEnginePool } from "@/lib/runtime/engine-pool";
 import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
 import { setEnv } from "../support/env";
-import { reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
+import { declareNoTies, reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
 
 let db: Db;
 let fx: ReviewFixtures;
@@ -24,15 +23,7 @@ beforeAll(async () => {
   fx = await reviewFixtures(db);
   as.engineer = await signInAs("engineer@tarnwell.example");
   as.vendor = await signInAs("bids@oxbow.example");
-  const declared = await declarePost(
-    request(`/api/v1/tenders/${fx.tenderId}/declaration`, {
-      method: "POST",
-      headers: as.engineer,
-      body: { conflict: "none", statement: "No ties to any invited vendor." },
-    }),
-    params({ id: fx.tenderId }),
-  );
-  expect(declared.status).toBe(201);
+  await declareNoTies(db, fx.tenderId, as.engineer);
 });
 afterAll(async () => {
   await closeEnginePool();

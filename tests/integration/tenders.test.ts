@@ -14,6 +14,7 @@ import { clearCapturedMail, flushMail, listCapturedMail } from "@/lib/mail";
 import { verifyLedger } from "@/lib/server/ledger";
 import { closeDueTenders } from "@/lib/server/tenders";
 import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { tenderInput } from "../support/tender-input";
 
 let db: Db;
 let services: LocalServices;
@@ -45,26 +46,8 @@ afterAll(async () => {
 beforeEach(() => clearCapturedMail());
 
 const inAWeek = () => new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10);
-const draftBody = (extra: Record<string, unknown> = {}) => ({
-  title: "Culvert sensor radios",
-  description: "Radios for culvert water-level sensors.",
-  channelModel: "bsc",
-  operatingPoints: [
-    { label: "Clear", value: 1e-3 },
-    { label: "Fade", value: 4e-3 },
-  ],
-  targetMetric: "bler",
-  targetValue: 1e-4,
-  maxFrameBits: 1024,
-  quantity: 250,
-  currency: "EUR",
-  weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
-  impossibleRule: "disqualify",
-  closesLocal: `${inAWeek()}T12:00`,
-  closesZone: "Europe/Berlin",
-  invitedOrgIds: [org["Kestrelink Radio"], org["Marram Telemetry"]],
-  ...extra,
-});
+const draftBody = (extra: Record<string, unknown> = {}) =>
+  tenderInput({ closesLocal: `${inAWeek()}T12:00`, invitedOrgIds: [org["Kestrelink Radio"], org["Marram Telemetry"]], ...extra });
 
 const post = (headers: Headers, body: unknown) => createPost(request("/api/v1/tenders", { method: "POST", headers, body }), undefined);
 const patch = (headers: Headers, id: string, body: unknown) =>

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { EnvError, parseEnv, productionProblems, productionRefusal } from "@/lib/env";
+import { PRODUCTION_VARIABLES } from "../../support/env";
 
 const production = { NODE_ENV: "production" } as const;
 const complete = {
@@ -26,17 +27,7 @@ describe("settings", () => {
 
   it("a production start names every missing variable", () => {
     const problems = productionProblems(parseEnv(production));
-    expect(problems.map((line) => line.split(":")[0])).toEqual([
-      "BETTER_AUTH_SECRET",
-      "BETTER_AUTH_URL",
-      "LEDGER_KEY",
-      "SMTP_URL",
-      "MAIL_FROM",
-      "S3_ENDPOINT",
-      "S3_BUCKET",
-      "S3_ACCESS_KEY_ID",
-      "S3_SECRET_ACCESS_KEY",
-    ]);
+    expect(problems.map((line) => line.split(":")[0])).toEqual(PRODUCTION_VARIABLES);
     expect(productionRefusal(problems)).toContain("DEMO=1");
   });
 
