@@ -128,11 +128,11 @@ export function createRoute<T>(schema: ZodType<T>, create: (viewer: Viewer, inpu
   });
 }
 
-/** The same for one thing made under the record in the address (`[id]`). */
-export function createUnderRoute<T>(schema: ZodType<T>, create: (viewer: Viewer, id: string, input: T) => Promise<unknown>) {
+/** A write from a JSON body to the record in the address (`[id]`), the same way: `status` with what `act` returns. */
+export function recordRoute<T>(schema: ZodType<T>, act: (viewer: Viewer, id: string, input: T) => Promise<unknown>, status = 200) {
   return jsonRoute(async (request: Request, { params }: IdContext) => {
     const viewer = await requireViewer(request.headers);
     const input = await readJson(request, schema);
-    return Response.json(await create(viewer, (await params).id, input), { status: 201 });
+    return Response.json(await act(viewer, (await params).id, input), { status });
   });
 }

@@ -13,7 +13,7 @@ import { appendLedger, verifyLedger } from "@/lib/server/ledger";
 import { startLocalServices, type LocalServices } from "@/lib/dev/services";
 import { flushMail, listCapturedMail } from "@/lib/mail";
 import type { Comparison } from "@/lib/server/comparison";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, freshDatabase, params, request, signInAll } from "../support/app";
 import { createCommercialTender, honest, impossible } from "../support/comparison-fixtures";
 
 let db: Db;
@@ -24,14 +24,16 @@ const ENVELOPE_KEYS = ["unitPrice", "leadTimeWeeks", "warrantyMonths", "priceBre
 beforeAll(async () => {
   services = await startLocalServices({ dataDir: mkdtempSync(path.join(tmpdir(), "rc-comparison-")), smtpPort: 0, s3Port: 0 });
   db = await freshDatabase();
-  for (const [key, email] of Object.entries({
-    buyer: "buyer@tarnwell.example",
-    engineer: "engineer@tarnwell.example",
-    approver: "approver@tarnwell.example",
-    director: "director@tarnwell.example",
-    vendor: "sales@kestrelink.example",
-  }))
-    as[key] = await signInAs(email);
+  Object.assign(
+    as,
+    await signInAll({
+      buyer: "buyer@tarnwell.example",
+      engineer: "engineer@tarnwell.example",
+      approver: "approver@tarnwell.example",
+      director: "director@tarnwell.example",
+      vendor: "sales@kestrelink.example",
+    }),
+  );
 });
 afterAll(async () => {
   await flushMail();

@@ -10,20 +10,16 @@ import { GET as meGet } from "@/app/api/v1/me/route";
 import type { Db } from "@/db/client";
 import { claims, evidenceRuns, ledgerEntries, offers, tenders } from "@/db/schema";
 import { closeEnginePool, warmEnginePool } from "@/lib/runtime/engine-pool";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, params, request } from "../support/app";
 import { setEnv } from "../support/env";
-import { declareNoTies, reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
+import { declaredReviewBench, type ReviewFixtures } from "../support/review-fixtures";
 
 let db: Db;
 let fx: ReviewFixtures;
-const as: Record<string, Headers> = {};
+let as: Record<string, Headers>;
 
 beforeAll(async () => {
-  db = await freshDatabase();
-  fx = await reviewFixtures(db);
-  as.engineer = await signInAs("engineer@tarnwell.example");
-  as.vendor = await signInAs("bids@oxbow.example");
-  await declareNoTies(db, fx.tenderId, as.engineer);
+  ({ db, fx, as } = await declaredReviewBench({ vendor: "bids@oxbow.example" }));
 });
 afterAll(async () => {
   await closeEnginePool();

@@ -6,20 +6,16 @@ import { POST as evidencePost } from "@/app/api/v1/claims/[id]/evidence/route";
 import { POST as importPost } from "@/app/api/v1/claims/[id]/evidence/import/route";
 import { GET as comparisonGet } from "@/app/api/v1/tenders/[id]/comparison/route";
 import type { Comparison } from "@/lib/server/comparison";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
-import { declareNoTies, reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
+import { closeDb, params, request } from "../support/app";
+import { declaredReviewBench, type ReviewFixtures } from "../support/review-fixtures";
 import { createCommercialTender, honest } from "../support/comparison-fixtures";
 
 let db: Db;
 let fx: ReviewFixtures;
-const as: Record<string, Headers> = {};
+let as: Record<string, Headers>;
 
 beforeAll(async () => {
-  db = await freshDatabase();
-  fx = await reviewFixtures(db);
-  as.engineer = await signInAs("engineer@tarnwell.example");
-  as.buyer = await signInAs("buyer@tarnwell.example");
-  await declareNoTies(db, fx.tenderId, as.engineer);
+  ({ db, fx, as } = await declaredReviewBench({ buyer: "buyer@tarnwell.example" }));
 });
 afterAll(closeDb);
 

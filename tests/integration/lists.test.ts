@@ -11,7 +11,7 @@ import { claimSubject } from "@/lib/server/review";
 import { requireViewer } from "@/lib/server/session";
 import { tendersWhere, tenderSubject } from "@/lib/server/tenders";
 import { TENDER_STATES } from "@/policies/vocabulary";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, freshDatabase, params, request, signInAll } from "../support/app";
 import { createCommercialTender, honest } from "../support/comparison-fixtures";
 
 let db: Db;
@@ -75,7 +75,7 @@ beforeAll(async () => {
       honest(`Pager vendor ${i + 1}`, 40 + i, 6, 24, { claims: [{ value: 1e-5 }, { value: 1e-5 }, { value: 1e-5 }] }),
     ),
   });
-  for (const [key, email] of Object.entries(ACCOUNTS)) as[key] = await signInAs(email);
+  Object.assign(as, await signInAll(ACCOUNTS));
 });
 afterAll(closeDb);
 

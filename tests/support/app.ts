@@ -36,6 +36,13 @@ export async function signInAs(email: string, password = DEMO_PASSWORD): Promise
   return new Headers({ cookie, origin: BASE });
 }
 
+/** Signs in each account, by key: `{ buyer: "buyer@…" }` gives `{ buyer: headers }`. */
+export async function signInAll<K extends string>(emails: Record<K, string>): Promise<Record<K, Headers>> {
+  const out = {} as Record<K, Headers>;
+  for (const [key, email] of Object.entries(emails) as [K, string][]) out[key] = await signInAs(email);
+  return out;
+}
+
 /** A Request to a route handler, with the given session headers. */
 export function request(path: string, init: { method?: string; headers?: Headers; body?: unknown; rawBody?: string } = {}) {
   const headers = new Headers(init.headers);

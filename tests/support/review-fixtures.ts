@@ -4,7 +4,7 @@ import type { Db } from "@/db/client";
 import { claims, declarations, offers, organisations, tenders, users } from "@/db/schema";
 import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { evaluateClaim } from "@/lib/bounds";
-import { params, request } from "./app";
+import { freshDatabase, params, request, signInAll } from "./app";
 
 export const VENDORS = ["kestrelink", "marram", "oxbow", "quillfield"] as const;
 export type VendorKey = (typeof VENDORS)[number];
@@ -121,4 +121,16 @@ export async function declareNoTies(db: Db, tenderId: string, headers: Headers, 
   const body = { conflict: "none", statement: "No ties to any invited vendor." };
   const declared = await declarePost(request(`/api/v1/tenders/${tenderId}/declaration`, { method: "POST", headers, body }), params({ id: tenderId }));
   expect(declared.status).toBe(201);
+}
+
+/**
+ * A fresh demo database with the review fixtures, a session for the engineer and for each other
+ * person named (by key), and the engineer's declaration on the fixture tender made.
+ */
+export async function declaredReviewBench(others: Record<string, string>) {
+  const db = await freshDatabase();
+  const fx = await reviewFixtures(db);
+  const as: Record<string, Headers> = await signInAll({ engineer: "engineer@tarnwell.example", ...others });
+  await declareNoTies(db, fx.tenderId, as.engineer);
+  return { db, fx, as };
 }

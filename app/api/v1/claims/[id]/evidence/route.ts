@@ -1,4 +1,4 @@
-import { createUnderRoute, jsonRoute } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listEvidence, recordEvidence } from "@/lib/server/evidence";
 import { requireViewer } from "@/lib/server/session";
 import { evidenceRunSchema } from "@/lib/validation/review";
@@ -9,4 +9,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => ({
   runs: await listEvidence(await requireViewer(request.headers), (await params).id),
 }));
 
-export const POST = createUnderRoute(evidenceRunSchema, recordEvidence);
+export const POST = recordRoute(evidenceRunSchema, recordEvidence, 201);

@@ -1,4 +1,4 @@
-import { createUnderRoute, jsonRoute } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { createMark, listMarks } from "@/lib/server/marks";
 import { requireViewer } from "@/lib/server/session";
 import { markSchema } from "@/lib/validation/review";
@@ -9,4 +9,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => ({
   marks: await listMarks(await requireViewer(request.headers), (await params).id),
 }));
 
-export const POST = createUnderRoute(markSchema, createMark);
+export const POST = recordRoute(markSchema, createMark, 201);

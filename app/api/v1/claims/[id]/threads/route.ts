@@ -1,4 +1,4 @@
-import { createUnderRoute, jsonRoute } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listThreads, openThread } from "@/lib/server/threads";
 import { loadClaim } from "@/lib/server/review";
 import { requireViewer } from "@/lib/server/session";
@@ -12,4 +12,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => {
   return { threads: await listThreads(viewer, { claimId: claim.id }) };
 });
 
-export const POST = createUnderRoute(threadSchema, openThread);
+export const POST = recordRoute(threadSchema, openThread, 201);

@@ -1,4 +1,4 @@
-import { createUnderRoute, jsonRoute } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listAddenda, publishAddendum } from "@/lib/server/addenda";
 import { requireViewer } from "@/lib/server/session";
 import { addendumSchema } from "@/lib/validation/notices";
@@ -7,4 +7,4 @@ type Context = { params: Promise<{ id: string }> };
 
 export const GET = jsonRoute(async (request, { params }: Context) => listAddenda(await requireViewer(request.headers), (await params).id));
 
-export const POST = createUnderRoute(addendumSchema, publishAddendum);
+export const POST = recordRoute(addendumSchema, publishAddendum, 201);

@@ -1,4 +1,4 @@
-import { createUnderRoute, jsonRoute } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { createDeclaration, getDeclaration } from "@/lib/server/declarations";
 import { requireViewer } from "@/lib/server/session";
 import { declarationSchema } from "@/lib/validation/review";
@@ -10,4 +10,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => ({
   declaration: await getDeclaration(await requireViewer(request.headers), (await params).id),
 }));
 
-export const POST = createUnderRoute(declarationSchema, createDeclaration);
+export const POST = recordRoute(declarationSchema, createDeclaration, 201);

@@ -1,4 +1,4 @@
-import { createUnderRoute, jsonRoute } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listOffers, submitOffer } from "@/lib/server/offers";
 import { requireViewer } from "@/lib/server/session";
 import { offerSchema } from "@/lib/validation/offer";
@@ -9,4 +9,4 @@ type Context = { params: Promise<{ id: string }> };
 export const GET = jsonRoute(async (request, { params }: Context) => listOffers(await requireViewer(request.headers), (await params).id));
 
 /** Submits or resubmits the signed-in vendor's offer; answers with its claims and computed verdicts. */
-export const POST = createUnderRoute(offerSchema, submitOffer);
+export const POST = recordRoute(offerSchema, submitOffer, 201);

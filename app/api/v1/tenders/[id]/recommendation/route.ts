@@ -1,4 +1,4 @@
-import { createUnderRoute, jsonRoute } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listRecommendations, submitRecommendation } from "@/lib/server/recommendations";
 import { requireViewer } from "@/lib/server/session";
 import { recommendationSchema } from "@/lib/validation/comparison";
@@ -12,4 +12,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => {
 });
 
 /** The buyer's recommendation: { offerId, quantity, value, justification }; 201 with the stored row. */
-export const POST = createUnderRoute(recommendationSchema, submitRecommendation);
+export const POST = recordRoute(recommendationSchema, submitRecommendation, 201);

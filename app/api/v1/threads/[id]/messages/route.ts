@@ -1,4 +1,4 @@
-import { createUnderRoute, jsonRoute } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { getThread, postMessage } from "@/lib/server/threads";
 import { requireViewer } from "@/lib/server/session";
 import { messageSchema } from "@/lib/validation/review";
@@ -7,4 +7,4 @@ type Context = { params: Promise<{ id: string }> };
 
 export const GET = jsonRoute(async (request, { params }: Context) => getThread(await requireViewer(request.headers), (await params).id));
 
-export const POST = createUnderRoute(messageSchema, postMessage);
+export const POST = recordRoute(messageSchema, postMessage, 201);
