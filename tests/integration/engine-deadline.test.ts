@@ -19,7 +19,7 @@ let fx: ReviewFixtures;
 let as: Record<string, Headers>;
 
 beforeAll(async () => {
-  ({ db, fx, as } = await declaredReviewBench({ vendor: "bids@oxbow.example" }));
+  ({ db, fx, as } = await declaredReviewBench("oxbow"));
 });
 afterAll(async () => {
   await closeEnginePool();
@@ -89,7 +89,7 @@ describe("an offer whose claim the engine does not finish", () => {
       claims: [{ pointIndex: 0, metric: "bler", value: 1e-5 }],
       envelope: { unitPrice: 50, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24, priceBreaks: [] },
     };
-    const response = await submitPost(request(`/api/v1/tenders/${weirs.id}/offers`, { method: "POST", headers: as.vendor, body }), params({ id: weirs.id }));
+    const response = await submitPost(request(`/api/v1/tenders/${weirs.id}/offers`, { method: "POST", headers: as.oxbow, body }), params({ id: weirs.id }));
     expect(response.status).toBe(201);
     const offer = await response.json();
     expect(offer.claims[0]).toMatchObject({ verdict: "needs-evidence" });
@@ -132,7 +132,7 @@ describe("a sensitivity claim with a curve that the engine does not finish", () 
       envelope: { unitPrice: 150, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24, priceBreaks: [] },
     };
     const response = await submitPost(
-      request(`/api/v1/tenders/${gateways.id}/offers`, { method: "POST", headers: as.vendor, body }),
+      request(`/api/v1/tenders/${gateways.id}/offers`, { method: "POST", headers: as.oxbow, body }),
       params({ id: gateways.id }),
     );
     expect(response.status).toBe(201);

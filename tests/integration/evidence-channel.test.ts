@@ -15,7 +15,7 @@ let fx: ReviewFixtures;
 let as: Record<string, Headers>;
 
 beforeAll(async () => {
-  ({ db, fx, as } = await declaredReviewBench({ buyer: "buyer@tarnwell.example" }));
+  ({ db, fx, as } = await declaredReviewBench("buyer"));
 });
 afterAll(closeDb);
 

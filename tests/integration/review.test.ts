@@ -29,16 +29,7 @@ beforeAll(async () => {
   services = await startLocalServices({ dataDir: mkdtempSync(path.join(tmpdir(), "rc-review-")), smtpPort: 0, s3Port: 0 });
   db = await freshDatabase();
   fx = await reviewFixtures(db);
-  Object.assign(
-    as,
-    await signInAll({
-      engineer: "engineer@tarnwell.example",
-      director: "director@tarnwell.example",
-      buyer: "buyer@tarnwell.example",
-      marram: "offers@marram.example",
-      oxbow: "bids@oxbow.example",
-    }),
-  );
+  Object.assign(as, await signInAll("engineer", "director", "buyer", "marram", "oxbow"));
 });
 afterAll(async () => {
   await flushMail();

@@ -19,14 +19,7 @@ const statement = { statement: "Every claim reviewed against the bounds and the 
 
 beforeAll(async () => {
   db = await freshDatabase();
-  Object.assign(
-    as,
-    await signInAll({
-      engineer: "engineer@tarnwell.example",
-      director: "director@tarnwell.example",
-      buyer: "buyer@tarnwell.example",
-    }),
-  );
+  Object.assign(as, await signInAll("engineer", "director", "buyer"));
 });
 afterAll(closeDb);
 

@@ -27,17 +27,7 @@ beforeAll(async () => {
   services = await startLocalServices({ dataDir, smtpPort: 0, s3Port: 0 });
   db = await freshDatabase();
   for (const o of await db.select().from(organisations)) org[o.name] = o.id;
-  Object.assign(
-    as,
-    await signInAll({
-      buyer: "buyer@tarnwell.example",
-      engineer: "engineer@tarnwell.example",
-      approver: "approver@tarnwell.example",
-      admin: "admin@tarnwell.example",
-      kestrelink: "sales@kestrelink.example",
-      oxbow: "bids@oxbow.example",
-    }),
-  );
+  Object.assign(as, await signInAll("buyer", "engineer", "approver", "admin", "kestrelink", "oxbow"));
 });
 afterAll(async () => {
   await flushMail();

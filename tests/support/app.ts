@@ -2,6 +2,9 @@ import { sql } from "drizzle-orm";
 import { closeDb, getDb } from "@/lib/server/database";
 import { seedDemoData, DEMO_PASSWORD } from "@/db/seed";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
+import { DEMO_ACCOUNTS, type DemoAccount } from "./accounts";
+
+export { DEMO_ACCOUNTS, type DemoAccount };
 
 export const BASE = process.env.BETTER_AUTH_URL ?? "http://localhost:3000";
 
@@ -36,10 +39,10 @@ export async function signInAs(email: string, password = DEMO_PASSWORD): Promise
   return new Headers({ cookie, origin: BASE });
 }
 
-/** Signs in each account, by key: `{ buyer: "buyer@…" }` gives `{ buyer: headers }`. */
-export async function signInAll<K extends string>(emails: Record<K, string>): Promise<Record<K, Headers>> {
+/** Signs in each demo account named: `signInAll("buyer", "oxbow")` gives `{ buyer: headers, oxbow: headers }`. */
+export async function signInAll<K extends DemoAccount>(...names: K[]): Promise<Record<K, Headers>> {
   const out = {} as Record<K, Headers>;
-  for (const [key, email] of Object.entries(emails) as [K, string][]) out[key] = await signInAs(email);
+  for (const name of names) out[name] = await signInAs(DEMO_ACCOUNTS[name]);
   return out;
 }
 

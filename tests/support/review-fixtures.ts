@@ -4,7 +4,7 @@ import type { Db } from "@/db/client";
 import { claims, declarations, offers, organisations, tenders, users } from "@/db/schema";
 import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { evaluateClaim } from "@/lib/bounds";
-import { freshDatabase, params, request, signInAll } from "./app";
+import { freshDatabase, params, request, signInAll, type DemoAccount } from "./app";
 
 export const VENDORS = ["kestrelink", "marram", "oxbow", "quillfield"] as const;
 export type VendorKey = (typeof VENDORS)[number];
@@ -125,12 +125,12 @@ export async function declareNoTies(db: Db, tenderId: string, headers: Headers, 
 
 /**
  * A fresh demo database with the review fixtures, a session for the engineer and for each other
- * person named (by key), and the engineer's declaration on the fixture tender made.
+ * demo account named, and the engineer's declaration on the fixture tender made.
  */
-export async function declaredReviewBench(others: Record<string, string>) {
+export async function declaredReviewBench(...others: DemoAccount[]) {
   const db = await freshDatabase();
   const fx = await reviewFixtures(db);
-  const as: Record<string, Headers> = await signInAll({ engineer: "engineer@tarnwell.example", ...others });
+  const as: Record<string, Headers> = await signInAll("engineer", ...others);
   await declareNoTies(db, fx.tenderId, as.engineer);
   return { db, fx, as };
 }
