@@ -7,6 +7,16 @@ import { ChartFrame, INK, LABEL_ROW, LineTag, Marker, type KeyEntry, type Marker
 
 const COLOURS = { converse: "#b42318", achievable: "#1f7a3a", normal: "#0f5e6b", capacity: "#4a5568", energy: "#8a5a00", claim: "#1c2430", run: "#6b3fa0" };
 
+type LineLook = { colour: string; dash?: string; width?: number };
+/** How each bound is drawn, in the chart and in its key alike. */
+const LOOK = {
+  converse: { colour: COLOURS.converse },
+  achievable: { colour: COLOURS.achievable, dash: "6 3" },
+  normal: { colour: COLOURS.normal, dash: "2 3", width: 1.5 },
+  energy: { colour: COLOURS.energy, dash: "8 3 2 3" },
+  capacity: { colour: COLOURS.capacity, width: 1.5 },
+} satisfies Record<string, LineLook>;
+
 /** A lab run on the channel chart: its channel and the upper bound of its error rate. */
 export interface ChartRun {
   x: number;
@@ -35,6 +45,16 @@ const shapeFn = (shape: MarkerShape, colour: string, size?: number) =>
     const p = props as { cx?: number; cy?: number; payload?: Point };
     return <Marker cx={p.cx} cy={p.cy} shape={shape} colour={colour} size={size} title={p.payload?.title} />;
   };
+
+/** One bound as a line of the chart (called as a function, so the chart sees the Line itself). */
+const curve = (dataKey: string, name: string, look: LineLook) => (
+  <Line dataKey={dataKey} name={name} stroke={look.colour} dot={false} strokeWidth={look.width ?? 2} strokeDasharray={look.dash} isAnimationActive={false} />
+);
+
+/** Points of one kind, each drawn with the same marker. */
+const points = (key: string, data: Point[], name: string, shape: MarkerShape, colour: string, size?: number) => (
+  <Scatter key={key} data={data} dataKey="y" name={name} shape={shapeFn(shape, colour, size)} isAnimationActive={false} />
+);
 
 /** Least possible BLER, random-coding BLER and the normal approximation against the channel, with the claim, lab runs and a vendor's curve as points. */
 export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: BoundCharts; runs?: ChartRun[]; vendorCurve?: VendorCurvePoint[] }) {
@@ -77,11 +97,11 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
   }));
 
   const entries: KeyEntry[] = [
-    { name: soft ? "least possible BLER (1959 sphere packing)" : "least possible BLER (converse)", colour: COLOURS.converse },
-    ...(soft
-      ? [{ name: `least possible BLER for k = ${view.k} bits, any bandwidth (energy limit)`, colour: COLOURS.energy, dash: "8 3 2 3" }]
-      : [{ name: "random-coding BLER (achievable)", colour: COLOURS.achievable, dash: "6 3" }]),
-    { name: "normal approximation", colour: COLOURS.normal, dash: "2 3", width: 1.5 },
+    { name: soft ? "least possible BLER (1959 sphere packing)" : "least possible BLER (converse)", ...LOOK.converse },
+    soft
+      ? { name: `least possible BLER for k = ${view.k} bits, any bandwidth (energy limit)`, ...LOOK.energy }
+      : { name: "random-coding BLER (achievable)", ...LOOK.achievable },
+    { name: "normal approximation", ...LOOK.normal },
     ...(thresholds.length > 0 ? [{ name: "thin dashed lines: where each limit allows the claimed BLER", colour: INK.axis, dash: "3 3", width: 1 }] : []),
     ...(claim.length > 0 ? [{ name: "this claim", colour: COLOURS.claim, marker: "square" as const }] : []),
     ...(labRuns.length > 0 ? [{ name: "lab runs (upper bound of each measured error rate)", colour: COLOURS.run, marker: "ring" as const }] : []),
@@ -105,37 +125,9 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
           />
           <YAxis width={52} domain={[(min: number) => Math.max(Math.floor(min), -30), 0]} tickFormatter={pow10} allowDataOverflow {...AXIS} />
           <Tooltip formatter={(v) => (typeof v === "number" ? pow10(v) : String(v))} labelFormatter={(v) => fmtX(Number(v))} />
-          <Line dataKey="converse" name={entries[0].name} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
-          {soft ? (
-            <Line
-              dataKey="energy"
-              name="energy limit"
-              stroke={COLOURS.energy}
-              dot={false}
-              strokeWidth={2}
-              strokeDasharray="8 3 2 3"
-              isAnimationActive={false}
-            />
-          ) : (
-            <Line
-              dataKey="achievable"
-              name="random-coding BLER"
-              stroke={COLOURS.achievable}
-              dot={false}
-              strokeWidth={2}
-              strokeDasharray="6 3"
-              isAnimationActive={false}
-            />
-          )}
-          <Line
-            dataKey="normal"
-            name="normal approximation"
-            stroke={COLOURS.normal}
-            dot={false}
-            strokeWidth={1.5}
-            strokeDasharray="2 3"
-            isAnimationActive={false}
-          />
+          {curve("converse", entries[0].name, LOOK.converse)}
+          {soft ? curve("energy", "energy limit", LOOK.energy) : curve("achievable", "random-coding BLER", LOOK.achievable)}
+          {curve("normal", "normal approximation", LOOK.normal)}
           {thresholds.map((t, i) => (
             <ReferenceLine
               key={t.key}
@@ -145,18 +137,9 @@ export function ChannelChart({ charts, runs = [], vendorCurve = [] }: { charts: 
               label={<LineTag row={thresholds.length - 1 - i} text={`${t.label} ${dB(t.value)}`} colour={t.colour} anchorEnd={frac(t.value) > 0.5} />}
             />
           ))}
-          {labRuns.length > 0 ? <Scatter data={labRuns} dataKey="y" name="lab run" shape={shapeFn("ring", COLOURS.run, 4)} isAnimationActive={false} /> : null}
-          {vendorGroups.map((g) => (
-            <Scatter
-              key={g.verdict}
-              data={g.points}
-              dataKey="y"
-              name={`vendor: ${g.mark.words}`}
-              shape={shapeFn(g.mark.shape, g.mark.colour)}
-              isAnimationActive={false}
-            />
-          ))}
-          {claim.length > 0 ? <Scatter data={claim} dataKey="y" name="claim" shape={shapeFn("square", COLOURS.claim)} isAnimationActive={false} /> : null}
+          {labRuns.length > 0 ? points("runs", labRuns, "lab run", "ring", COLOURS.run, 4) : null}
+          {vendorGroups.map((g) => points(g.verdict, g.points, `vendor: ${g.mark.words}`, g.mark.shape, g.mark.colour))}
+          {claim.length > 0 ? points("claim", claim, "claim", "square", COLOURS.claim) : null}
         </ComposedChart>
       </ResponsiveContainer>
     </ChartFrame>
@@ -168,10 +151,10 @@ export function RateChart({ charts }: { charts: BoundCharts }) {
   const { view, rate } = charts;
   const soft = view.model === "biawgn";
   const entries: KeyEntry[] = [
-    { name: "capacity", colour: COLOURS.capacity, width: 1.5 },
-    { name: soft ? "largest rate allowed (1959 sphere packing)" : "largest rate allowed (converse)", colour: COLOURS.converse },
-    ...(soft ? [] : [{ name: "rate guaranteed (random coding)", colour: COLOURS.achievable, dash: "6 3" }]),
-    { name: "normal approximation", colour: COLOURS.normal, dash: "2 3", width: 1.5 },
+    { name: "capacity", ...LOOK.capacity },
+    { name: soft ? "largest rate allowed (1959 sphere packing)" : "largest rate allowed (converse)", ...LOOK.converse },
+    ...(soft ? [] : [{ name: "rate guaranteed (random coding)", ...LOOK.achievable }]),
+    { name: "normal approximation", ...LOOK.normal },
     { name: "this claim", colour: COLOURS.claim, marker: "square" },
   ];
   const claim: Point[] = [{ x: view.n, y: view.k / view.n, title: `claim: rate ${(view.k / view.n).toFixed(4)} at n = ${view.n.toLocaleString("en-GB")}` }];
@@ -183,29 +166,11 @@ export function RateChart({ charts }: { charts: BoundCharts }) {
           <XAxis dataKey="x" type="number" scale="log" domain={["dataMin", "dataMax"]} tickFormatter={(v: number) => v.toLocaleString("en-GB")} {...AXIS} />
           <YAxis width={40} domain={[0, 1]} tickFormatter={(v: number) => v.toFixed(2)} {...AXIS} />
           <Tooltip formatter={(v) => (typeof v === "number" ? v.toFixed(4) : String(v))} labelFormatter={(v) => `n = ${Number(v).toLocaleString("en-GB")}`} />
-          <Line dataKey="capacity" name="capacity" stroke={COLOURS.capacity} dot={false} strokeWidth={1.5} isAnimationActive={false} />
-          <Line dataKey="converseRate" name={entries[1].name} stroke={COLOURS.converse} dot={false} strokeWidth={2} isAnimationActive={false} />
-          {soft ? null : (
-            <Line
-              dataKey="achievableRate"
-              name="rate guaranteed"
-              stroke={COLOURS.achievable}
-              dot={false}
-              strokeWidth={2}
-              strokeDasharray="6 3"
-              isAnimationActive={false}
-            />
-          )}
-          <Line
-            dataKey="normalRate"
-            name="normal approximation"
-            stroke={COLOURS.normal}
-            dot={false}
-            strokeWidth={1.5}
-            strokeDasharray="2 3"
-            isAnimationActive={false}
-          />
-          <Scatter data={claim} dataKey="y" name="claim" shape={shapeFn("square", COLOURS.claim)} isAnimationActive={false} />
+          {curve("capacity", "capacity", LOOK.capacity)}
+          {curve("converseRate", entries[1].name, LOOK.converse)}
+          {soft ? null : curve("achievableRate", "rate guaranteed", LOOK.achievable)}
+          {curve("normalRate", "normal approximation", LOOK.normal)}
+          {points("claim", claim, "claim", "square", COLOURS.claim)}
         </ComposedChart>
       </ResponsiveContainer>
     </ChartFrame>

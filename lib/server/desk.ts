@@ -1,11 +1,12 @@
 import "server-only";
-import { getDb } from "./database";
-import { ne } from "drizzle-orm";
-import { tenders } from "@/db/schema";
+import { getDb, type Queryable } from "./database";
+import { and, count, eq, exists, inArray, isNull, ne, type SQL } from "drizzle-orm";
+import { objections, tenders } from "@/db/schema";
 import { stuckRecommendations } from "./approval-coverage";
 import { waitingObjections } from "./objections";
+import type { TenderState } from "@/policies/vocabulary";
 import type { Viewer } from "./session";
-import { listTenders, type TenderWithInvites } from "./tenders";
+import { closeDueTenders, readableTenders, tenderSubject, tendersWhere, type TenderWithInvites } from "./tenders";
 
 export interface DeskSection {
   title: string;
@@ -22,96 +23,117 @@ export interface DeskSection {
 /** The Desk shows the first few of each section; the Tenders list pages through the rest. */
 export const DESK_SECTION_LIMIT = 8;
 
-export function capped(section: DeskSection, states: string[]): DeskSection {
-  if (section.tenders.length <= DESK_SECTION_LIMIT) return section;
+/** The first DESK_SECTION_LIMIT tenders of a section, and a link to the list when it holds `total` (more). */
+export function capped(section: DeskSection, states: string[], total = section.tenders.length): DeskSection {
+  if (total <= DESK_SECTION_LIMIT) return section;
   const href = states.length === 1 ? `/tenders?state=${states[0]}` : "/tenders";
-  return { ...section, tenders: section.tenders.slice(0, DESK_SECTION_LIMIT), more: { count: section.tenders.length - DESK_SECTION_LIMIT, href } };
+  return { ...section, tenders: section.tenders.slice(0, DESK_SECTION_LIMIT), more: { count: total - DESK_SECTION_LIMIT, href } };
+}
+
+/** What the Desk reads: the viewer's readable tenders as SQL, or nothing at all for one who reads no tender. */
+interface DeskReader {
+  db: Queryable;
+  viewer: Viewer;
+  /** The readable tenders this viewer may see that match `where`, newest first; with `limit`, only that many. */
+  tenders(where: SQL | undefined, limit?: number): Promise<TenderWithInvites[]>;
+  count(where: SQL | undefined): Promise<number>;
+}
+
+async function deskReader(viewer: Viewer): Promise<DeskReader> {
+  const db = await getDb();
+  if (!viewer.ability.can("read", "Tender")) return { db, viewer, tenders: async () => [], count: async () => 0 };
+  await closeDueTenders(db);
+  // Cancelled tenders never wait on a Desk; the policies are applied in SQL and each row checked again by CASL.
+  const readable = (where: SQL | undefined) => and(readableTenders(viewer), ne(tenders.state, "cancelled"), where);
+  return {
+    db,
+    viewer,
+    tenders: async (where, limit) => {
+      const rows = await tendersWhere(db, readable(where), limit === undefined ? undefined : { limit, offset: 0 });
+      return rows.filter((t) => viewer.ability.can("read", tenderSubject(t)));
+    },
+    count: async (where) => (await db.select({ n: count() }).from(tenders).where(readable(where)))[0].n,
+  };
+}
+
+/** A section of the tenders in `states` (and matching `where`): the first few read, the rest only counted. */
+async function stateSection(read: DeskReader, section: Omit<DeskSection, "tenders">, states: TenderState[], where?: SQL): Promise<DeskSection> {
+  const filter = and(inArray(tenders.state, states), where);
+  const first = await read.tenders(filter, DESK_SECTION_LIMIT + 1);
+  const total = first.length > DESK_SECTION_LIMIT ? await read.count(filter) : first.length;
+  return capped({ ...section, tenders: first }, states, total);
 }
 
 /** Recommendations nobody can finish approving, for the people who can free them (buyers withdraw, admins raise limits). */
-async function stuckSection(visible: TenderWithInvites[], tab: DeskSection["tab"]): Promise<DeskSection> {
-  const stuck = await stuckRecommendations(await getDb());
-  const ids = new Set(stuck.map((s) => s.tenderId));
+async function stuckSection(read: DeskReader, tab: DeskSection["tab"]): Promise<DeskSection> {
+  const stuck = await stuckRecommendations(read.db);
   return {
     title: "Recommendations that cannot be approved",
     empty: "Every recommendation in approval can get the approvals it needs.",
-    tenders: visible.filter((t) => ids.has(t.id)),
+    tenders: stuck.length ? await read.tenders(inArray(tenders.id, [...new Set(stuck.map((s) => s.tenderId))])) : [],
     tab,
     notes: Object.fromEntries(stuck.map((s) => [s.tenderId, s.problem])),
   };
 }
 
-/** Vendors' objections lodged during the standstill period and not yet answered, on the tenders given. */
-async function objectionsSection(tenders: TenderWithInvites[]): Promise<DeskSection> {
-  const waiting = await waitingObjections(tenders.map((t) => t.id));
+/** Vendors' objections lodged during the standstill period and not yet answered, on the tenders matching `where`. */
+async function objectionsSection(read: DeskReader, where?: SQL): Promise<DeskSection> {
+  const unanswered = read.db
+    .select({ one: objections.id })
+    .from(objections)
+    .where(and(eq(objections.tenderId, tenders.id), isNull(objections.answeredAt)));
+  const candidates = await read.tenders(and(exists(unanswered), where));
+  const waiting = await waitingObjections(candidates.map((t) => t.id));
   const plural = (n: number) => (n === 1 ? "1 objection waits" : `${n} objections wait`);
   return {
     title: "Objections to answer",
     empty: "No objection waits for an answer.",
-    tenders: tenders.filter((t) => waiting.has(t.id)),
+    tenders: candidates.filter((t) => waiting.has(t.id)),
     tab: "notices",
     notes: Object.fromEntries([...waiting].map(([id, n]) => [id, `${plural(n)} for a written answer before the standstill period ends.`])),
   };
 }
 
-/** What waits for the signed-in person, one section per role they hold. */
+/** What waits for the signed-in person, one section per role they hold; each section reads only the rows it shows. */
 export async function getDesk(viewer: Viewer): Promise<DeskSection[]> {
   const roles = viewer.actor.roles;
-  const visible = viewer.ability.can("read", "Tender") ? await listTenders(viewer, ne(tenders.state, "cancelled")) : [];
-  const inState = (...states: string[]) => visible.filter((t) => states.includes(t.state));
+  const read = await deskReader(viewer);
+  const mine = eq(tenders.createdBy, viewer.actor.id);
   const sections: DeskSection[] = [];
-  if (roles.includes("buyer")) sections.push(await stuckSection(visible, "sign-off"));
-  else if (roles.includes("admin")) sections.push(await stuckSection(visible, ""));
+  if (roles.includes("buyer")) sections.push(await stuckSection(read, "sign-off"));
+  else if (roles.includes("admin")) sections.push(await stuckSection(read, ""));
   // The buyer of the tender (its author) answers; an admin sees every one that waits.
-  if (roles.includes("admin")) sections.push(await objectionsSection(visible));
-  else if (roles.includes("buyer")) sections.push(await objectionsSection(visible.filter((t) => t.createdBy === viewer.actor.id)));
+  if (roles.includes("admin")) sections.push(await objectionsSection(read));
+  else if (roles.includes("buyer")) sections.push(await objectionsSection(read, mine));
   if (roles.includes("buyer")) {
-    sections.push(
-      capped({ title: "Drafts to finish and open", empty: "No drafts.", tenders: inState("draft").filter((t) => t.createdBy === viewer.actor.id), tab: "" }, [
-        "draft",
-      ]),
-    );
-    sections.push(capped({ title: "Open for offers", empty: "No tender is open.", tenders: inState("open"), tab: "" }, ["open"]));
-    sections.push(
-      capped({ title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tenders: inState("commercial"), tab: "comparison" }, ["commercial"]),
-    );
+    sections.push(await stateSection(read, { title: "Drafts to finish and open", empty: "No drafts.", tab: "" }, ["draft"], mine));
+    sections.push(await stateSection(read, { title: "Open for offers", empty: "No tender is open.", tab: "" }, ["open"]));
+    sections.push(await stateSection(read, { title: "Ready for commercial evaluation", empty: "Nothing to compare yet.", tab: "comparison" }, ["commercial"]));
   }
   if (roles.includes("engineer")) {
     sections.push(
-      capped({ title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tenders: inState("technical"), tab: "review" }, [
-        "technical",
-      ]),
+      await stateSection(read, { title: "Technical evaluations to review", empty: "No tender is in technical evaluation.", tab: "review" }, ["technical"]),
     );
   }
   if (roles.includes("approver")) {
     sections.push(
-      capped({ title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tenders: inState("approval"), tab: "sign-off" }, [
-        "approval",
-      ]),
+      await stateSection(read, { title: "Recommendations awaiting approval", empty: "No recommendation waits for you.", tab: "sign-off" }, ["approval"]),
     );
   }
   if (roles.includes("vendor")) {
-    sections.push(capped({ title: "Tenders you are invited to", empty: "No open invitation.", tenders: inState("open"), tab: "offer" }, ["open"]));
+    sections.push(await stateSection(read, { title: "Tenders you are invited to", empty: "No open invitation.", tab: "offer" }, ["open"]));
     sections.push(
-      capped(
-        {
-          title: "Under evaluation or decided",
-          empty: "Nothing under evaluation.",
-          tenders: inState("technical", "commercial", "approval", "awarded"),
-          tab: "",
-        },
-        ["technical", "commercial", "approval", "awarded"],
-      ),
+      await stateSection(read, { title: "Under evaluation or decided", empty: "Nothing under evaluation.", tab: "" }, [
+        "technical",
+        "commercial",
+        "approval",
+        "awarded",
+      ]),
     );
   }
   if (roles.includes("admin")) {
     sections.push(
-      capped({ title: "Tenders in progress", empty: "No tender in progress.", tenders: inState("open", "technical", "commercial", "approval"), tab: "" }, [
-        "open",
-        "technical",
-        "commercial",
-        "approval",
-      ]),
+      await stateSection(read, { title: "Tenders in progress", empty: "No tender in progress.", tab: "" }, ["open", "technical", "commercial", "approval"]),
     );
   }
   return sections;

@@ -5,6 +5,7 @@ import { describeZodError, fieldErrorsOf } from "@/lib/validation/messages";
 import { BAD_TEXT_MESSAGE, findBadText, isCleanParam, isCleanText } from "@/lib/validation/text";
 import { AppError, ForbiddenError, InputError } from "./errors";
 import { crossSiteRefusal } from "./origin";
+import { requireViewer, type Viewer } from "./session";
 
 export const MAX_JSON_BYTES = 1_000_000;
 
@@ -113,4 +114,25 @@ export function jsonRoute<C>(handler: Handler<C>) {
       return errorResponse(error);
     }
   };
+}
+
+/** The context of a route under one record: the `[id]` of its folder. */
+export type IdContext = { params: Promise<{ id: string }> };
+
+/** A POST that makes one thing from a JSON body: the signed-in viewer first, then the body read by `schema`; 201 with what was made. */
+export function createRoute<T>(schema: ZodType<T>, create: (viewer: Viewer, input: T) => Promise<unknown>) {
+  return jsonRoute(async (request: Request) => {
+    const viewer = await requireViewer(request.headers);
+    const input = await readJson(request, schema);
+    return Response.json(await create(viewer, input), { status: 201 });
+  });
+}
+
+/** A write from a JSON body to the record in the address (`[id]`), the same way: `status` with what `act` returns. */
+export function recordRoute<T>(schema: ZodType<T>, act: (viewer: Viewer, id: string, input: T) => Promise<unknown>, status = 200) {
+  return jsonRoute(async (request: Request, { params }: IdContext) => {
+    const viewer = await requireViewer(request.headers);
+    const input = await readJson(request, schema);
+    return Response.json(await act(viewer, (await params).id, input), { status });
+  });
 }

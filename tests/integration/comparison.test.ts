@@ -13,7 +13,7 @@ import { appendLedger, verifyLedger } from "@/lib/server/ledger";
 import { startLocalServices, type LocalServices } from "@/lib/dev/services";
 import { flushMail, listCapturedMail } from "@/lib/mail";
 import type { Comparison } from "@/lib/server/comparison";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, freshDatabase, params, request, signInAll } from "../support/app";
 import { createCommercialTender, honest, impossible } from "../support/comparison-fixtures";
 
 let db: Db;
@@ -24,14 +24,7 @@ const ENVELOPE_KEYS = ["unitPrice", "leadTimeWeeks", "warrantyMonths", "priceBre
 beforeAll(async () => {
   services = await startLocalServices({ dataDir: mkdtempSync(path.join(tmpdir(), "rc-comparison-")), smtpPort: 0, s3Port: 0 });
   db = await freshDatabase();
-  for (const [key, email] of Object.entries({
-    buyer: "buyer@tarnwell.example",
-    engineer: "engineer@tarnwell.example",
-    approver: "approver@tarnwell.example",
-    director: "director@tarnwell.example",
-    vendor: "sales@kestrelink.example",
-  }))
-    as[key] = await signInAs(email);
+  Object.assign(as, await signInAll("buyer", "engineer", "approver", "director", "kestrelink"));
 });
 afterAll(async () => {
   await flushMail();
@@ -76,7 +69,7 @@ describe("opening the envelopes", () => {
   it("is a buyer's act: an engineer and a vendor get 403", async () => {
     const fx = await createCommercialTender(db, { offers: fourOffers });
     expect((await open("engineer", fx.tenderId)).status).toBe(403);
-    expect((await open("vendor", fx.tenderId)).status).toBe(403);
+    expect((await open("kestrelink", fx.tenderId)).status).toBe(403);
     expect((await tenderRow(fx.tenderId)).envelopesOpenedAt).toBeNull();
   });
 
@@ -115,7 +108,7 @@ describe("who reads the comparison", () => {
   it("answers 403 to an engineer and to a vendor, 401 signed out", async () => {
     const fx = await createCommercialTender(db, { opened: true, offers: fourOffers });
     expect((await grid("engineer", fx.tenderId)).status).toBe(403);
-    expect((await grid("vendor", fx.tenderId)).status).toBe(403);
+    expect((await grid("kestrelink", fx.tenderId)).status).toBe(403);
     const anonymous = await comparisonGet(request(`/api/v1/tenders/${fx.tenderId}/comparison`), params({ id: fx.tenderId }));
     expect(anonymous.status).toBe(401);
   });
@@ -223,7 +216,7 @@ describe("the recommendation", () => {
     expect(Object.keys((await short.json()).fieldErrors)).toContain("justification");
     expect((await recommend("buyer", fx.tenderId, { ...body, quantity: 0.5 })).status).toBe(400);
     expect((await recommend("buyer", fx.tenderId, { ...body, offerId: "not-an-offer" })).status).toBe(400);
-    expect((await recommend("vendor", fx.tenderId, body)).status).toBe(403);
+    expect((await recommend("kestrelink", fx.tenderId, body)).status).toBe(403);
     expect((await recommend("engineer", fx.tenderId, body)).status).toBe(403);
     expect(await getCurrentRecommendation(db, fx.tenderId)).toBeNull();
   });

@@ -6,33 +6,20 @@ import { and, eq } from "drizzle-orm";
 import { POST as evaluatePost } from "@/app/api/v1/evaluate/route";
 import { POST as submitPost } from "@/app/api/v1/tenders/[id]/offers/route";
 import { POST as importPost } from "@/app/api/v1/claims/[id]/evidence/import/route";
-import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { GET as meGet } from "@/app/api/v1/me/route";
 import type { Db } from "@/db/client";
 import { claims, evidenceRuns, ledgerEntries, offers, tenders } from "@/db/schema";
 import { closeEnginePool, warmEnginePool } from "@/lib/runtime/engine-pool";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, params, request } from "../support/app";
 import { setEnv } from "../support/env";
-import { reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
+import { declaredReviewBench, type ReviewFixtures } from "../support/review-fixtures";
 
 let db: Db;
 let fx: ReviewFixtures;
-const as: Record<string, Headers> = {};
+let as: Record<string, Headers>;
 
 beforeAll(async () => {
-  db = await freshDatabase();
-  fx = await reviewFixtures(db);
-  as.engineer = await signInAs("engineer@tarnwell.example");
-  as.vendor = await signInAs("bids@oxbow.example");
-  const declared = await declarePost(
-    request(`/api/v1/tenders/${fx.tenderId}/declaration`, {
-      method: "POST",
-      headers: as.engineer,
-      body: { conflict: "none", statement: "No ties to any invited vendor." },
-    }),
-    params({ id: fx.tenderId }),
-  );
-  expect(declared.status).toBe(201);
+  ({ db, fx, as } = await declaredReviewBench("oxbow"));
 });
 afterAll(async () => {
   await closeEnginePool();
@@ -102,7 +89,7 @@ describe("an offer whose claim the engine does not finish", () => {
       claims: [{ pointIndex: 0, metric: "bler", value: 1e-5 }],
       envelope: { unitPrice: 50, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24, priceBreaks: [] },
     };
-    const response = await submitPost(request(`/api/v1/tenders/${weirs.id}/offers`, { method: "POST", headers: as.vendor, body }), params({ id: weirs.id }));
+    const response = await submitPost(request(`/api/v1/tenders/${weirs.id}/offers`, { method: "POST", headers: as.oxbow, body }), params({ id: weirs.id }));
     expect(response.status).toBe(201);
     const offer = await response.json();
     expect(offer.claims[0]).toMatchObject({ verdict: "needs-evidence" });
@@ -145,7 +132,7 @@ describe("a sensitivity claim with a curve that the engine does not finish", () 
       envelope: { unitPrice: 150, currency: "EUR", leadTimeWeeks: 8, warrantyMonths: 24, priceBreaks: [] },
     };
     const response = await submitPost(
-      request(`/api/v1/tenders/${gateways.id}/offers`, { method: "POST", headers: as.vendor, body }),
+      request(`/api/v1/tenders/${gateways.id}/offers`, { method: "POST", headers: as.oxbow, body }),
       params({ id: gateways.id }),
     );
     expect(response.status).toBe(201);

@@ -1,33 +1,21 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { claims, declarations, evidenceRuns, users } from "@/db/schema";
+import { claims, evidenceRuns } from "@/db/schema";
 import { POST as evidencePost } from "@/app/api/v1/claims/[id]/evidence/route";
 import { POST as importPost } from "@/app/api/v1/claims/[id]/evidence/import/route";
-import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { GET as comparisonGet } from "@/app/api/v1/tenders/[id]/comparison/route";
 import type { Comparison } from "@/lib/server/comparison";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
-import { reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
+import { closeDb, params, request } from "../support/app";
+import { declaredReviewBench, type ReviewFixtures } from "../support/review-fixtures";
 import { createCommercialTender, honest } from "../support/comparison-fixtures";
 
 let db: Db;
 let fx: ReviewFixtures;
-const as: Record<string, Headers> = {};
+let as: Record<string, Headers>;
 
 beforeAll(async () => {
-  db = await freshDatabase();
-  fx = await reviewFixtures(db);
-  as.engineer = await signInAs("engineer@tarnwell.example");
-  as.buyer = await signInAs("buyer@tarnwell.example");
-  const [engineer] = await db.select().from(users).where(eq(users.email, "engineer@tarnwell.example"));
-  if ((await db.select().from(declarations).where(eq(declarations.userId, engineer.id))).length === 0) {
-    const body = { conflict: "none", statement: "No ties to any invited vendor." };
-    expect(
-      (await declarePost(request(`/api/v1/tenders/${fx.tenderId}/declaration`, { method: "POST", headers: as.engineer, body }), params({ id: fx.tenderId })))
-        .status,
-    ).toBe(201);
-  }
+  ({ db, fx, as } = await declaredReviewBench("buyer"));
 });
 afterAll(closeDb);
 

@@ -1,13 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { claims, evidenceRuns, ledgerEntries, users, declarations } from "@/db/schema";
+import { claims, evidenceRuns, ledgerEntries } from "@/db/schema";
 import { GET as queueGet } from "@/app/api/v1/claims/route";
 import { GET as evidenceGet, POST as evidencePost } from "@/app/api/v1/claims/[id]/evidence/route";
 import { POST as importPost } from "@/app/api/v1/claims/[id]/evidence/import/route";
-import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { BASE, closeDb, freshDatabase, params, request, signInAs } from "../support/app";
-import { reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
+import { declareNoTies, reviewFixtures, type ReviewFixtures } from "../support/review-fixtures";
 
 let db: Db;
 let fx: ReviewFixtures;
@@ -42,18 +41,7 @@ describe("lab evidence", () => {
   });
 
   it("computes the Clopper-Pearson status: no errors in about 3/q trials verifies q at 95 % (rule of three)", async () => {
-    const [engineer] = await db.select().from(users).where(eq(users.email, "engineer@tarnwell.example"));
-    if ((await db.select().from(declarations).where(eq(declarations.userId, engineer.id))).length === 0) {
-      const declared = await declarePost(
-        request(`/api/v1/tenders/${fx.tenderId}/declaration`, {
-          method: "POST",
-          headers: as.engineer,
-          body: { conflict: "none", statement: "No ties to any invited vendor." },
-        }),
-        params({ id: fx.tenderId }),
-      );
-      expect(declared.status).toBe(201);
-    }
+    await declareNoTies(db, fx.tenderId, as.engineer);
     const before = await ledger("evidence.recorded");
     const trials = Math.ceil(3 / claimedValue);
     const response = await record("engineer", fx.evidenceClaimId, { channelValue: 5e-3, unit, trials, errors: 0, confidence: 0.95 });

@@ -11,24 +11,17 @@ import { claimSubject } from "@/lib/server/review";
 import { requireViewer } from "@/lib/server/session";
 import { tendersWhere, tenderSubject } from "@/lib/server/tenders";
 import { TENDER_STATES } from "@/policies/vocabulary";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, freshDatabase, params, request, DEMO_ACCOUNTS, signInAll } from "../support/app";
 import { createCommercialTender, honest } from "../support/comparison-fixtures";
 
 let db: Db;
 const as: Record<string, Headers> = {};
-const ACCOUNTS = {
-  admin: "admin@tarnwell.example",
-  buyer: "buyer@tarnwell.example",
-  engineer: "engineer@tarnwell.example",
-  approver: "approver@tarnwell.example",
-  kestrelink: "sales@kestrelink.example",
-  oxbow: "bids@oxbow.example",
-};
+const WHO = ["admin", "buyer", "engineer", "approver", "kestrelink", "oxbow"] as const;
 let technical: Awaited<ReturnType<typeof createCommercialTender>>;
 
 /** 36 more tenders in every state, invitations spread over two demo vendors, drafts invited too (they must stay hidden). */
 async function manyTenders() {
-  const [buyer] = await db.select().from(users).where(eq(users.email, ACCOUNTS.buyer));
+  const [buyer] = await db.select().from(users).where(eq(users.email, DEMO_ACCOUNTS.buyer));
   const orgs = await db
     .select()
     .from(organisations)
@@ -75,7 +68,7 @@ beforeAll(async () => {
       honest(`Pager vendor ${i + 1}`, 40 + i, 6, 24, { claims: [{ value: 1e-5 }, { value: 1e-5 }, { value: 1e-5 }] }),
     ),
   });
-  for (const [key, email] of Object.entries(ACCOUNTS)) as[key] = await signInAs(email);
+  Object.assign(as, await signInAll(...WHO));
 });
 afterAll(closeDb);
 
@@ -117,7 +110,7 @@ describe("the tenders list", () => {
     expect(Object.keys(first.body.tenders[0])).toEqual(expect.arrayContaining(["id", "reference", "title", "state", "invitedOrgIds", "invited", "closesAt"]));
   });
 
-  it.each(Object.keys(ACCOUNTS))("pages exactly the tenders the policies let %s read, each once", async (who) => {
+  it.each(WHO)("pages exactly the tenders the policies let %s read, each once", async (who) => {
     const viewer = await requireViewer(as[who]);
     const expected = (await tendersWhere(db)).filter((t) => viewer.ability.can("read", tenderSubject(t))).map((t) => t.id);
     const served = await walk<{ id: string }>(tendersGet, "/api/v1/tenders?size=7", "tenders", who);

@@ -16,7 +16,7 @@ import { GET as threadsGet } from "@/app/api/v1/threads/route";
 import { GET as messagesGet, POST as messagePost } from "@/app/api/v1/threads/[id]/messages/route";
 import { startLocalServices, type LocalServices } from "@/lib/dev/services";
 import { flushMail, listCapturedMail } from "@/lib/mail";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, freshDatabase, params, request, signInAll } from "../support/app";
 import { reviewFixtures, VENDORS, type ReviewFixtures } from "../support/review-fixtures";
 
 let db: Db;
@@ -29,14 +29,7 @@ beforeAll(async () => {
   services = await startLocalServices({ dataDir: mkdtempSync(path.join(tmpdir(), "rc-review-")), smtpPort: 0, s3Port: 0 });
   db = await freshDatabase();
   fx = await reviewFixtures(db);
-  for (const [key, email] of Object.entries({
-    engineer: "engineer@tarnwell.example",
-    director: "director@tarnwell.example",
-    buyer: "buyer@tarnwell.example",
-    marram: "offers@marram.example",
-    oxbow: "bids@oxbow.example",
-  }))
-    as[key] = await signInAs(email);
+  Object.assign(as, await signInAll("engineer", "director", "buyer", "marram", "oxbow"));
 });
 afterAll(async () => {
   await flushMail();

@@ -10,7 +10,7 @@ import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route
 import { POST as signPost } from "@/app/api/v1/tenders/[id]/signoff/route";
 import { GET as comparisonGet } from "@/app/api/v1/tenders/[id]/comparison/route";
 import type { Comparison } from "@/lib/server/comparison";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, freshDatabase, params, request, signInAll } from "../support/app";
 import { createCommercialTender, honest, impossible } from "../support/comparison-fixtures";
 
 let db: Db;
@@ -19,13 +19,7 @@ const statement = { statement: "Every claim reviewed against the bounds and the 
 
 beforeAll(async () => {
   db = await freshDatabase();
-  for (const [key, email] of Object.entries({
-    engineer: "engineer@tarnwell.example",
-    director: "director@tarnwell.example",
-    buyer: "buyer@tarnwell.example",
-  })) {
-    as[key] = await signInAs(email);
-  }
+  Object.assign(as, await signInAll("engineer", "director", "buyer"));
 });
 afterAll(closeDb);
 

@@ -5,6 +5,7 @@ import os from "node:os";
 import path from "node:path";
 import { spawnSync } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { PRODUCTION_VARIABLES } from "../support/env";
 
 const root = path.resolve(import.meta.dirname, "../..");
 // Inside the project, so that the bundle finds node_modules as .next/ratecourt/start.mjs does.
@@ -51,17 +52,7 @@ describe("the starter", () => {
   it("refuses a production start without its settings, naming each one", () => {
     const { code, output } = start("start", { DATA_DIR: dataDir });
     expect(code).toBe(1);
-    for (const name of [
-      "BETTER_AUTH_SECRET",
-      "BETTER_AUTH_URL",
-      "LEDGER_KEY",
-      "SMTP_URL",
-      "MAIL_FROM",
-      "S3_ENDPOINT",
-      "S3_BUCKET",
-      "S3_ACCESS_KEY_ID",
-      "S3_SECRET_ACCESS_KEY",
-    ]) {
+    for (const name of PRODUCTION_VARIABLES) {
       expect(output).toContain(`${name}:`);
     }
     expect(output).toContain("DEMO=1");

@@ -13,7 +13,8 @@ import { startLocalServices, type LocalServices } from "@/lib/dev/services";
 import { clearCapturedMail, flushMail, listCapturedMail } from "@/lib/mail";
 import { verifyLedger } from "@/lib/server/ledger";
 import { closeDueTenders } from "@/lib/server/tenders";
-import { closeDb, freshDatabase, params, request, signInAs } from "../support/app";
+import { closeDb, freshDatabase, params, request, signInAll } from "../support/app";
+import { tenderInput } from "../support/tender-input";
 
 let db: Db;
 let services: LocalServices;
@@ -26,15 +27,7 @@ beforeAll(async () => {
   services = await startLocalServices({ dataDir, smtpPort: 0, s3Port: 0 });
   db = await freshDatabase();
   for (const o of await db.select().from(organisations)) org[o.name] = o.id;
-  for (const [key, email] of Object.entries({
-    buyer: "buyer@tarnwell.example",
-    engineer: "engineer@tarnwell.example",
-    approver: "approver@tarnwell.example",
-    admin: "admin@tarnwell.example",
-    kestrelink: "sales@kestrelink.example",
-    oxbow: "bids@oxbow.example",
-  }))
-    as[key] = await signInAs(email);
+  Object.assign(as, await signInAll("buyer", "engineer", "approver", "admin", "kestrelink", "oxbow"));
 });
 afterAll(async () => {
   await flushMail();
@@ -45,26 +38,8 @@ afterAll(async () => {
 beforeEach(() => clearCapturedMail());
 
 const inAWeek = () => new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10);
-const draftBody = (extra: Record<string, unknown> = {}) => ({
-  title: "Culvert sensor radios",
-  description: "Radios for culvert water-level sensors.",
-  channelModel: "bsc",
-  operatingPoints: [
-    { label: "Clear", value: 1e-3 },
-    { label: "Fade", value: 4e-3 },
-  ],
-  targetMetric: "bler",
-  targetValue: 1e-4,
-  maxFrameBits: 1024,
-  quantity: 250,
-  currency: "EUR",
-  weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
-  impossibleRule: "disqualify",
-  closesLocal: `${inAWeek()}T12:00`,
-  closesZone: "Europe/Berlin",
-  invitedOrgIds: [org["Kestrelink Radio"], org["Marram Telemetry"]],
-  ...extra,
-});
+const draftBody = (extra: Record<string, unknown> = {}) =>
+  tenderInput({ closesLocal: `${inAWeek()}T12:00`, invitedOrgIds: [org["Kestrelink Radio"], org["Marram Telemetry"]], ...extra });
 
 const post = (headers: Headers, body: unknown) => createPost(request("/api/v1/tenders", { method: "POST", headers, body }), undefined);
 const patch = (headers: Headers, id: string, body: unknown) =>
@@ -74,6 +49,17 @@ const cancel = (headers: Headers, id: string, body: unknown) =>
   cancelPost(request(`/api/v1/tenders/${id}/cancel`, { method: "POST", headers, body }), params({ id }));
 const get = (headers: Headers, id: string) => tenderGet(request(`/api/v1/tenders/${id}`, { headers }), params({ id }));
 const row = async (id: string) => (await db.select().from(tenders).where(eq(tenders.id, id)))[0];
+/** The mail sent so far about the tender with this reference, and who it went to. */
+const mailOf = async (reference: string) => {
+  await flushMail();
+  return listCapturedMail().filter((m) => m.subject.includes(reference));
+};
+const recipients = (mail: { to: string[] }[]) => mail.flatMap((m) => m.to).sort();
+const closingTimePassed = (id: string) =>
+  db
+    .update(tenders)
+    .set({ closesAt: new Date(Date.now() - 1000) })
+    .where(eq(tenders.id, id));
 const entries = (tenderId: string, action: string) =>
   db
     .select()
@@ -191,14 +177,8 @@ describe("opening a tender", () => {
     expect(stored.openedAt).toBeInstanceOf(Date);
     expect(await entries(id, "tender.opened")).toHaveLength(1);
 
-    await flushMail();
-    const mail = listCapturedMail().filter((m) => m.subject.includes(stored.reference));
-    expect(
-      mail
-        .map((m) => m.to)
-        .flat()
-        .sort(),
-    ).toEqual(["offers@marram.example", "sales@kestrelink.example"]);
+    const mail = await mailOf(stored.reference);
+    expect(recipients(mail)).toEqual(["offers@marram.example", "sales@kestrelink.example"]);
     expect(mail[0].subject).toContain("Culvert sensor radios");
     expect(mail[0].text).toContain("(Europe/Berlin)");
     expect(mail[0].text).toContain(`/tenders/${id}`);
@@ -266,14 +246,8 @@ describe("cancelling a tender", () => {
     const [entry] = await entries(id, "tender.cancelled");
     expect(entry.data).toMatchObject({ from: "open", reason: "The culvert programme was postponed a year." });
 
-    await flushMail();
-    const mail = listCapturedMail().filter((m) => m.subject.includes(stored.reference));
-    expect(
-      mail
-        .map((m) => m.to)
-        .flat()
-        .sort(),
-    ).toEqual(["buyer@tarnwell.example", "offers@marram.example", "sales@kestrelink.example"]);
+    const mail = await mailOf(stored.reference);
+    expect(recipients(mail)).toEqual(["buyer@tarnwell.example", "offers@marram.example", "sales@kestrelink.example"]);
     expect(mail[0].text).toContain("postponed a year");
     expect((await cancel(as.buyer, id, { reason: "Cancelling it a second time." })).status).toBe(409);
   });
@@ -285,10 +259,7 @@ describe("closing on time", () => {
     await open(as.buyer, id);
     const later = await createDraft();
     await open(as.buyer, later);
-    await db
-      .update(tenders)
-      .set({ closesAt: new Date(Date.now() - 1000) })
-      .where(eq(tenders.id, id));
+    await closingTimePassed(id);
 
     expect(await closeDueTenders(db)).toBe(1);
     expect((await row(id)).state).toBe("technical");
@@ -302,10 +273,7 @@ describe("closing on time", () => {
   it("closes on read: the list itself moves a tender whose time has come", async () => {
     const id = await createDraft();
     await open(as.buyer, id);
-    await db
-      .update(tenders)
-      .set({ closesAt: new Date(Date.now() - 1000) })
-      .where(eq(tenders.id, id));
+    await closingTimePassed(id);
     const list = await (await listGet(request("/api/v1/tenders?size=100", { headers: as.engineer }), undefined)).json();
     expect(list.tenders.find((t: { id: string }) => t.id === id)?.state).toBe("technical");
     expect(await entries(id, "tender.closed")).toHaveLength(1);
@@ -316,10 +284,7 @@ describe("closing on read of one tender", () => {
   it("closes a tender whose time has come when it alone is read, once, and then reads it closed", async () => {
     const id = await createDraft();
     await open(as.buyer, id);
-    await db
-      .update(tenders)
-      .set({ closesAt: new Date(Date.now() - 1000) })
-      .where(eq(tenders.id, id));
+    await closingTimePassed(id);
     const [first, second] = await Promise.all([get(as.engineer, id), get(as.buyer, id)]);
     expect((await first.json()).state).toBe("technical");
     expect((await second.json()).state).toBe("technical");

@@ -2,6 +2,9 @@ import { sql } from "drizzle-orm";
 import { closeDb, getDb } from "@/lib/server/database";
 import { seedDemoData, DEMO_PASSWORD } from "@/db/seed";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
+import { DEMO_ACCOUNTS, type DemoAccount } from "./accounts";
+
+export { DEMO_ACCOUNTS, type DemoAccount };
 
 export const BASE = process.env.BETTER_AUTH_URL ?? "http://localhost:3000";
 
@@ -34,6 +37,13 @@ export async function signInAs(email: string, password = DEMO_PASSWORD): Promise
     .map((c) => c.split(";")[0])
     .join("; ");
   return new Headers({ cookie, origin: BASE });
+}
+
+/** Signs in each demo account named: `signInAll("buyer", "oxbow")` gives `{ buyer: headers, oxbow: headers }`. */
+export async function signInAll<K extends DemoAccount>(...names: K[]): Promise<Record<K, Headers>> {
+  const out = {} as Record<K, Headers>;
+  for (const name of names) out[name] = await signInAs(DEMO_ACCOUNTS[name]);
+  return out;
 }
 
 /** A Request to a route handler, with the given session headers. */

@@ -1,7 +1,10 @@
+import { expect } from "vitest";
 import { and, eq, inArray } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { claims, offers, organisations, tenders, users } from "@/db/schema";
+import { claims, declarations, offers, organisations, tenders, users } from "@/db/schema";
+import { POST as declarePost } from "@/app/api/v1/tenders/[id]/declaration/route";
 import { evaluateClaim } from "@/lib/bounds";
+import { freshDatabase, params, request, signInAll, type DemoAccount } from "./app";
 
 export const VENDORS = ["kestrelink", "marram", "oxbow", "quillfield"] as const;
 export type VendorKey = (typeof VENDORS)[number];
@@ -105,4 +108,29 @@ export async function reviewFixtures(db: Db): Promise<ReviewFixtures> {
   >;
   const needs = rows.find((r) => r.claim.vendorOrgId === orgIds.marram && r.claim.verdict === "needs-evidence");
   return { tenderId: tender.id, orgIds, claimIds, evidenceClaimId: needs?.claim.id ?? claimIds.marram[0] };
+}
+
+/** The engineer declares no ties to any invited vendor on the tender, through the API, unless they already have. */
+export async function declareNoTies(db: Db, tenderId: string, headers: Headers, email = "engineer@tarnwell.example") {
+  const [user] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  const made = await db
+    .select({ id: declarations.id })
+    .from(declarations)
+    .where(and(eq(declarations.userId, user.id), eq(declarations.tenderId, tenderId)));
+  if (made.length > 0) return;
+  const body = { conflict: "none", statement: "No ties to any invited vendor." };
+  const declared = await declarePost(request(`/api/v1/tenders/${tenderId}/declaration`, { method: "POST", headers, body }), params({ id: tenderId }));
+  expect(declared.status).toBe(201);
+}
+
+/**
+ * A fresh demo database with the review fixtures, a session for the engineer and for each other
+ * demo account named, and the engineer's declaration on the fixture tender made.
+ */
+export async function declaredReviewBench(...others: DemoAccount[]) {
+  const db = await freshDatabase();
+  const fx = await reviewFixtures(db);
+  const as: Record<string, Headers> = await signInAll("engineer", ...others);
+  await declareNoTies(db, fx.tenderId, as.engineer);
+  return { db, fx, as };
 }

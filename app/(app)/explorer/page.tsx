@@ -9,6 +9,7 @@ import { pageViewer, orPage } from "@/lib/server/pages";
 import { authorize } from "@/lib/server/session";
 import { CURVE_METRICS, EXPLORER_DEFAULTS, explorerIssues, explorerSchema, paramText, type SearchParams } from "@/lib/validation/explorer";
 import { ExplorerForm, type ExplorerFormValues } from "./_components/explorer-form";
+import { InputIssues } from "./_components/input-issues";
 import { SensitivityPanel } from "./_components/sensitivity-panel";
 import { ClaimFindings, ClaimNumbers } from "@/app/_components/claim-numbers";
 
@@ -48,16 +49,7 @@ export default async function ExplorerPage({ searchParams }: { searchParams: Pro
         </p>
       </div>
       <ExplorerForm view={formValues(raw)} />
-      {!parsed.success ? (
-        <div role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
-          <p>This view cannot be judged until these are corrected:</p>
-          <ul className="list-disc pl-5">
-            {explorerIssues(parsed.error).map((m) => (
-              <li key={m}>{m}</li>
-            ))}
-          </ul>
-        </div>
-      ) : null}
+      {!parsed.success ? <InputIssues lead="This view cannot be judged until these are corrected:" issues={explorerIssues(parsed.error)} /> : null}
       {refusal !== undefined ? (
         <p role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
           {refusal}

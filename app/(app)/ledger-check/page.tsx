@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { DateTime } from "@/app/_components/date-time";
+import { TablePanel } from "@/app/_components/table-panel";
 import { recentFullChecks } from "@/lib/server/ledger-full-check";
 import { verifyWholeLedger } from "@/lib/server/ledger-verify";
 import { orPage, pageViewer } from "@/lib/server/pages";
@@ -36,40 +37,26 @@ export default async function LedgerCheckPage() {
         <h2>Full check</h2>
         <FullCheckRunner />
       </section>
-      <section className="panel overflow-x-auto" aria-label="Recent full checks">
-        <h2>Recent full checks</h2>
-        <table className="data-table mt-2">
-          <thead>
-            <tr>
-              <th>Started</th>
-              <th>By</th>
-              <th>Entries</th>
-              <th>Result</th>
-            </tr>
-          </thead>
-          <tbody>
-            {checks.map((c) => (
-              <tr key={c.id}>
-                <td className="whitespace-nowrap">
-                  <DateTime value={c.createdAt} />
-                </td>
-                <td>{c.startedByName}</td>
-                <td className="tabular-nums">
-                  {c.checked} of {c.total}
-                </td>
-                <td>{c.status === "running" ? "Not finished" : c.status === "intact" ? "Intact" : `Broken at entry #${c.brokenAt}: ${c.reason}`}</td>
-              </tr>
-            ))}
-            {checks.length === 0 ? (
-              <tr>
-                <td colSpan={4} className="text-ink-soft">
-                  No full check yet.
-                </td>
-              </tr>
-            ) : null}
-          </tbody>
-        </table>
-      </section>
+      <TablePanel
+        label="Recent full checks"
+        title="Recent full checks"
+        columns={["Started", "By", "Entries", "Result"]}
+        empty="No full check yet."
+        isEmpty={checks.length === 0}
+      >
+        {checks.map((c) => (
+          <tr key={c.id}>
+            <td className="whitespace-nowrap">
+              <DateTime value={c.createdAt} />
+            </td>
+            <td>{c.startedByName}</td>
+            <td className="tabular-nums">
+              {c.checked} of {c.total}
+            </td>
+            <td>{c.status === "running" ? "Not finished" : c.status === "intact" ? "Intact" : `Broken at entry #${c.brokenAt}: ${c.reason}`}</td>
+          </tr>
+        ))}
+      </TablePanel>
     </div>
   );
 }

@@ -4,6 +4,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { demoPackages, demoPackagesRefusal, missingDemoPackages } from "@/lib/dev/demo-packages";
 import { EnvError, parseEnv, productionProblems, productionRefusal } from "@/lib/env";
+import { PRODUCTION_VARIABLES } from "../../support/env";
 
 const production = { NODE_ENV: "production" } as const;
 const complete = {
@@ -30,17 +31,7 @@ describe("settings", () => {
 
   it("a production start names every missing variable", () => {
     const problems = productionProblems(parseEnv(production));
-    expect(problems.map((line) => line.split(":")[0])).toEqual([
-      "BETTER_AUTH_SECRET",
-      "BETTER_AUTH_URL",
-      "LEDGER_KEY",
-      "SMTP_URL",
-      "MAIL_FROM",
-      "S3_ENDPOINT",
-      "S3_BUCKET",
-      "S3_ACCESS_KEY_ID",
-      "S3_SECRET_ACCESS_KEY",
-    ]);
+    expect(problems.map((line) => line.split(":")[0])).toEqual(PRODUCTION_VARIABLES);
     expect(productionRefusal(problems)).toContain("DEMO=1");
   });
 

@@ -1,27 +1,15 @@
 import { describe, expect, it } from "vitest";
 import { fieldErrorsOf } from "@/lib/validation/messages";
 import { cancelTenderSchema, tenderInputSchema, tenderPatchSchema, weightsSchema } from "@/lib/validation/tender";
+import { tenderInput } from "../../support/tender-input";
 
-const valid = {
-  title: "Culvert sensor radios",
+const valid = tenderInput({
   description: "",
-  channelModel: "bsc",
-  operatingPoints: [
-    { label: "Clear", value: 1e-3 },
-    { label: "Fade", value: 5e-3 },
-  ],
-  targetMetric: "bler",
-  targetValue: 1e-4,
-  maxFrameBits: 2048,
-  quantity: 300,
   currency: "eur",
-  weights: { technical: 40, evidence: 15, price: 30, leadTime: 10, warranty: 5 },
-  impossibleRule: "disqualify",
   impossiblePenalty: 0,
-  closesLocal: "2027-05-03T12:00",
   closesZone: "Europe/London",
   invitedOrgIds: ["a", "b"],
-};
+});
 
 const errorsOf = (value: unknown) => {
   const parsed = tenderInputSchema.safeParse(value);

@@ -1,6 +1,7 @@
 import { sensitivityResult } from "@/lib/explorer";
 import { formatSci } from "@/lib/format";
 import { explorerIssues, paramText, sensitivitySchema, type SearchParams } from "@/lib/validation/explorer";
+import { InputIssues } from "./input-issues";
 import { SensitivityForm } from "./sensitivity-form";
 
 const dB = (x: number | null, unit: string) => (x === null ? "no limit" : `${x.toFixed(2)} ${unit}`);
@@ -25,15 +26,7 @@ export function SensitivityPanel({ raw }: { raw: SearchParams }) {
         which any code, modulation and bandwidth sends the payload at the PER.
       </p>
       <SensitivityForm values={values} />
-      {!parsed.success ? (
-        <div role="alert" className="rounded-md border border-verdict-impossible/40 px-3 py-2 text-sm text-verdict-impossible">
-          <ul className="list-disc pl-5">
-            {explorerIssues(parsed.error).map((m) => (
-              <li key={m}>{m}</li>
-            ))}
-          </ul>
-        </div>
-      ) : null}
+      {!parsed.success ? <InputIssues issues={explorerIssues(parsed.error)} /> : null}
       {r && parsed.success ? (
         <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[auto_1fr]" aria-label="Sensitivity result">
           <dt className="text-ink-soft">Input level and Eb/N0</dt>

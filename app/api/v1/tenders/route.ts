@@ -1,4 +1,4 @@
-import { jsonRoute, readJson, readQuery } from "@/lib/server/http";
+import { createRoute, jsonRoute, readQuery } from "@/lib/server/http";
 import { requireViewer } from "@/lib/server/session";
 import { createTender } from "@/lib/server/tender-lifecycle";
 import { listTenderViewPage } from "@/lib/server/tenders";
@@ -10,8 +10,4 @@ export const GET = jsonRoute(async (request) => {
   return listTenderViewPage(viewer, readQuery(request, tenderListQuerySchema));
 });
 
-export const POST = jsonRoute(async (request) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, tenderInputSchema);
-  return Response.json(await createTender(viewer, input), { status: 201 });
-});
+export const POST = createRoute(tenderInputSchema, createTender);

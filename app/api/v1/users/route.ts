@@ -1,4 +1,4 @@
-import { jsonRoute, readJson, readQuery } from "@/lib/server/http";
+import { createRoute, jsonRoute, readQuery } from "@/lib/server/http";
 import { createUser, listPeople } from "@/lib/server/people";
 import { requireViewer } from "@/lib/server/session";
 import { createUserSchema, peopleQuerySchema } from "@/lib/validation/people";
@@ -9,8 +9,4 @@ export const GET = jsonRoute(async (request) => {
   return listPeople(viewer, readQuery(request, peopleQuerySchema));
 });
 
-export const POST = jsonRoute(async (request) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, createUserSchema);
-  return Response.json(await createUser(viewer, input), { status: 201 });
-});
+export const POST = createRoute(createUserSchema, createUser);

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Cautions } from "@/app/_components/cautions";
 import { DateTime } from "@/app/_components/date-time";
+import { TablePanel } from "@/app/_components/table-panel";
 import { formatMoney } from "@/lib/format";
 import { formatScore } from "@/lib/approvals/score-sheet";
 import { getAwardSignOff } from "@/lib/server/award-sign-off";
@@ -141,36 +142,22 @@ export default async function SignOffPage({ params }: { params: Promise<{ id: st
         </section>
       ) : null}
 
-      <section className="panel overflow-x-auto" aria-label="Scores">
-        <h2>Scores at the time of the recommendation</h2>
-        <table className="data-table mt-2">
-          <thead>
-            <tr>
-              <th>Rank</th>
-              <th>Vendor</th>
-              <th className="text-right">Total</th>
-              <th>Note</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rec.standings.map((s) => (
-              <tr key={s.vendorName}>
-                <td className="tabular-nums">{s.rank ?? "–"}</td>
-                <td>{s.vendorName}</td>
-                <td className="text-right tabular-nums">{formatScore(s.total)}</td>
-                <td className="text-xs text-ink-soft">{s.flags.join("; ")}</td>
-              </tr>
-            ))}
-            {rec.standings.length === 0 ? (
-              <tr>
-                <td colSpan={4} className="text-ink-soft">
-                  No score sheet was recorded.
-                </td>
-              </tr>
-            ) : null}
-          </tbody>
-        </table>
-      </section>
+      <TablePanel
+        label="Scores"
+        title="Scores at the time of the recommendation"
+        columns={["Rank", "Vendor", { label: "Total", className: "text-right" }, "Note"]}
+        empty="No score sheet was recorded."
+        isEmpty={rec.standings.length === 0}
+      >
+        {rec.standings.map((s) => (
+          <tr key={s.vendorName}>
+            <td className="tabular-nums">{s.rank ?? "–"}</td>
+            <td>{s.vendorName}</td>
+            <td className="text-right tabular-nums">{formatScore(s.total)}</td>
+            <td className="text-xs text-ink-soft">{s.flags.join("; ")}</td>
+          </tr>
+        ))}
+      </TablePanel>
 
       <VerdictSummary offers={view.offers ?? []} />
 

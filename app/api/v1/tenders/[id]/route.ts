@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { requireViewer } from "@/lib/server/session";
 import { updateTender } from "@/lib/server/tender-lifecycle";
 import { getTenderView } from "@/lib/server/tenders";
@@ -8,8 +8,4 @@ type Context = { params: Promise<{ id: string }> };
 
 export const GET = jsonRoute(async (request, { params }: Context) => getTenderView(await requireViewer(request.headers), (await params).id));
 
-export const PATCH = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const patch = await readJson(request, tenderPatchSchema);
-  return updateTender(viewer, (await params).id, patch);
-});
+export const PATCH = recordRoute(tenderPatchSchema, updateTender);

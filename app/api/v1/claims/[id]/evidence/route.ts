@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listEvidence, recordEvidence } from "@/lib/server/evidence";
 import { requireViewer } from "@/lib/server/session";
 import { evidenceRunSchema } from "@/lib/validation/review";
@@ -9,8 +9,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => ({
   runs: await listEvidence(await requireViewer(request.headers), (await params).id),
 }));
 
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, evidenceRunSchema);
-  return Response.json(await recordEvidence(viewer, (await params).id, input), { status: 201 });
-});
+export const POST = recordRoute(evidenceRunSchema, recordEvidence, 201);

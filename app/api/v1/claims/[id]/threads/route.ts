@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listThreads, openThread } from "@/lib/server/threads";
 import { loadClaim } from "@/lib/server/review";
 import { requireViewer } from "@/lib/server/session";
@@ -12,8 +12,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => {
   return { threads: await listThreads(viewer, { claimId: claim.id }) };
 });
 
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, threadSchema);
-  return Response.json(await openThread(viewer, (await params).id, input), { status: 201 });
-});
+export const POST = recordRoute(threadSchema, openThread, 201);

@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listAddenda, publishAddendum } from "@/lib/server/addenda";
 import { requireViewer } from "@/lib/server/session";
 import { addendumSchema } from "@/lib/validation/notices";
@@ -7,8 +7,4 @@ type Context = { params: Promise<{ id: string }> };
 
 export const GET = jsonRoute(async (request, { params }: Context) => listAddenda(await requireViewer(request.headers), (await params).id));
 
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, addendumSchema);
-  return Response.json(await publishAddendum(viewer, (await params).id, input), { status: 201 });
-});
+export const POST = recordRoute(addendumSchema, publishAddendum, 201);

@@ -1,6 +1,6 @@
 import { decideRecommendation } from "@/lib/server/approvals";
 import { getAwardSignOff } from "@/lib/server/award-sign-off";
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { requireViewer } from "@/lib/server/session";
 import { decisionSchema } from "@/lib/validation/approvals";
 
@@ -10,8 +10,4 @@ type Context = { params: Promise<{ id: string }> };
 export const GET = jsonRoute(async (request, { params }: Context) => getAwardSignOff(await requireViewer(request.headers), (await params).id));
 
 /** { decision: "approve", comment? } or { decision: "return", comment }. */
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, decisionSchema);
-  return decideRecommendation(viewer, (await params).id, input);
-});
+export const POST = recordRoute(decisionSchema, decideRecommendation);

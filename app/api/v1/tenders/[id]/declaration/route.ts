@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { createDeclaration, getDeclaration } from "@/lib/server/declarations";
 import { requireViewer } from "@/lib/server/session";
 import { declarationSchema } from "@/lib/validation/review";
@@ -10,8 +10,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => ({
   declaration: await getDeclaration(await requireViewer(request.headers), (await params).id),
 }));
 
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, declarationSchema);
-  return Response.json(await createDeclaration(viewer, (await params).id, input), { status: 201 });
-});
+export const POST = recordRoute(declarationSchema, createDeclaration, 201);

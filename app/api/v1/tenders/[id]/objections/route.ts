@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listObjections, lodgeObjection } from "@/lib/server/objections";
 import { requireViewer } from "@/lib/server/session";
 import { objectionSchema } from "@/lib/validation/notices";
@@ -8,8 +8,4 @@ type Context = { params: Promise<{ id: string }> };
 /** The standstill period and the objections the viewer may read. */
 export const GET = jsonRoute(async (request, { params }: Context) => listObjections(await requireViewer(request.headers), (await params).id));
 
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, objectionSchema);
-  return Response.json(await lodgeObjection(viewer, (await params).id, input), { status: 201 });
-});
+export const POST = recordRoute(objectionSchema, lodgeObjection, 201);

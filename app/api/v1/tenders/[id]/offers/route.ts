@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listOffers, submitOffer } from "@/lib/server/offers";
 import { requireViewer } from "@/lib/server/session";
 import { offerSchema } from "@/lib/validation/offer";
@@ -9,8 +9,4 @@ type Context = { params: Promise<{ id: string }> };
 export const GET = jsonRoute(async (request, { params }: Context) => listOffers(await requireViewer(request.headers), (await params).id));
 
 /** Submits or resubmits the signed-in vendor's offer; answers with its claims and computed verdicts. */
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, offerSchema);
-  return Response.json(await submitOffer(viewer, (await params).id, input), { status: 201 });
-});
+export const POST = recordRoute(offerSchema, submitOffer, 201);

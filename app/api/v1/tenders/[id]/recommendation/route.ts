@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { listRecommendations, submitRecommendation } from "@/lib/server/recommendations";
 import { requireViewer } from "@/lib/server/session";
 import { recommendationSchema } from "@/lib/validation/comparison";
@@ -12,9 +12,4 @@ export const GET = jsonRoute(async (request, { params }: Context) => {
 });
 
 /** The buyer's recommendation: { offerId, quantity, value, justification }; 201 with the stored row. */
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, recommendationSchema);
-  const row = await submitRecommendation(viewer, (await params).id, input);
-  return Response.json(row, { status: 201 });
-});
+export const POST = recordRoute(recommendationSchema, submitRecommendation, 201);

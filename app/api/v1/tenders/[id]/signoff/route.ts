@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { getSignoffState, signTechnical } from "@/lib/server/signoff";
 import { requireViewer } from "@/lib/server/session";
 import { signoffSchema } from "@/lib/validation/review";
@@ -7,8 +7,4 @@ type Context = { params: Promise<{ id: string }> };
 
 export const GET = jsonRoute(async (request, { params }: Context) => getSignoffState(await requireViewer(request.headers), (await params).id));
 
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, signoffSchema);
-  return Response.json(await signTechnical(viewer, (await params).id, input), { status: 201 });
-});
+export const POST = recordRoute(signoffSchema, signTechnical, 201);

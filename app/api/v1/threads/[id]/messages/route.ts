@@ -1,4 +1,4 @@
-import { jsonRoute, readJson } from "@/lib/server/http";
+import { jsonRoute, recordRoute } from "@/lib/server/http";
 import { getThread, postMessage } from "@/lib/server/threads";
 import { requireViewer } from "@/lib/server/session";
 import { messageSchema } from "@/lib/validation/review";
@@ -7,8 +7,4 @@ type Context = { params: Promise<{ id: string }> };
 
 export const GET = jsonRoute(async (request, { params }: Context) => getThread(await requireViewer(request.headers), (await params).id));
 
-export const POST = jsonRoute(async (request, { params }: Context) => {
-  const viewer = await requireViewer(request.headers);
-  const input = await readJson(request, messageSchema);
-  return Response.json(await postMessage(viewer, (await params).id, input), { status: 201 });
-});
+export const POST = recordRoute(messageSchema, postMessage, 201);
