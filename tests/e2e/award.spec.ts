@@ -59,6 +59,9 @@ async function decide(page: Page, button: "Approve" | "Return to the buyer", com
 }
 
 test("two approvers sign the high-value award after a return and a resubmission", async ({ browser }) => {
+  // Three people, a dozen page loads and the memo rendered on the last approval: it takes most of
+  // the default 90 s on an unloaded machine.
+  test.setTimeout(180_000);
   const buyer = await as(browser, ACCOUNTS.buyer);
   tenderId = await journeyTenderId(buyer.request, "award");
   expect(await tenderState(buyer.request)).toBe("approval");

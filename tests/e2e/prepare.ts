@@ -23,9 +23,14 @@ import { AWARD_VALUE, AWARD_VALUE_REASON, JOURNEY_TENDERS, type Journey } from "
 
 const NO_TIES = "I have no financial, family or employment ties to any invited vendor.";
 
+/** A person declares no conflict of interest on the tender. */
+async function declare(db: Db, userId: string, tenderId: string) {
+  await createDeclaration(await viewerOf(db, userId), tenderId, { conflict: "none", conflictedOrgIds: [], statement: NO_TIES });
+}
+
 /** Technical evaluation to commercial: the engineer declares, gives every claim a final mark and signs. */
 async function signTechnically(db: Db, ctx: DemoContext, tenderId: string) {
-  await createDeclaration(await viewerOf(db, ctx.userIds.engineer), tenderId, { conflict: "none", conflictedOrgIds: [], statement: NO_TIES });
+  await declare(db, ctx.userIds.engineer, tenderId);
   const engineer = await viewerOf(db, ctx.userIds.engineer);
   const current = await db
     .select({ id: claims.id, verdict: claims.verdict })
@@ -55,17 +60,15 @@ async function recommend(db: Db, ctx: DemoContext, tenderId: string) {
     value: AWARD_VALUE,
     valueReason: AWARD_VALUE_REASON,
     justification: "Best total score with honest claims at both operating points; installation and five years of support included.",
-  } as Parameters<typeof submitRecommendation>[2]);
+  });
 }
 
-/** Approval to award: both approvers declare and approve; the last approval issues the memo. */
+/** Approval to award: both approvers approve; the last approval issues the memo. */
 async function award(db: Db, ctx: DemoContext, tenderId: string) {
-  for (const key of ["approver", "director"]) {
-    // The director declared with the copy of the demo review.
-    if (key === "approver")
-      await createDeclaration(await viewerOf(db, ctx.userIds[key]), tenderId, { conflict: "none", conflictedOrgIds: [], statement: NO_TIES });
+  // The director declared with the copy of the demo review; Helen Strand declares first.
+  await declare(db, ctx.userIds.approver, tenderId);
+  for (const key of ["approver", "director"])
     await decideRecommendation(await viewerOf(db, ctx.userIds[key]), tenderId, { decision: "approve", comment: "Within the budget line for gauges." });
-  }
 }
 
 /** How far each journey's tender goes before its journey starts. */
