@@ -10,9 +10,9 @@ import { appendLedger } from "@/lib/server/ledger";
  * The demo review: the director (who also holds the engineer role) declares no conflict on the
  * gauges tender and records one lab run on Marram Telemetry's claim that needs evidence. The demo
  * engineer stays undeclared, so the demo shows the declaration step. Nothing happens without that claim.
+ * The browser tests' copies of the gauges tender get the same (tests/e2e/prepare.ts).
  */
-export async function seedDemoReview(tx: Queryable, ctx: DemoContext): Promise<void> {
-  const tenderId = ctx.tenderIds.gauges;
+export async function seedDemoReview(tx: Queryable, ctx: DemoContext, tenderId = ctx.tenderIds.gauges): Promise<void> {
   const rows = await tx
     .select({ claim: claims, channelModel: tenders.channelModel })
     .from(claims)

@@ -5,13 +5,13 @@
 // (ids, hashes and timestamps differ). Everything here is invented: no real company, person or figure.
 import { and, asc, count, eq, inArray, notLike } from "drizzle-orm";
 import type { PgTable } from "drizzle-orm/pg-core";
-import { defineAbilityFor } from "@/policies";
 import type { Db, Queryable } from "./client";
 import { getDb } from "@/lib/server/database";
 import { claims, declarations, marks, offers, organisations, tenderInvitations, tenders, threadMessages, threads, users, type RoleName } from "./schema";
 import type { ChannelModel, OperatingPoint, ScoringWeights, TenderState } from "./schema/tenders";
 import type { MarkKind } from "./schema/evaluation";
 import { DEMO_PASSWORD, seedDemoData } from "./seed";
+import { viewerOf } from "./seed-viewer";
 import { evaluateClaim, type ClaimResult } from "@/lib/bounds";
 import { evaluatedClaim, prepareOffer } from "@/lib/offers";
 import { assessRun, unitForMetric } from "@/lib/review/evidence";
@@ -23,7 +23,7 @@ import { insertEvidenceRun } from "@/lib/server/evidence-runs";
 import { appendLedger, appendLedgerMany, type LedgerInput } from "@/lib/server/ledger";
 import { checkpointNow } from "@/lib/server/ledger-anchors";
 import { writeOfferVersion } from "@/lib/server/offer-versions";
-import { actorOf, insertUser, loadUser } from "@/lib/server/people-store";
+import { insertUser } from "@/lib/server/people-store";
 import { submitRecommendation } from "@/lib/server/recommendations";
 import type { Viewer } from "@/lib/server/session";
 import { signTechnical } from "@/lib/server/signoff";
@@ -248,14 +248,6 @@ const STATE_SHARES: [TenderState, number][] = [
 
 const DAY = 86_400_000;
 const HOUR = 3_600_000;
-
-/** The viewer a person would be in a request: roles and declarations read from the database now. */
-async function viewerOf(db: Queryable, userId: string): Promise<Viewer> {
-  const user = await loadUser(db, userId);
-  if (!user) throw new Error(`no user ${userId}`);
-  const actor = actorOf(user);
-  return { actor, ability: defineAbilityFor(actor), name: user.name, email: user.email, organisationName: user.organisation.name };
-}
 
 interface Person {
   id: string;

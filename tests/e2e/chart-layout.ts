@@ -32,6 +32,20 @@ export async function expectChartsApart(page: Page, scope: Locator) {
   void page;
 }
 
+/** Waits until every chart in `scope` has redrawn at its container's width, as it does after the viewport changes. */
+export async function chartsFollowTheirWidth(scope: Locator) {
+  await expect
+    .poll(() =>
+      scope.locator(".recharts-responsive-container").evaluateAll((boxes) =>
+        boxes.every((box) => {
+          const svg = box.querySelector("svg.recharts-surface");
+          return svg !== null && Math.abs(svg.getBoundingClientRect().width - box.getBoundingClientRect().width) <= 1;
+        }),
+      ),
+    )
+    .toBe(true);
+}
+
 /** The two widths the house style is checked at: a desktop and a phone. */
 export const WIDTHS = [
   { name: "1440", width: 1440, height: 900 },

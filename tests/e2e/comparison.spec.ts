@@ -1,10 +1,12 @@
 import { readFile } from "node:fs/promises";
 import { expect, test, type Page } from "@playwright/test";
 import { ACCOUNTS, confirmStep, signIn } from "./helpers";
+import { AWARD_VALUE, AWARD_VALUE_REASON, JOURNEY_TENDERS } from "./journey-tenders";
 
-// Starting state (arranged before this spec): the tender below is in commercial evaluation, its
-// technical evaluation signed, its envelopes still sealed, with at least two offers in the ranking.
-const REFERENCE = process.env.E2E_COMMERCIAL_TENDER ?? "RC-2027-001";
+// Starting state (written by prepare.ts before the server starts): the tender below, a copy of the
+// demo gauges tender, is in commercial evaluation, its technical evaluation signed, its envelopes
+// still sealed, with at least two offers in the ranking.
+const REFERENCE = process.env.E2E_COMMERCIAL_TENDER ?? JOURNEY_TENDERS.comparison.reference;
 
 /** The grid's rows in display order, each as { col-id: text }, merging the pinned and scrolling parts of a row. */
 async function gridRows(page: Page): Promise<Record<string, string>[]> {
@@ -118,11 +120,11 @@ test("a buyer opens the envelopes, sorts, exports, tries other weights and recom
   const form = page.getByRole("form", { name: "Recommend an award" });
   await expect(form.getByLabel(/Award value/)).not.toHaveValue("");
   await expect(form.getByLabel(/Award value/)).not.toHaveValue("0");
-  // 4,000 radios with installation and support: 250,000 EUR, the band that needs two approvals (the award journey goes on from here).
-  await form.getByLabel(/Award value/).fill("250000");
+  // 4,000 radios with installation and support: 250,000 EUR, the band that needs two approvals.
+  await form.getByLabel(/Award value/).fill(String(AWARD_VALUE));
   // A value other than the offer's prices give needs a stated reason, shown beside the computed one.
   await expect(form.getByText(/The offer's prices give €/)).toBeVisible();
-  await form.getByLabel("Why the award value differs from the offer's prices").fill("Installation at every gauge site and five years of support.");
+  await form.getByLabel("Why the award value differs from the offer's prices").fill(AWARD_VALUE_REASON);
   await form.getByLabel("Justification").fill("Highest total score; plausible at both operating points, lab evidence on file and a short lead time.");
   await form.getByRole("button", { name: "Submit recommendation" }).click();
   // The tender moves to approval: the page shows the new state (the form's own notice goes with the form).

@@ -1,14 +1,15 @@
 import { expect, test } from "@playwright/test";
-import { gaugesTenderId, json, pageAs, tenderState } from "./gauges";
+import { journeyTenderId, json, pageAs, tenderState } from "./journey";
 import { ACCOUNTS, confirmStep } from "./helpers";
+import { AWARD_VALUE_REASON } from "./journey-tenders";
 
-// Approvals that cannot deadlock, on the demo gauges tender. Starting state: the comparison
-// journey left its 250,000 EUR recommendation awaiting approval (Helen Strand's limit is
-// 250,000 EUR, Tomas Veld's 2,000,000 EUR; the band from 250,000 EUR needs two approvals).
-// It ends with a 250,000 EUR recommendation in approval again, for the award journey.
+// Approvals that cannot deadlock, on a copy of the demo gauges tender of its own (RC-E2E-DEADLOCK).
+// Starting state (written by prepare.ts): envelopes open and a 250,000 EUR recommendation of the
+// top offer awaiting approval (Helen Strand's limit is 250,000 EUR, Tomas Veld's 2,000,000 EUR;
+// the band from 250,000 EUR needs two approvals). It ends with a 250,000 EUR recommendation in approval again.
 test("the buyer withdraws a recommendation, one nobody can approve is refused with the reason, and a coverable one goes through", async ({ browser }) => {
   const buyer = await pageAs(browser, ACCOUNTS.buyer);
-  const tenderId = await gaugesTenderId(buyer.request);
+  const tenderId = await journeyTenderId(buyer.request, "deadlock");
   expect(await tenderState(buyer.request, tenderId)).toBe("approval");
 
   // Nobody strands the pending recommendation: Tomas Veld cannot be deactivated while it needs him.
@@ -36,7 +37,7 @@ test("the buyer withdraws a recommendation, one nobody can approve is refused wi
   await buyer.goto(`/tenders/${tenderId}/comparison`);
   const form = buyer.getByRole("form", { name: "Recommend an award" });
   await form.getByLabel(/Award value/).fill("300000");
-  await form.getByLabel("Why the award value differs from the offer's prices").fill("Installation at every gauge site and five years of support.");
+  await form.getByLabel("Why the award value differs from the offer's prices").fill(AWARD_VALUE_REASON);
   await form.getByLabel("Justification").fill("Highest total score; plausible at both operating points and a short lead time.");
   await form.getByRole("button", { name: "Submit recommendation" }).click();
   await expect(form.getByRole("alert")).toContainText("needs 2 approvals from different approvers with a limit of at least €300,000.00");

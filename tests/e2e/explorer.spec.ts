@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { ACCOUNTS, signIn } from "./helpers";
-import { expectChartsApart, WIDTHS } from "./chart-layout";
+import { chartsFollowTheirWidth, expectChartsApart, WIDTHS } from "./chart-layout";
 
 test("the Bound explorer keeps its view in the address and judges the point", async ({ page }) => {
   await signIn(page, ACCOUNTS.engineer);
@@ -66,7 +66,7 @@ test("the explorer overlays a typed vendor curve, keeps it in the address, and i
 
   for (const w of WIDTHS) {
     await page.setViewportSize({ width: w.width, height: w.height });
-    await page.waitForTimeout(300); // the charts follow their container's new width
+    await chartsFollowTheirWidth(page.getByRole("main"));
     await expectChartsApart(page, page.getByRole("main"));
     await chart.screenshot({ path: `test-results/charts/explorer-${w.name}.png` });
   }

@@ -1,11 +1,13 @@
 import { expect, test } from "@playwright/test";
 import { ACCOUNTS, nav, signIn } from "./helpers";
+import { JOURNEY_TENDERS } from "./journey-tenders";
 
-// After the award journey: the memo's ledger head on Memo check, the tender's Ledger tab, and the
-// admin's full check with its progress.
+// An awarded tender of its own (RC-E2E-LEDGER, a copy of the demo gauges tender that prepare.ts
+// takes through both approvals, so its memo is issued before the server starts): the memo's ledger
+// head on Memo check, the tender's Ledger tab, and the admin's full check with its progress.
 test.describe.configure({ mode: "serial" });
 
-const REFERENCE = "RC-2027-001";
+const { reference: REFERENCE } = JOURNEY_TENDERS.ledger;
 
 test("Memo check names the ledger head the memo was issued at, still in the verified chain", async ({ page, request }) => {
   await signIn(page, ACCOUNTS.buyer);

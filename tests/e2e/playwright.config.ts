@@ -9,27 +9,10 @@ const dataDir = path.join(root, ".data", "e2e");
 export default defineConfig({
   testDir: import.meta.dirname,
   testMatch: "**/*.spec.ts",
-  // One demo database for the whole run: the tender journey goes review -> comparison -> award
-  // on the gauges tender, in that order; the other journeys use their own tenders.
-  projects: [
-    {
-      name: "pages",
-      testMatch: [
-        "foundation.spec.ts",
-        "explorer.spec.ts",
-        "tender-draft.spec.ts",
-        "offer.spec.ts",
-        "sensitivity.spec.ts",
-        "runtime.spec.ts",
-        "accessibility.spec.ts",
-      ],
-    },
-    { name: "review", testMatch: "review.spec.ts", dependencies: ["pages"] },
-    { name: "comparison", testMatch: "comparison.spec.ts", dependencies: ["review"] },
-    { name: "deadlock", testMatch: "deadlock.spec.ts", dependencies: ["comparison"] },
-    { name: "award", testMatch: "award.spec.ts", dependencies: ["deadlock"] },
-    { name: "ledger", testMatch: "ledger-check.spec.ts", dependencies: ["award"] },
-  ],
+  // One database for the whole run: the demo data, read by the page journeys, and one tender per
+  // tender journey (review, comparison, deadlock, award, ledger check), each written in that
+  // journey's starting state by prepare.ts before the server starts. No journey waits for another,
+  // so a failure in one cannot skip or break the next.
   workers: 1,
   fullyParallel: false,
   retries: process.env.CI ? 1 : 0,
@@ -56,9 +39,10 @@ export default defineConfig({
     },
   },
   webServer: {
-    // Browser tests run against a production build on a fresh demo database of their own.
+    // Browser tests run against a production build on a fresh demo database of their own, with the
+    // journeys' tenders written into it (and the database closed) before the server takes the folder.
     // E2E_SKIP_BUILD=1 reuses the last build while iterating on the specs alone.
-    command: `rm -rf "${dataDir}" && ${process.env.E2E_SKIP_BUILD ? "" : "npm run build && "}npm start`,
+    command: `rm -rf "${dataDir}" && ${process.env.E2E_SKIP_BUILD ? "" : "npm run build && "}npx tsx --conditions=react-server tests/e2e/prepare.ts && npm start`,
     cwd: root,
     url: `${baseURL}/sign-in`,
     timeout: 600_000,

@@ -1,13 +1,17 @@
 import { expect, test, type Page } from "@playwright/test";
 import { ACCOUNTS, signIn, signOut, confirmStep } from "./helpers";
-import { expectChartsApart, WIDTHS } from "./chart-layout";
+import { chartsFollowTheirWidth, expectChartsApart, WIDTHS } from "./chart-layout";
+import { JOURNEY_TENDERS } from "./journey-tenders";
 
-// One journey through the technical evaluation of the gauges tender (RC-2027-001), in order:
+// One journey through the technical evaluation of a copy of the demo gauges tender of its own
+// (RC-E2E-REVIEW, written by prepare.ts as the demo has the original: four offers, one claim beyond
+// capacity and one needing evidence, in technical evaluation, the engineer not yet declared), in order:
 // the engineer declares, reviews, records a lab run at a milder channel (it does not verify) and
 // one at the claim's, asks a question, cannot sign while it waits, the vendor answers, the engineer
 // gives every claim a final mark and signs; the admin finds the e-mails in the Mailroom.
 test.describe.configure({ mode: "serial" });
 
+const { reference: REFERENCE } = JOURNEY_TENDERS.review;
 let tenderPath = "";
 
 /** Accepts the claim, or rejects it when the engine found it impossible, unless it already has a final mark. */
@@ -32,7 +36,7 @@ async function markIfNotFinal(page: Page, href: string) {
 test("the engineer declares no conflict and sees the verdict badges", async ({ page }) => {
   await signIn(page, ACCOUNTS.engineer);
   await page.goto("/review");
-  const declare = page.getByRole("link", { name: "Declare to review RC-2027-001" });
+  const declare = page.getByRole("link", { name: `Declare to review ${REFERENCE}` });
   await expect(declare).toBeVisible();
   const href = await declare.getAttribute("href");
   tenderPath = href!.replace(/\/review$/, "");
@@ -82,7 +86,7 @@ test("the engineer records a lab run and asks Marram a question", async ({ page 
   // The claim's charts keep titles, marker-line labels and key apart, on a desktop and a phone.
   for (const w of WIDTHS) {
     await page.setViewportSize({ width: w.width, height: w.height });
-    await page.waitForTimeout(300);
+    await chartsFollowTheirWidth(page.getByRole("region", { name: "Charts" }));
     await expectChartsApart(page, page.getByRole("region", { name: "Charts" }));
     await page.getByRole("region", { name: "Charts" }).screenshot({ path: `test-results/charts/claim-${w.name}.png` });
   }
@@ -154,6 +158,7 @@ test("the admin finds the thread and sign-off e-mails in the Mailroom", async ({
   await page.goto("/mailroom?subject=Decoder+iterations");
   await expect(page.getByRole("listitem", { name: /question from the evaluators: Decoder iterations/ }).first()).toBeVisible();
   await expect(page.getByRole("listitem", { name: /vendor answer: Decoder iterations/ }).first()).toBeVisible();
-  await page.goto("/mailroom?subject=technical+evaluation+signed");
-  await expect(page.getByRole("listitem", { name: /technical evaluation signed/ }).first()).toBeVisible();
+  // Other tenders were signed before the server started: this tender's reference picks its own message.
+  await page.goto(`/mailroom?subject=${encodeURIComponent(`${REFERENCE}: technical evaluation signed`)}`);
+  await expect(page.getByRole("listitem", { name: new RegExp(`${REFERENCE}: technical evaluation signed`) }).first()).toBeVisible();
 });

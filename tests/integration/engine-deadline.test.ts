@@ -47,18 +47,18 @@ const evaluate = (body: unknown) => evaluatePost(request("/api/v1/evaluate", { m
 describe("POST /api/v1/evaluate past the deadline", () => {
   it("answers 422 naming the claim, in time, while other requests are served", async () => {
     await slowEngine();
-    const started = performance.now();
-    const slow = evaluate(stuck);
+    let answered = false;
+    const slow = evaluate(stuck).finally(() => (answered = true));
+    // Another request is served while the claim still spins: the engine does not hold the thread.
     const me = await meGet(request("/api/v1/me", { headers: as.engineer }), undefined);
     expect(me.status).toBe(200);
-    const meAt = performance.now() - started;
+    expect(answered).toBe(false);
+    // The deadline ends it: without one the claim would spin for ENGINE_TEST_DELAY_MS (ten minutes).
     const response = await slow;
     expect(response.status).toBe(422);
     const { error } = await response.json();
     expect(error).toMatch(/did not finish this claim \(BI-AWGN, net coding gain -20 dB; n = 2048, rate 0.5; BLER 1e-10\) within 1.5 s/);
     expect(error).toMatch(/check its values/);
-    expect(meAt).toBeLessThan(1000);
-    expect(performance.now() - started).toBeLessThan(6000);
   });
 
   it("names the position of the claim in a batch", async () => {

@@ -85,20 +85,36 @@ describe("queueMail", () => {
 
   it("neither throws nor blocks when the server is unreachable, retries with backoff, then gives up", async () => {
     recordLocalEndpoints({ smtpUrl: await closedPortUrl() });
-    const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
-
-    const before = performance.now();
-    expect(() => queueMail({ to: "v@example.test", subject: "Regret notice", text: "x" }, { attempts: 3, backoffMs: 100 })).not.toThrow();
-    // It returned before its first attempt even failed: sending never holds up the action.
-    expect(warn).not.toHaveBeenCalled();
-
-    await flushMail();
-    // Waited 100 ms, then 200 ms between the three attempts.
-    expect(performance.now() - before).toBeGreaterThanOrEqual(290);
-    const messages = warn.mock.calls.map((call) => String(call[0]));
+    // Each failed attempt says so: the test waits for those words, not for the clock.
+    const messages: string[] = [];
+    let heard = () => {};
+    const warn = vi.spyOn(console, "warn").mockImplementation((message: unknown) => {
+      messages.push(String(message));
+      heard();
+    });
+    const nextWarning = () => new Promise<void>((resolve) => (heard = resolve));
+    // The backoff's waits run on a fake clock; the refused connections stay real.
+    vi.useFakeTimers({ toFake: ["setTimeout"] });
+    try {
+      const failed = nextWarning();
+      expect(() => queueMail({ to: "v@example.test", subject: "Regret notice", text: "x" }, { attempts: 3, backoffMs: 100 })).not.toThrow();
+      // It returned before its first attempt even failed: sending never holds up the action.
+      expect(warn).not.toHaveBeenCalled();
+      await failed;
+      // No next attempt until the wait has passed, then one; the wait doubles each time.
+      for (const [i, wait] of [100, 200].entries()) {
+        expect(messages[i]).toMatch(new RegExp(`attempt ${i + 1}/3.*retrying in ${wait} ms`));
+        const next = nextWarning();
+        await vi.advanceTimersByTimeAsync(wait - 1);
+        expect(messages).toHaveLength(i + 1);
+        await vi.advanceTimersByTimeAsync(1);
+        await next;
+      }
+      await flushMail();
+    } finally {
+      vi.useRealTimers();
+    }
     expect(messages).toHaveLength(3);
-    expect(messages[0]).toMatch(/attempt 1\/3.*retrying in 100 ms/);
-    expect(messages[1]).toMatch(/attempt 2\/3.*retrying in 200 ms/);
     expect(messages[2]).toMatch(/gave up on "Regret notice" after 3 attempt/);
     expect(listCapturedMail()).toHaveLength(0);
   });

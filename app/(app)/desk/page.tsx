@@ -26,7 +26,7 @@ export default async function DeskPage() {
             <ul className="mt-2 divide-y divide-ink-faint/15">
               {section.tenders.map((t) => (
                 <li key={t.id} className="py-2 text-sm">
-                  <div className="flex items-center gap-3">
+                  <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
                     <span className="w-28 font-mono text-xs text-ink-soft">{t.reference}</span>
                     <Link href={`/tenders/${t.id}${section.tab ? `/${section.tab}` : ""}`} className="flex-1">
                       {t.title}

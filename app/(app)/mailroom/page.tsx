@@ -48,7 +48,7 @@ export default async function MailroomPage({ searchParams }: { searchParams: Sea
                 <DateTime value={m.receivedAt} />
               </span>
             </div>
-            <pre className="mt-2 whitespace-pre-wrap font-sans text-sm text-ink">{m.text}</pre>
+            <pre className="mt-2 whitespace-pre-wrap font-sans text-sm text-ink [overflow-wrap:anywhere]">{m.text}</pre>
           </li>
         ))}
       </ul>

@@ -1,8 +1,9 @@
-// Shared by the journeys on the demo gauges tender (RC-2027-001) after its comparison.
+// Shared by the journeys that act on a tender of their own (journey-tenders.ts, written by prepare.ts).
 import type { APIRequestContext, Browser, Page } from "@playwright/test";
 import { signIn } from "./helpers";
+import { JOURNEY_TENDERS, type Journey } from "./journey-tenders";
 
-export const REFERENCE = "RC-2027-001";
+export { JOURNEY_TENDERS } from "./journey-tenders";
 
 /** A signed-in page of its own (own cookies), so several people can act side by side. */
 export async function pageAs(browser: Browser, email: string): Promise<Page> {
@@ -20,9 +21,13 @@ export async function json(api: APIRequestContext, method: "get" | "post", url: 
   return { status: response.status(), body: await response.json().catch(() => null) };
 }
 
-export async function gaugesTenderId(api: APIRequestContext): Promise<string> {
-  const list = (await json(api, "get", `/api/v1/tenders?q=${REFERENCE}`)).body;
-  return list.tenders.find((t: { reference: string }) => t.reference === REFERENCE).id;
+/** The id of a journey's own tender, found by its reference as the signed-in person reads the list. */
+export async function journeyTenderId(api: APIRequestContext, journey: Journey): Promise<string> {
+  const { reference } = JOURNEY_TENDERS[journey];
+  const list = (await json(api, "get", `/api/v1/tenders?q=${reference}`)).body;
+  const found = list.tenders.find((t: { reference: string }) => t.reference === reference);
+  if (!found) throw new Error(`${reference} is missing: tests/e2e/prepare.ts writes it before the server starts`);
+  return found.id;
 }
 
 export async function tenderState(api: APIRequestContext, tenderId: string): Promise<string> {
