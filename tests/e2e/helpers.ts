@@ -2,17 +2,7 @@ import { expect, type Page } from "@playwright/test";
 
 export const PASSWORD = "ratecourt-demo";
 
-export const ACCOUNTS = {
-  admin: "admin@tarnwell.example",
-  buyer: "buyer@tarnwell.example",
-  engineer: "engineer@tarnwell.example",
-  approver: "approver@tarnwell.example",
-  director: "director@tarnwell.example",
-  kestrelink: "sales@kestrelink.example",
-  marram: "offers@marram.example",
-  oxbow: "bids@oxbow.example",
-  quillfield: "tenders@quillfield.example",
-} as const;
+export { DEMO_ACCOUNTS as ACCOUNTS } from "../support/accounts";
 
 export async function signIn(page: Page, email: string, password = PASSWORD) {
   await page.goto("/sign-in");
