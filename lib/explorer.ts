@@ -1,5 +1,6 @@
 import type { CurveMetric, SensitivityView } from "@/lib/validation/explorer";
 import {
+  channelAt,
   channelCurve,
   ebn0ToEsn0,
   ebn0ToSensitivityDbm,
@@ -45,8 +46,6 @@ export interface BoundCharts {
   vendorCurve: VendorCurvePoint[];
 }
 
-const channelOf = (model: ChannelModel, x: number) => (model === "bsc" ? { model, p: x } : model === "bec" ? { model, e: x } : { model, ebn0Db: x });
-
 /** The waterfall of the bounds, widened where needed so that the claim's own channel (and any vendor curve) is on the chart. */
 function channelCurveAround(view: BoundView): ChannelCurvePoint[] {
   const base = { model: view.model, n: view.n, k: view.k, points: 48 };
@@ -64,7 +63,7 @@ function channelCurveAround(view: BoundView): ChannelCurvePoint[] {
 /** Everything the bound charts plot for one code and channel: the verdict, BLER against the channel, best rate against n. */
 export function buildBoundCharts(view: BoundView): BoundCharts {
   const result = evaluateClaim({
-    channel: channelOf(view.model, view.x),
+    channel: channelAt(view.model, view.x),
     code: { n: view.n, k: view.k },
     target: { metric: "bler", value: view.target },
   } as Parameters<typeof evaluateClaim>[0]);

@@ -1,7 +1,7 @@
 // The claim contract shared by the CLI and the HTTP API: zod schemas, inferred types, messages.
 import { z } from "zod";
 import { THERMAL_DBM_PER_HZ } from "./thermal";
-import { channelModelList } from "./vocabulary";
+import { channelModelList, type ChannelModel } from "./vocabulary";
 
 export const MAX_N = 10_000_000;
 
@@ -144,6 +144,10 @@ export const claimSchema = z
   });
 
 export type ClaimInput = z.infer<typeof claimSchema>;
+
+/** A channel stated by its model's own parameter: p (BSC), e (BEC) or Eb/N0 in dB (BI-AWGN). */
+export const channelAt = (model: ChannelModel, x: number): ClaimInput["channel"] =>
+  model === "bsc" ? { model, p: x } : model === "bec" ? { model, e: x } : { model, ebn0Db: x };
 
 export { claimResultSchema, type ClaimResult } from "./result";
 

@@ -1,5 +1,5 @@
 // Maps an offer's code and one claim, at one operating point of its tender, to the engine's claim input.
-import type { ClaimInput, ClaimResult } from "@/lib/bounds";
+import { channelAt, type ClaimInput, type ClaimResult } from "@/lib/bounds";
 
 import type { ChannelModel } from "@/lib/bounds/vocabulary";
 export type { ChannelModel };
@@ -49,9 +49,7 @@ export function claimInputFor(model: ChannelModel, pointValue: number, code: Off
       target: { metric: "ber", value: claim.ncgOutputBer ?? Number.NaN },
     };
   }
-  const channel: ClaimInput["channel"] =
-    model === "bsc" ? { model, p: pointValue } : model === "bec" ? { model, e: pointValue } : { model, ebn0Db: pointValue };
-  return { channel, code: engine, target: { metric: claim.metric, value: claim.value } };
+  return { channel: channelAt(model, pointValue), code: engine, target: { metric: claim.metric, value: claim.value } };
 }
 
 /**
