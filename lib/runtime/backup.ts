@@ -6,7 +6,7 @@ import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import type { PGliteInterface } from "@electric-sql/pglite";
-import { ensurePrivateFolder } from "./data-lock";
+import { ensureParentFolder, ensurePrivateFolder } from "./data-lock";
 
 export const BACKUP_FORMAT = "ratecourt-backup/1";
 const DATABASE_FILE = "database.tar.gz";
@@ -52,7 +52,7 @@ export async function writeBackup(options: { pg: PGliteInterface; dataDir: strin
   if (!path.relative(path.resolve(dataDir), path.resolve(target)).startsWith("..")) {
     throw new BackupError(`${target} is inside the data folder ${dataDir}: keep backups outside it (BACKUP_DIR).`);
   }
-  ensurePrivateFolder(path.dirname(target));
+  ensureParentFolder(target);
   fs.mkdirSync(target, { mode: 0o700 });
   const { dump, ledger } = await pg.transaction(async (tx) => {
     const head = await tx.query<{ entries: number; seq: number | null; hash: string | null }>(

@@ -52,6 +52,14 @@ export function ensurePrivateFolder(folder: string): void {
   fs.chmodSync(folder, 0o700);
 }
 
+/**
+ * Creates the folders a file of ours goes into, readable by their owner only, and leaves any that
+ * exist as they are: a backup written to /tmp/x must not close /tmp to everybody else.
+ */
+export function ensureParentFolder(file: string): void {
+  fs.mkdirSync(path.dirname(file), { recursive: true, mode: 0o700 });
+}
+
 const HELD = Symbol.for("ratecourt.data-lock");
 type Held = { [HELD]?: Set<string> };
 

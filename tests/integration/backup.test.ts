@@ -2,7 +2,7 @@
 // request) or by `npm run db:backup` with it stopped, restored with `npm run db:restore` into a
 // new folder, where the ledger verifies and the stored objects read back.
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { chmodSync, mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -119,9 +119,13 @@ describe.runIf(embedded)("restoring", () => {
   it("db:backup works with the server stopped, and its backup restores too", async () => {
     await closeDb();
     releaseDataFolder(folder("live"));
+    // A folder the backup goes into keeps its permissions (a backup to /tmp/x once closed /tmp).
+    chmodSync(work, 0o755);
     const backup = script("backup", folder("live"), ["--to", folder("stopped-backup")]);
     expect(backup.out).toMatch(/Backed up .* ledger of \d+ entries/);
     expect(backup.status).toBe(0);
+    expect(statSync(work).mode & 0o777).toBe(0o755);
+    expect(statSync(folder("stopped-backup")).mode & 0o777).toBe(0o700);
     const restored = script("restore", folder("restored-2"), [folder("stopped-backup")]);
     expect(restored.out).toMatch(/The ledger verifies/);
     expect(restored.status).toBe(0);
