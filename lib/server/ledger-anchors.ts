@@ -28,6 +28,11 @@ const MEMORY = Symbol.for("ratecourt.ledger-checkpoints");
 const memoryCopy = () => ((globalThis as { [MEMORY]?: Checkpoint[] })[MEMORY] ??= []);
 const outsideFile = () => (env().DB_MEMORY ? null : path.join(dataDir(), CHECKPOINT_FILE));
 
+/** Tests that empty their database and start again: the in-process copy goes with it. */
+export function forgetCheckpointsInMemory(): void {
+  memoryCopy().length = 0;
+}
+
 function keepOutside(checkpoint: Checkpoint): void {
   const file = outsideFile();
   if (!file) {

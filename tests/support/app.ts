@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import { closeDb, getDb } from "@/lib/server/database";
+import { forgetCheckpointsInMemory } from "@/lib/server/ledger-anchors";
 import { seedDemoData, DEMO_PASSWORD } from "@/db/seed";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { DEMO_ACCOUNTS, type DemoAccount } from "./accounts";
@@ -15,6 +16,9 @@ export async function freshDatabase() {
     const { rows } = (await db.execute(sql`select tablename from pg_tables where schemaname = 'public'`)) as unknown as { rows: { tablename: string }[] };
     const names = rows.map((r) => `"${r.tablename}"`).join(", ");
     if (names) await db.execute(sql.raw(`truncate ${names} restart identity cascade`));
+    // The checkpoints this process kept of the ledger just emptied (the first file on an empty
+    // server seeds it once on opening) would not match the new one.
+    forgetCheckpointsInMemory();
     await seedDemoData(db);
   }
   return db;
