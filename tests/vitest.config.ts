@@ -14,5 +14,8 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 120_000,
     pool: "forks",
+    // Vitest's default is one worker fewer than the cores, which is one on a 2-core machine; many
+    // files spend their time waiting (engine deadlines, child processes, PGlite), so two overlap well.
+    maxWorkers: 2,
   },
 });
