@@ -88,4 +88,29 @@ describe("the starter", () => {
     expect(output).toContain("Ratecourt refuses to start in production without these settings:");
     expect(output).toContain("S3_ENDPOINT:");
   });
+
+  it("is reached through the launcher npm start uses, which passes the mode on", () => {
+    const launcher = path.join(root, "lib/runtime/built.mjs");
+    const run = spawnSync(process.execPath, [launcher, "start", "start"], {
+      cwd: root,
+      env: { PATH: process.env.PATH, DATA_DIR: dataDir, RATECOURT_BUILT_DIR: bundleDir },
+      encoding: "utf8",
+      timeout: 60_000,
+    });
+    expect(run.status).toBe(1);
+    expect(`${run.stdout}${run.stderr}`).toContain("Ratecourt refuses to start in production without these settings:");
+  });
+
+  it("says to build first when there is no compiled copy, instead of a module-not-found trace", () => {
+    const launcher = path.join(root, "lib/runtime/built.mjs");
+    const empty = fs.mkdtempSync(path.join(os.tmpdir(), "rc-unbuilt-"));
+    for (const name of ["start", "backup", "restore", "create-admin"]) {
+      const run = spawnSync(process.execPath, [launcher, name], { cwd: root, env: { PATH: process.env.PATH, RATECOURT_BUILT_DIR: empty }, encoding: "utf8" });
+      expect(run.status).toBe(1);
+      expect(run.stderr).toContain("is not built yet");
+      expect(run.stderr).toContain("run npm run build first");
+      expect(run.stderr).not.toMatch(/\n\s+at /);
+    }
+    fs.rmSync(empty, { recursive: true, force: true });
+  });
 });
