@@ -93,7 +93,7 @@ describe("the starter", () => {
     const launcher = path.join(root, "lib/runtime/built.mjs");
     const run = spawnSync(process.execPath, [launcher, "start", "start"], {
       cwd: root,
-      env: { PATH: process.env.PATH, DATA_DIR: dataDir, RATECOURT_BUILT_DIR: bundleDir },
+      env: { PATH: process.env.PATH, DATA_DIR: dataDir, RATECOURT_BUILT_DIR: bundleDir } as NodeJS.ProcessEnv,
       encoding: "utf8",
       timeout: 60_000,
     });
@@ -105,7 +105,11 @@ describe("the starter", () => {
     const launcher = path.join(root, "lib/runtime/built.mjs");
     const empty = fs.mkdtempSync(path.join(os.tmpdir(), "rc-unbuilt-"));
     for (const name of ["start", "backup", "restore", "create-admin"]) {
-      const run = spawnSync(process.execPath, [launcher, name], { cwd: root, env: { PATH: process.env.PATH, RATECOURT_BUILT_DIR: empty }, encoding: "utf8" });
+      const run = spawnSync(process.execPath, [launcher, name], {
+        cwd: root,
+        env: { PATH: process.env.PATH, RATECOURT_BUILT_DIR: empty } as NodeJS.ProcessEnv,
+        encoding: "utf8",
+      });
       expect(run.status).toBe(1);
       expect(run.stderr).toContain("is not built yet");
       expect(run.stderr).toContain("run npm run build first");
