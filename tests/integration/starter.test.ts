@@ -93,7 +93,7 @@ describe("the starter", () => {
     const launcher = path.join(root, "lib/runtime/built.mjs");
     const run = spawnSync(process.execPath, [launcher, "start", "start"], {
       cwd: root,
-      env: { PATH: process.env.PATH, DATA_DIR: dataDir, RATECOURT_BUILT_DIR: bundleDir } as NodeJS.ProcessEnv,
+      env: { PATH: process.env.PATH, NODE_ENV: "production", DATA_DIR: dataDir, RATECOURT_BUILT_DIR: bundleDir },
       encoding: "utf8",
       timeout: 60_000,
     });
@@ -107,7 +107,7 @@ describe("the starter", () => {
     for (const name of ["start", "backup", "restore", "create-admin"]) {
       const run = spawnSync(process.execPath, [launcher, name], {
         cwd: root,
-        env: { PATH: process.env.PATH, RATECOURT_BUILT_DIR: empty } as NodeJS.ProcessEnv,
+        env: { PATH: process.env.PATH, NODE_ENV: "production", RATECOURT_BUILT_DIR: empty },
         encoding: "utf8",
       });
       expect(run.status).toBe(1);
